@@ -1,0 +1,107 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import cookieParser from 'cookie-parser';
+import express, { Router, type Express } from 'express';
+import helmet from 'helmet';
+import { paths } from './config/paths';
+import type { AppContext } from './context';
+import { authenticate } from './middleware/authenticate';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { requestLogger } from './middleware/request-logger';
+import { sameOrigin } from './middleware/same-origin';
+import { auditRoutes } from './modules/audit/audit.routes';
+import { authRoutes } from './modules/auth/auth.routes';
+import { createAuthService } from './modules/auth/auth.service';
+import { healthRoutes } from './modules/health/health.routes';
+import { organisationsRoutes } from './modules/organisations/organisations.routes';
+import { outboxRoutes } from './modules/outbox/outbox.routes';
+import { usersRoutes } from './modules/users/users.routes';
+
+export interface AppOptions {
+  /** Serve the built client from this folder (default: apps/web/dist when it exists). */
+  webDist?: string | null;
+}
+
+/** Every API route, mounted at /api/v1. Exposed so the route-policy test can walk it. */
+export function createApiRouter(ctx: AppContext): Router {
+  const auth = createAuthService(ctx);
+  const api = Router();
+  api.use(authenticate(auth));
+  api.use(healthRoutes());
+  api.use(authRoutes(ctx, auth));
+  api.use(usersRoutes(ctx));
+  api.use(organisationsRoutes(ctx));
+  api.use(outboxRoutes(ctx));
+  api.use(auditRoutes(ctx));
+  return api;
+}
+
+function contentSecurityPolicy() {
+  return helmet({
+    contentSecurityPolicy: {
+      useDefaults: true,
+      directives: {
+        'default-src': ["'self'"],
+        'script-src': ["'self'"],
+        'style-src': ["'self'", "'unsafe-inline'"],
+        'img-src': ["'self'", 'data:', 'blob:'],
+        'media-src': ["'self'", 'blob:'],
+        'font-src': ["'self'", 'data:'],
+        'connect-src': ["'self'"],
+        'object-src': ["'none'"],
+        'base-uri': ["'none'"],
+        'frame-ancestors': ["'none'"],
+        'form-action': ["'self'"],
+        // A hangar LAN often runs on plain HTTP: upgrading would break it.
+        'upgrade-insecure-requests': null,
+      },
+    },
+    crossOriginEmbedderPolicy: false,
+    xFrameOptions: { action: 'deny' },
+    strictTransportSecurity: false,
+  });
+}
+
+export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', ctx.config.trustProxy);
+  app.set('query parser', 'simple');
+
+  app.use(requestLogger(ctx.logger));
+  app.use(contentSecurityPolicy());
+
+  const api = createApiRouter(ctx);
+  app.locals.apiRouter = api;
+  app.use(
+    '/api/v1',
+    express.json({ limit: ctx.config.jsonLimit, strict: true }),
+    cookieParser(),
+    sameOrigin(ctx.config.publicOrigins),
+    api,
+    apiNotFound,
+  );
+  app.use('/api', apiNotFound);
+
+  const webDist = options.webDist === undefined ? paths.webDist : options.webDist;
+  if (webDist && fs.existsSync(path.join(webDist, 'index.html'))) {
+    app.use(
+      '/assets',
+      express.static(path.join(webDist, 'assets'), {
+        immutable: true,
+        maxAge: '1y',
+        index: false,
+        fallthrough: false,
+      }),
+    );
+    app.use(express.static(webDist, { index: false, maxAge: '1h' }));
+    // The client routes itself: every other GET gets the app shell.
+    app.get('/{*path}', (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(path.join(webDist, 'index.html'));
+    });
+  }
+
+  app.use(errorHandler);
+  return app;
+}

@@ -1,0 +1,93 @@
+import { randomBytes } from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import type { Config } from './config/env';
+import type { AppContext } from './context';
+import { openDatabase } from './db/client';
+import { runMigrations } from './db/migrate';
+import { loadDemoScenario } from './demo/demo-scenario';
+import { caughtMailStore } from './lib/email/caught-mail';
+import { createMailer } from './lib/email/mailer';
+import { startSmtpFake } from './lib/email/smtp-fake';
+import type { Logger } from './lib/logger';
+import { countUsers } from './modules/users/users.repository';
+
+export interface Runtime {
+  ctx: AppContext;
+  close(): Promise<void>;
+}
+
+/** The session signing key: SESSION_SECRET, or a secret generated once into the data directory. */
+function sessionKey(config: Config, logger: Logger): Uint8Array {
+  if (config.sessionSecret) return new TextEncoder().encode(config.sessionSecret);
+  const file = path.join(config.dataDir, 'session-secret');
+  if (!fs.existsSync(file)) {
+    try {
+      fs.writeFileSync(file, randomBytes(48).toString('base64url'), { mode: 0o600, flag: 'wx' });
+      logger.info({ file }, 'generated a session secret');
+    } catch (error) {
+      if ((error as NodeJS.ErrnoException).code !== 'EEXIST') throw error;
+    }
+  }
+  return new TextEncoder().encode(fs.readFileSync(file, 'utf8').trim());
+}
+
+function assertWritable(directory: string): void {
+  try {
+    fs.mkdirSync(directory, { recursive: true });
+    fs.accessSync(directory, fs.constants.W_OK);
+  } catch {
+    throw new Error(
+      `Emberline cannot start: the data directory ${directory} cannot be written. Set DATA_DIR to a folder this user may write.`,
+    );
+  }
+}
+
+/**
+ * Prepares everything the app needs: data directory, migrated database, demo data on first start,
+ * and e-mail (the local SMTP fake unless a relay is configured).
+ */
+export async function prepareRuntime(
+  config: Config,
+  logger: Logger,
+  now: () => Date = () => new Date(),
+): Promise<Runtime> {
+  assertWritable(config.dataDir);
+  const handle = openDatabase(path.join(config.dataDir, 'emberline.sqlite'));
+  runMigrations(handle.db);
+
+  if (countUsers(handle.db) === 0) {
+    if (config.demo) {
+      await loadDemoScenario(handle.db, { bcryptCost: config.bcryptCost, now: now() });
+      logger.info('loaded the demo scenario (invented organisations and users)');
+    } else {
+      logger.warn(
+        'there are no users yet: create the first administrator with `pnpm create-admin`',
+      );
+    }
+  }
+
+  const smtpFake = config.smtp ? null : await startSmtpFake(path.join(config.dataDir, 'mail'));
+  const mailer = createMailer(
+    config.smtp ?? { host: '127.0.0.1', port: smtpFake?.port ?? 0, secure: false },
+    config.mailFrom,
+  );
+
+  const ctx: AppContext = {
+    config,
+    db: handle.db,
+    logger,
+    mailer,
+    caughtMail: smtpFake ? caughtMailStore(path.join(config.dataDir, 'mail')) : null,
+    sessionKey: sessionKey(config, logger),
+    now,
+  };
+  return {
+    ctx,
+    async close() {
+      mailer.close();
+      await smtpFake?.close();
+      handle.close();
+    },
+  };
+}

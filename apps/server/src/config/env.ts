@@ -1,0 +1,152 @@
+import path from 'node:path';
+import { z } from 'zod';
+
+const booleanFlag = z
+  .enum(['0', '1', 'true', 'false', 'yes', 'no'])
+  .transform((value) => value === '1' || value === 'true' || value === 'yes');
+
+const positiveInt = (label: string) =>
+  z.coerce
+    .number({ error: `${label} must be a number` })
+    .int(`${label} must be a whole number`)
+    .positive(`${label} must be above zero`);
+
+const envSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('production'),
+  PORT: z.coerce
+    .number({ error: 'PORT must be a number' })
+    .int('PORT must be a whole number')
+    .min(0, 'PORT must be between 0 and 65535')
+    .max(65535, 'PORT must be between 0 and 65535')
+    .default(8080),
+  HOST: z.string().min(1).default('0.0.0.0'),
+  DATA_DIR: z.string().min(1).default('./data'),
+  DEMO: booleanFlag.default(true),
+  SESSION_SECRET: z
+    .string()
+    .min(32, 'SESSION_SECRET must be at least 32 characters; leave it unset to have one generated')
+    .optional(),
+  PUBLIC_ORIGIN: z
+    .string()
+    .optional()
+    .transform((value, context) => {
+      if (!value) return [];
+      const origins: string[] = [];
+      for (const part of value
+        .split(',')
+        .map((item) => item.trim())
+        .filter(Boolean)) {
+        try {
+          origins.push(new URL(part).origin);
+        } catch {
+          context.addIssue({
+            code: 'custom',
+            message: `PUBLIC_ORIGIN has "${part}", which is not a URL such as https://emberline.example.org`,
+          });
+        }
+      }
+      return origins;
+    }),
+  SESSION_IDLE_MINUTES: positiveInt('SESSION_IDLE_MINUTES').default(120),
+  SESSION_ABSOLUTE_HOURS: positiveInt('SESSION_ABSOLUTE_HOURS').default(12),
+  BCRYPT_COST: z.coerce
+    .number()
+    .int()
+    .min(10, 'BCRYPT_COST must be at least 10')
+    .max(15)
+    .default(11),
+  LOGIN_MAX_FAILURES: positiveInt('LOGIN_MAX_FAILURES').default(10),
+  LOGIN_MAX_FAILURES_PER_IP: positiveInt('LOGIN_MAX_FAILURES_PER_IP').default(30),
+  LOGIN_WINDOW_MINUTES: positiveInt('LOGIN_WINDOW_MINUTES').default(15),
+  TRUST_PROXY: z
+    .string()
+    .default('false')
+    .transform((value): boolean | number | string => {
+      if (value === 'false' || value === '0' || value === '') return false;
+      if (value === 'true') return true;
+      if (/^\d+$/.test(value)) return Number(value);
+      return value;
+    }),
+  COOKIE_SECURE: z.enum(['auto', 'true', 'false']).default('auto'),
+  JSON_LIMIT: z
+    .string()
+    .regex(/^\d+(kb|mb)$/, 'JSON_LIMIT must look like 100kb or 1mb')
+    .default('1mb'),
+  SMTP_HOST: z.string().optional(),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).optional(),
+  SMTP_SECURE: booleanFlag.default(false),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASSWORD: z.string().optional(),
+  MAIL_FROM: z.string().default('Emberline <no-reply@emberline.invalid>'),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+});
+
+export interface Config {
+  nodeEnv: 'development' | 'production' | 'test';
+  port: number;
+  host: string;
+  dataDir: string;
+  demo: boolean;
+  sessionSecret: string | undefined;
+  publicOrigins: string[];
+  sessionIdleMs: number;
+  sessionAbsoluteMs: number;
+  bcryptCost: number;
+  loginMaxFailures: number;
+  loginMaxFailuresPerIp: number;
+  loginWindowMs: number;
+  trustProxy: boolean | number | string;
+  cookieSecure: 'auto' | boolean;
+  jsonLimit: string;
+  smtp: { host: string; port: number; secure: boolean; user?: string; password?: string } | null;
+  mailFrom: string;
+  logLevel: string;
+}
+
+export class ConfigError extends Error {
+  override name = 'ConfigError';
+}
+
+/** Parses the environment once at start-up; throws a ConfigError naming every bad variable. */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((issue) => {
+      const name = issue.path.join('.');
+      return `  ${name}: ${issue.message}`;
+    });
+    throw new ConfigError(
+      `Emberline cannot start: the environment is not valid.\n${lines.join('\n')}`,
+    );
+  }
+  const e = parsed.data;
+  return {
+    nodeEnv: e.NODE_ENV,
+    port: e.PORT,
+    host: e.HOST,
+    dataDir: path.resolve(e.DATA_DIR),
+    demo: e.DEMO,
+    sessionSecret: e.SESSION_SECRET,
+    publicOrigins: e.PUBLIC_ORIGIN,
+    sessionIdleMs: e.SESSION_IDLE_MINUTES * 60_000,
+    sessionAbsoluteMs: e.SESSION_ABSOLUTE_HOURS * 3_600_000,
+    bcryptCost: e.BCRYPT_COST,
+    loginMaxFailures: e.LOGIN_MAX_FAILURES,
+    loginMaxFailuresPerIp: e.LOGIN_MAX_FAILURES_PER_IP,
+    loginWindowMs: e.LOGIN_WINDOW_MINUTES * 60_000,
+    trustProxy: e.TRUST_PROXY,
+    cookieSecure: e.COOKIE_SECURE === 'auto' ? 'auto' : e.COOKIE_SECURE === 'true',
+    jsonLimit: e.JSON_LIMIT,
+    smtp: e.SMTP_HOST
+      ? {
+          host: e.SMTP_HOST,
+          port: e.SMTP_PORT ?? (e.SMTP_SECURE ? 465 : 587),
+          secure: e.SMTP_SECURE,
+          user: e.SMTP_USER,
+          password: e.SMTP_PASSWORD,
+        }
+      : null,
+    mailFrom: e.MAIL_FROM,
+    logLevel: e.LOG_LEVEL,
+  };
+}

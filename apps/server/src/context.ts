@@ -1,0 +1,24 @@
+import type { Config } from './config/env';
+import type { Db } from './db/client';
+import type { CaughtMailStore } from './lib/email/caught-mail';
+import type { Mailer } from './lib/email/mailer';
+import type { Logger } from './lib/logger';
+
+/** What every module is given: configuration, the database, side-effect services and the clock. */
+export interface AppContext {
+  config: Config;
+  db: Db;
+  logger: Logger;
+  mailer: Mailer;
+  /** The outbox of the local SMTP fake; null when a real relay is configured. */
+  caughtMail: CaughtMailStore | null;
+  sessionKey: Uint8Array;
+  now: () => Date;
+}
+
+/** Facts about the request that the audit log and the security log keep. */
+export interface RequestMeta {
+  requestId: string;
+  ip: string;
+  userAgent: string | null;
+}

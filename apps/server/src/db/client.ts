@@ -1,0 +1,33 @@
+import Database from 'better-sqlite3';
+import { drizzle, type BetterSQLite3Database } from 'drizzle-orm/better-sqlite3';
+import * as schema from './schema';
+
+export type Db = BetterSQLite3Database<typeof schema>;
+/** A database handle or an open transaction: repositories accept either. */
+export type DbOrTx = Db | Parameters<Parameters<Db['transaction']>[0]>[0];
+
+export interface DatabaseHandle {
+  db: Db;
+  sqlite: Database.Database;
+  close(): void;
+}
+
+/**
+ * Opens the one writer connection with the pragmas Emberline relies on: WAL for concurrent readers,
+ * synchronous=FULL so an acknowledged upload or signature survives a power cut, foreign keys on,
+ * and a busy timeout instead of immediate SQLITE_BUSY errors.
+ */
+export function openDatabase(file: string): DatabaseHandle {
+  const sqlite = new Database(file);
+  sqlite.pragma('journal_mode = WAL');
+  sqlite.pragma('synchronous = FULL');
+  sqlite.pragma('foreign_keys = ON');
+  sqlite.pragma('busy_timeout = 5000');
+  const db = drizzle({ client: sqlite, schema, casing: 'snake_case' });
+  return { db, sqlite, close: () => sqlite.close() };
+}
+
+/** Runs `work` in one `BEGIN IMMEDIATE` transaction: one business action, one transaction. */
+export function inTransaction<T>(db: Db, work: (tx: DbOrTx) => T): T {
+  return db.transaction((tx) => work(tx), { behavior: 'immediate' });
+}

@@ -1,0 +1,99 @@
+import type { Role } from '@emberline/contracts/roles';
+import { inTransaction, type Db } from '../db/client';
+import { hashPassword } from '../modules/auth/passwords';
+import { appendAudit } from '../modules/audit/audit.repository';
+import { insertOrganisation } from '../modules/organisations/organisations.repository';
+import { insertUser } from '../modules/users/users.repository';
+
+/** The password of every demo account. */
+export const DEMO_PASSWORD = 'emberline-demo';
+
+/**
+ * The invented demo scenario: a home organisation that performs borescope inspections and two
+ * customer organisations. Every name here is made up for the demo.
+ */
+export const demoOrganisations = [
+  { id: 'org-home', name: 'Ashgrove Hot Section Services (demo)', kind: 'home' },
+  { id: 'org-corvid', name: 'Corvid Regional Airways (demo)', kind: 'customer' },
+  { id: 'org-pellucid', name: 'Pellucid Aero Leasing (demo)', kind: 'customer' },
+] as const;
+
+export const demoUsers: {
+  id: string;
+  email: string;
+  name: string;
+  role: Role;
+  organisationId: string;
+}[] = [
+  {
+    id: 'user-admin',
+    email: 'admin@demo.test',
+    name: 'Maren Holt',
+    role: 'admin',
+    organisationId: 'org-home',
+  },
+  {
+    id: 'user-inspector',
+    email: 'inspector@demo.test',
+    name: 'Tobias Rennick',
+    role: 'inspector',
+    organisationId: 'org-home',
+  },
+  {
+    id: 'user-engineer',
+    email: 'engineer@demo.test',
+    name: 'Priya Castellane',
+    role: 'engineer',
+    organisationId: 'org-home',
+  },
+  {
+    id: 'user-planner',
+    email: 'planner@demo.test',
+    name: 'Jonah Whitlaw',
+    role: 'planner',
+    organisationId: 'org-home',
+  },
+  {
+    id: 'user-customer',
+    email: 'customer@demo.test',
+    name: 'Ilse Marrow',
+    role: 'customer',
+    organisationId: 'org-corvid',
+  },
+  {
+    id: 'user-customer2',
+    email: 'customer2@demo.test',
+    name: 'Dario Quennell',
+    role: 'customer',
+    organisationId: 'org-pellucid',
+  },
+];
+
+/** Loads the demo scenario into an empty database, in one transaction. */
+export async function loadDemoScenario(
+  db: Db,
+  options: { bcryptCost: number; now: Date },
+): Promise<void> {
+  const hashes = await Promise.all(
+    demoUsers.map(() => hashPassword(DEMO_PASSWORD, options.bcryptCost)),
+  );
+  inTransaction(db, (tx) => {
+    for (const organisation of demoOrganisations)
+      insertOrganisation(tx, { ...organisation, createdAt: options.now });
+    demoUsers.forEach((user, index) => {
+      insertUser(tx, {
+        ...user,
+        passwordHash: hashes[index] ?? null,
+        passwordChangedAt: options.now,
+        createdAt: options.now,
+      });
+    });
+    appendAudit(tx, options.now, {
+      actorUserId: null,
+      action: 'demo.loaded',
+      entityType: 'scenario',
+      entityId: 'demo',
+      after: { organisations: demoOrganisations.length, users: demoUsers.length },
+    });
+  });
+}

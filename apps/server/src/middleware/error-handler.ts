@@ -1,0 +1,72 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { ApiError } from '@emberline/contracts/errors';
+import { AppError } from '../http/app-error';
+
+interface HttpishError {
+  status?: number;
+  statusCode?: number;
+  type?: string;
+  expose?: boolean;
+}
+
+/** Errors thrown by body parsing and similar middleware, mapped into AppErrors. */
+function fromMiddleware(error: HttpishError): AppError | null {
+  switch (error.type) {
+    case 'entity.too.large':
+      return new AppError(413, 'payload_too_large', 'The request is too large');
+    case 'entity.parse.failed':
+      return new AppError(400, 'invalid_json', 'The request body is not valid JSON');
+    case 'encoding.unsupported':
+    case 'charset.unsupported':
+      return new AppError(
+        415,
+        'unsupported_encoding',
+        'The request uses an encoding the server does not read',
+      );
+    default: {
+      const status = error.status ?? error.statusCode;
+      if (status === 404) return AppError.notFound();
+      if (error.expose && status && status >= 400 && status < 500) {
+        return new AppError(status, 'invalid_request', 'The request could not be read');
+      }
+      return null;
+    }
+  }
+}
+
+/** The one error middleware: the contract's error shape with a request id, never a stack, SQL or path. */
+export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
+  const known = error instanceof AppError ? error : fromMiddleware(error as HttpishError);
+  const requestId = String(req.id ?? '');
+  if (!known) {
+    req.log.error({ err: error }, 'unhandled error');
+  } else if (known.status >= 500) {
+    req.log.error({ err: error }, known.message);
+  }
+  const appError =
+    known ??
+    new AppError(
+      500,
+      'internal_error',
+      `Something went wrong on the server. Nothing was changed by this request; if it happens again, give this reference to your administrator: ${requestId}`,
+    );
+  if (res.headersSent) {
+    res.destroy();
+    return;
+  }
+  for (const [name, value] of Object.entries(appError.headers ?? {})) res.setHeader(name, value);
+  const body: ApiError = {
+    error: {
+      code: appError.code,
+      message: appError.message,
+      requestId,
+      ...(appError.details === undefined ? {} : { details: appError.details }),
+    },
+  };
+  res.status(appError.status).json(body);
+};
+
+/** Unmatched API paths answer in the error shape, not with the client's HTML. */
+export const apiNotFound: RequestHandler = () => {
+  throw AppError.notFound('There is no such API endpoint');
+};

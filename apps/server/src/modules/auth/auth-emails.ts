@@ -1,0 +1,50 @@
+import { roleLabels, type Role } from '@emberline/contracts/roles';
+import type { OutgoingMail } from '../../lib/email/mailer';
+
+function escapeHtml(value: string): string {
+  return value.replace(/[&<>"']/g, (char) => `&#${char.charCodeAt(0)};`);
+}
+
+function layout(paragraphs: string[], link: { href: string; label: string }): string {
+  const body = paragraphs.map((text) => `<p>${escapeHtml(text)}</p>`).join('');
+  return `<!doctype html><html><body style="font-family:system-ui,sans-serif;color:#1c1917">${body}<p><a href="${escapeHtml(link.href)}">${escapeHtml(link.label)}</a></p></body></html>`;
+}
+
+export function invitationEmail(input: {
+  to: string;
+  name: string;
+  role: Role;
+  organisationName: string;
+  invitedBy: string;
+  link: string;
+}): OutgoingMail {
+  const lines = [
+    `Hello ${input.name},`,
+    `${input.invitedBy} has invited you to Emberline as ${roleLabels[input.role].toLowerCase()} for ${input.organisationName}.`,
+    'Open the link below to choose your password. It works once and expires in 7 days.',
+  ];
+  return {
+    to: [input.to],
+    subject: 'Your Emberline invitation',
+    text: `${lines.join('\n\n')}\n\n${input.link}\n\nIf you did not expect this invitation, you can ignore this message.\n`,
+    html: layout(lines, { href: input.link, label: 'Choose your password' }),
+  };
+}
+
+export function passwordResetEmail(input: {
+  to: string;
+  name: string;
+  link: string;
+}): OutgoingMail {
+  const lines = [
+    `Hello ${input.name},`,
+    'Someone asked to reset the password of your Emberline account. Open the link below to choose a new one. It works once and expires in 1 hour.',
+    'If it was not you, ignore this message: your password stays as it is.',
+  ];
+  return {
+    to: [input.to],
+    subject: 'Reset your Emberline password',
+    text: `${lines.join('\n\n')}\n\n${input.link}\n`,
+    html: layout(lines, { href: input.link, label: 'Choose a new password' }),
+  };
+}

@@ -1,0 +1,30 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import type { AppContext } from '../../context';
+import { AppError } from '../../http/app-error';
+import { route } from '../../http/route';
+import { validate } from '../../http/validate';
+
+export function outboxRoutes(ctx: AppContext): Router {
+  const router = Router();
+
+  route(router, 'GET /outbox', async (_req, res) => {
+    res.json({
+      items: ctx.caughtMail ? await ctx.caughtMail.list() : [],
+      catching: ctx.caughtMail !== null,
+    });
+  });
+
+  route(
+    router,
+    'GET /outbox/:id',
+    validate({ params: z.strictObject({ id: z.string().max(40) }) }),
+    async (_req, res) => {
+      const message = ctx.caughtMail ? await ctx.caughtMail.read(res.locals.params.id) : null;
+      if (!message) throw AppError.notFound('There is no such message in the outbox');
+      res.json(message);
+    },
+  );
+
+  return router;
+}

@@ -1,0 +1,86 @@
+import { and, asc, count, desc, eq, gt, isNull, sql } from 'drizzle-orm';
+import type { DbOrTx } from '../../db/client';
+import { organisations, sessions, users } from '../../db/schema';
+
+export type UserRow = typeof users.$inferSelect;
+export type NewUserRow = typeof users.$inferInsert;
+
+export interface UserWithOrganisation extends UserRow {
+  organisationName: string;
+  organisationKind: 'home' | 'customer';
+}
+
+const withOrganisation = {
+  id: users.id,
+  email: users.email,
+  name: users.name,
+  role: users.role,
+  organisationId: users.organisationId,
+  passwordHash: users.passwordHash,
+  disabledAt: users.disabledAt,
+  lastSignInAt: users.lastSignInAt,
+  passwordChangedAt: users.passwordChangedAt,
+  createdAt: users.createdAt,
+  organisationName: organisations.name,
+  organisationKind: organisations.kind,
+};
+
+const preparedFindUser = new WeakMap<
+  object,
+  { get(values: { id: string }): UserWithOrganisation | undefined }
+>();
+
+/** Looked up on every signed-in request, so the statement is prepared once per connection. */
+export function findUserById(db: DbOrTx, id: string): UserWithOrganisation | undefined {
+  let statement = preparedFindUser.get(db);
+  if (!statement) {
+    statement = db
+      .select(withOrganisation)
+      .from(users)
+      .innerJoin(organisations, eq(organisations.id, users.organisationId))
+      .where(eq(users.id, sql.placeholder('id')))
+      .prepare();
+    preparedFindUser.set(db, statement);
+  }
+  return statement.get({ id });
+}
+
+export function findUserByEmail(db: DbOrTx, email: string): UserWithOrganisation | undefined {
+  return db
+    .select(withOrganisation)
+    .from(users)
+    .innerJoin(organisations, eq(organisations.id, users.organisationId))
+    .where(eq(users.email, email))
+    .get();
+}
+
+export function listUsersWithSessionCounts(
+  db: DbOrTx,
+  now: Date,
+): (UserWithOrganisation & { activeSessions: number })[] {
+  const live = db
+    .select({ userId: sessions.userId, active: count().as('active') })
+    .from(sessions)
+    .where(and(isNull(sessions.revokedAt), gt(sessions.expiresAt, now)))
+    .groupBy(sessions.userId)
+    .as('live');
+  return db
+    .select({ ...withOrganisation, activeSessions: sql<number>`coalesce(${live.active}, 0)` })
+    .from(users)
+    .innerJoin(organisations, eq(organisations.id, users.organisationId))
+    .leftJoin(live, eq(live.userId, users.id))
+    .orderBy(desc(organisations.kind), asc(users.name))
+    .all();
+}
+
+export function insertUser(db: DbOrTx, row: NewUserRow): void {
+  db.insert(users).values(row).run();
+}
+
+export function updateUser(db: DbOrTx, id: string, changes: Partial<NewUserRow>): void {
+  db.update(users).set(changes).where(eq(users.id, id)).run();
+}
+
+export function countUsers(db: DbOrTx): number {
+  return db.select({ n: count() }).from(users).get()?.n ?? 0;
+}

@@ -1,0 +1,232 @@
+import { isStaffRole, type Role } from '@emberline/contracts/roles';
+import type {
+  InviteUserInput,
+  InviteUserResponse,
+  UpdateUserInput,
+  User,
+} from '@emberline/contracts/users';
+import type { AppContext, RequestMeta } from '../../context';
+import { inTransaction } from '../../db/client';
+import { AppError } from '../../http/app-error';
+import type { Principal } from '../../http/principal';
+import { newId } from '../../lib/ids';
+import { appendAudit } from '../audit/audit.repository';
+import { invitationEmail } from '../auth/auth-emails';
+import { publicOrigin } from '../auth/auth.service';
+import { revokeUserSessions } from '../auth/sessions.repository';
+import { issueUserToken } from '../auth/user-tokens.service';
+import { findOrganisation, type OrganisationRow } from '../organisations/organisations.repository';
+import {
+  findUserByEmail,
+  findUserById,
+  insertUser,
+  listUsersWithSessionCounts,
+  updateUser,
+  type UserWithOrganisation,
+} from './users.repository';
+import { toUser, userStatus } from './user-view';
+
+function auditView(user: UserWithOrganisation) {
+  return {
+    email: user.email,
+    name: user.name,
+    role: user.role,
+    organisationId: user.organisationId,
+    status: userStatus(user),
+  };
+}
+
+/** Customers belong to a customer organisation; every other role to the home organisation. */
+function assertRoleFitsOrganisation(
+  role: Role,
+  organisation: OrganisationRow | undefined,
+): OrganisationRow {
+  if (!organisation) {
+    throw AppError.unprocessable('That organisation does not exist', {
+      fields: { organisationId: ['Choose an organisation from the list'] },
+      form: [],
+    });
+  }
+  const fits = isStaffRole(role) ? organisation.kind === 'home' : organisation.kind === 'customer';
+  if (!fits) {
+    const message = isStaffRole(role)
+      ? `A ${role} belongs to the home organisation, not to the customer ${organisation.name}`
+      : `A customer user belongs to a customer organisation, not to ${organisation.name}`;
+    throw AppError.unprocessable(message, { fields: { organisationId: [message] }, form: [] });
+  }
+  return organisation;
+}
+
+export function createUsersService(ctx: AppContext) {
+  const { db, config, logger } = ctx;
+
+  function mustFind(id: string): UserWithOrganisation {
+    const user = findUserById(db, id);
+    if (!user) throw AppError.notFound('There is no such user');
+    return user;
+  }
+
+  async function sendInvitation(
+    user: UserWithOrganisation,
+    invitedBy: string,
+    token: string,
+    meta: RequestMeta,
+  ): Promise<boolean> {
+    const link = `${publicOrigin(config.publicOrigins, config.port)}/accept-invitation#token=${token}`;
+    try {
+      await ctx.mailer.send(
+        invitationEmail({
+          to: user.email,
+          name: user.name,
+          role: user.role,
+          organisationName: user.organisationName,
+          invitedBy,
+          link,
+        }),
+      );
+      return true;
+    } catch (error) {
+      logger.error(
+        { err: error, userId: user.id, requestId: meta.requestId },
+        'invitation e-mail failed',
+      );
+      return false;
+    }
+  }
+
+  return {
+    list(): User[] {
+      return listUsersWithSessionCounts(db, ctx.now()).map(toUser);
+    },
+
+    async invite(
+      principal: Principal,
+      input: InviteUserInput,
+      meta: RequestMeta,
+    ): Promise<InviteUserResponse> {
+      assertRoleFitsOrganisation(input.role, findOrganisation(db, input.organisationId));
+      const now = ctx.now();
+      const id = newId();
+      const token = inTransaction(db, (tx) => {
+        if (findUserByEmail(tx, input.email)) {
+          throw AppError.conflict('That e-mail address already has an account', {
+            fields: { email: ['That e-mail address already has an account'] },
+            form: [],
+          });
+        }
+        insertUser(tx, {
+          id,
+          email: input.email,
+          name: input.name,
+          role: input.role,
+          organisationId: input.organisationId,
+          createdAt: now,
+        });
+        const secret = issueUserToken(tx, id, 'invitation', now);
+        appendAudit(tx, now, {
+          actorUserId: principal.user.id,
+          action: 'user.invited',
+          entityType: 'user',
+          entityId: id,
+          after: {
+            email: input.email,
+            name: input.name,
+            role: input.role,
+            organisationId: input.organisationId,
+          },
+          requestId: meta.requestId,
+          ip: meta.ip,
+        });
+        return secret;
+      });
+      const user = mustFind(id);
+      const emailSent = await sendInvitation(user, principal.user.name, token, meta);
+      return { user: toUser(user), emailSent };
+    },
+
+    async resendInvitation(
+      principal: Principal,
+      id: string,
+      meta: RequestMeta,
+    ): Promise<InviteUserResponse> {
+      const user = mustFind(id);
+      if (userStatus(user) !== 'invited')
+        throw AppError.conflict('This user has already accepted the invitation or is disabled');
+      const now = ctx.now();
+      const token = inTransaction(db, (tx) => {
+        const secret = issueUserToken(tx, id, 'invitation', now);
+        appendAudit(tx, now, {
+          actorUserId: principal.user.id,
+          action: 'user.invitation-resent',
+          entityType: 'user',
+          entityId: id,
+          requestId: meta.requestId,
+          ip: meta.ip,
+        });
+        return secret;
+      });
+      const emailSent = await sendInvitation(user, principal.user.name, token, meta);
+      return { user: toUser(user), emailSent };
+    },
+
+    update(principal: Principal, id: string, input: UpdateUserInput, meta: RequestMeta): User {
+      const before = mustFind(id);
+      const self = before.id === principal.user.id;
+      if (self && input.disabled)
+        throw AppError.unprocessable('You cannot disable your own account');
+      if (self && input.role && input.role !== before.role) {
+        throw AppError.unprocessable('You cannot change your own role; ask another administrator');
+      }
+      const role = input.role ?? before.role;
+      const organisationId = input.organisationId ?? before.organisationId;
+      if (input.role || input.organisationId)
+        assertRoleFitsOrganisation(role, findOrganisation(db, organisationId));
+      const now = ctx.now();
+      inTransaction(db, (tx) => {
+        const disabledAt =
+          input.disabled === undefined
+            ? before.disabledAt
+            : input.disabled
+              ? (before.disabledAt ?? now)
+              : null;
+        updateUser(tx, id, { name: input.name ?? before.name, role, organisationId, disabledAt });
+        if (disabledAt && !before.disabledAt) revokeUserSessions(tx, id, now, 'account-disabled');
+        // Moving a user to another organisation ends their sessions: what they may see changes.
+        if (organisationId !== before.organisationId)
+          revokeUserSessions(tx, id, now, 'organisation-changed');
+        const after = findUserById(tx, id);
+        appendAudit(tx, now, {
+          actorUserId: principal.user.id,
+          action: 'user.updated',
+          entityType: 'user',
+          entityId: id,
+          before: auditView(before),
+          after: after ? auditView(after) : null,
+          requestId: meta.requestId,
+          ip: meta.ip,
+        });
+      });
+      const refreshed = listUsersWithSessionCounts(db, now).find((user) => user.id === id);
+      return toUser(refreshed ?? mustFind(id));
+    },
+
+    endSessions(principal: Principal, id: string, meta: RequestMeta): { ended: number } {
+      mustFind(id);
+      const now = ctx.now();
+      const ended = inTransaction(db, (tx) => {
+        const count = revokeUserSessions(tx, id, now, 'ended-by-admin');
+        appendAudit(tx, now, {
+          actorUserId: principal.user.id,
+          action: 'user.sessions-ended',
+          entityType: 'user',
+          entityId: id,
+          after: { ended: count },
+          requestId: meta.requestId,
+          ip: meta.ip,
+        });
+        return count;
+      });
+      return { ended };
+    },
+  };
+}

@@ -1,0 +1,50 @@
+import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes } from 'react';
+import type { FieldError } from 'react-hook-form';
+
+interface FieldProps {
+  label: string;
+  error?: FieldError | undefined;
+  hint?: ReactNode;
+  children: (props: {
+    id: string;
+    'aria-invalid': boolean;
+    'aria-describedby': string | undefined;
+  }) => ReactNode;
+}
+
+/** A labelled form field with its hint and its error shown beside it. */
+export function Field({ label, error, hint, children }: FieldProps) {
+  const id = useId();
+  const hintId = hint ? `${id}-hint` : undefined;
+  const errorId = error ? `${id}-error` : undefined;
+  const describedBy = [hintId, errorId].filter(Boolean).join(' ') || undefined;
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={id} className="text-sm font-medium text-soot-800">
+        {label}
+      </label>
+      {children({ id, 'aria-invalid': Boolean(error), 'aria-describedby': describedBy })}
+      {hint ? (
+        <p id={hintId} className="text-xs text-soot-600">
+          {hint}
+        </p>
+      ) : null}
+      {error?.message ? (
+        <p id={errorId} role="alert" className="text-sm text-red-700">
+          {error.message}
+        </p>
+      ) : null}
+    </div>
+  );
+}
+
+const control =
+  'w-full rounded-md border border-soot-300 bg-white px-3 py-2 text-sm text-soot-900 placeholder:text-soot-500 aria-[invalid=true]:border-red-600';
+
+export function Input(props: InputHTMLAttributes<HTMLInputElement>) {
+  return <input {...props} className={`${control} ${props.className ?? ''}`} />;
+}
+
+export function Select(props: SelectHTMLAttributes<HTMLSelectElement>) {
+  return <select {...props} className={`${control} ${props.className ?? ''}`} />;
+}

@@ -1,0 +1,78 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { OrganisationListResponse } from '@emberline/contracts/organisations';
+import type {
+  InviteUserInput,
+  InviteUserResponse,
+  UpdateUserInput,
+  User,
+  UserListResponse,
+} from '@emberline/contracts/users';
+import { api } from '../../../lib/api-client';
+
+export const userKeys = {
+  all: ['users'] as const,
+  list: () => [...userKeys.all, 'list'] as const,
+};
+
+export const organisationKeys = {
+  all: ['organisations'] as const,
+  list: () => [...organisationKeys.all, 'list'] as const,
+};
+
+export const usersQueryOptions = () =>
+  // Sessions and statuses change by other people's hands: fetch afresh whenever the page opens.
+  queryOptions({
+    queryKey: userKeys.list(),
+    queryFn: () => api.get<UserListResponse>('/users').then((body) => body.items),
+    staleTime: 0,
+  });
+
+export const organisationsQueryOptions = () =>
+  queryOptions({
+    queryKey: organisationKeys.list(),
+    queryFn: () => api.get<OrganisationListResponse>('/organisations').then((body) => body.items),
+    staleTime: 5 * 60_000,
+  });
+
+export function useUsers() {
+  return useQuery(usersQueryOptions());
+}
+
+export function useOrganisations() {
+  return useQuery(organisationsQueryOptions());
+}
+
+export function useInviteUser() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: InviteUserInput) => api.post<InviteUserResponse>('/users', input),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: userKeys.all }),
+  });
+}
+
+export function useUpdateUser() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, changes }: { id: string; changes: UpdateUserInput }) =>
+      api.patch<{ user: User }>(`/users/${encodeURIComponent(id)}`, changes),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: userKeys.all }),
+  });
+}
+
+export function useResendInvitation() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (id: string) =>
+      api.post<InviteUserResponse>(`/users/${encodeURIComponent(id)}/invitation`),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: userKeys.all }),
+  });
+}
+
+export function useEndSessions() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (id: string) =>
+      api.delete<{ ended: number }>(`/users/${encodeURIComponent(id)}/sessions`),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: userKeys.all }),
+  });
+}

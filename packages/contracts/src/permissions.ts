@@ -1,0 +1,49 @@
+import type { Role } from './roles';
+
+/**
+ * Every permission Emberline knows, as `action:entity[:scope]`. Each is granted to roles here and
+ * nowhere else; the server checks them per route (and again per record), the client only uses them
+ * to hide what a role cannot use.
+ */
+export const permissionGrants = {
+  // Fleet: engines, engine models, utilization. Customers see their own organisation only.
+  'read:engine': ['admin', 'inspector', 'engineer', 'planner', 'customer'],
+  // Inspections and findings.
+  'create:inspection': ['admin', 'inspector'],
+  'review:inspection': ['admin', 'engineer'],
+  // Damage-limit library.
+  'read:limit-set': ['admin', 'inspector', 'engineer', 'planner'],
+  'edit:limit-set': ['admin', 'engineer'],
+  // Re-inspection planning.
+  'plan:inspection': ['admin', 'planner'],
+  'read:planning': ['admin', 'engineer', 'planner'],
+  // Reports: staff see all, customers their own organisation's released ones.
+  'read:report': ['admin', 'inspector', 'engineer', 'planner', 'customer'],
+  // Administration.
+  'manage:user': ['admin'],
+  'read:organisation': ['admin'],
+  'read:outbox': ['admin'],
+  'read:audit-log': ['admin'],
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Permission = keyof typeof permissionGrants;
+
+export const permissions = Object.keys(permissionGrants) as Permission[];
+
+/** Whether a role holds a permission. */
+export function can(role: Role, permission: Permission): boolean {
+  return (permissionGrants[permission] as readonly Role[]).includes(role);
+}
+
+/**
+ * What a route requires: a permission, any signed-in user (`signed-in`), or nothing (`public`).
+ */
+export type Access = Permission | 'signed-in' | 'public';
+
+/** Whether a caller (a role, or `null` for anonymous) passes an access requirement. */
+export function allows(access: Access, role: Role | null): boolean {
+  if (access === 'public') return true;
+  if (role === null) return false;
+  if (access === 'signed-in') return true;
+  return can(role, access);
+}

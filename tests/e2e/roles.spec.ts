@@ -1,0 +1,65 @@
+import { DEMO_PASSWORD, expect, signIn, test } from './fixtures';
+
+// What each demo role should find in the main navigation (DESIGN §2 roles, §8 screen names).
+const expectedNavigation: Record<string, string[]> = {
+  'admin@demo.test': [
+    'Fleet',
+    'Review queue',
+    'Limit library',
+    'Planning board',
+    'Reports',
+    'Admin',
+  ],
+  'inspector@demo.test': ['Fleet', 'Limit library', 'Reports'],
+  'engineer@demo.test': ['Fleet', 'Review queue', 'Limit library', 'Planning board', 'Reports'],
+  'planner@demo.test': ['Fleet', 'Limit library', 'Planning board', 'Reports'],
+  'customer@demo.test': ['Fleet', 'Reports'],
+  'customer2@demo.test': ['Fleet', 'Reports'],
+};
+
+for (const [email, items] of Object.entries(expectedNavigation)) {
+  test(`${email} signs in, sees the navigation of the role, and signs out`, async ({ page }) => {
+    await signIn(page, email);
+    const navigation = page.getByRole('navigation', { name: 'Main' });
+    await expect(navigation.getByRole('link')).toHaveText(items);
+    await expect(page.getByRole('contentinfo')).toContainText('it does not approve');
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await expect(page.getByRole('heading', { name: 'Sign in' })).toBeVisible();
+    await page.goto('/fleet');
+    await expect(page.getByRole('heading', { name: 'Sign in' })).toBeVisible();
+  });
+}
+
+test('a wrong password is refused with a message beside the form', async ({ page }) => {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail address').fill('planner@demo.test');
+  await page.getByLabel('Password').fill(`${DEMO_PASSWORD}-wrong`);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByRole('alert')).toContainText('not right');
+});
+
+test('an empty form is refused at the fields without a request', async ({ page }) => {
+  await page.goto('/sign-in');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByText('Enter an e-mail address such as name@example.com')).toBeVisible();
+  await expect(page.getByText('Enter your password')).toBeVisible();
+});
+
+test('a customer sent to an admin page is told it is not for their role', async ({ page }) => {
+  await signIn(page, 'customer@demo.test');
+  await page.goto('/admin/users');
+  await expect(page.getByText('Not available to your role')).toBeVisible();
+});
+
+test('an unknown address shows the not-found page', async ({ page }) => {
+  await signIn(page, 'inspector@demo.test');
+  await page.goto('/no-such-page');
+  await expect(page.getByRole('heading', { name: 'Page not found' })).toBeVisible();
+});
+
+test('screens of later releases say plainly that they are not built yet', async ({ page }) => {
+  await signIn(page, 'engineer@demo.test');
+  await page.getByRole('link', { name: 'Review queue' }).click();
+  await expect(page.getByRole('heading', { name: 'Review queue' })).toBeVisible();
+  await expect(page.getByText('Not built yet')).toBeVisible();
+});

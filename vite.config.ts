@@ -1,0 +1,47 @@
+import tailwindcss from '@tailwindcss/vite';
+import react from '@vitejs/plugin-react';
+import { defineConfig } from 'vitest/config';
+
+/**
+ * Builds the client (apps/web) and defines the Vitest projects of the workspace. The dev server
+ * proxies /api to the Express server on port 8080.
+ */
+export default defineConfig({
+  root: 'apps/web',
+  plugins: [react(), tailwindcss()],
+  build: {
+    outDir: 'dist',
+    emptyOutDir: true,
+    sourcemap: true,
+  },
+  server: {
+    port: 5173,
+    proxy: { '/api': { target: `http://localhost:${process.env.PORT ?? 8080}` } },
+  },
+  test: {
+    root: '.',
+    projects: [
+      {
+        extends: true,
+        test: {
+          name: 'packages',
+          root: '.',
+          include: ['packages/*/src/**/*.test.ts'],
+          environment: 'node',
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'server',
+          root: '.',
+          include: ['apps/server/src/**/*.test.ts', 'apps/server/test/**/*.test.ts'],
+          environment: 'node',
+          setupFiles: ['apps/server/test/setup.ts'],
+          testTimeout: 20_000,
+          hookTimeout: 20_000,
+        },
+      },
+    ],
+  },
+});
