@@ -13,6 +13,9 @@ export default defineConfig({
     outDir: 'dist',
     emptyOutDir: true,
     sourcemap: true,
+    // The budget that matters is the gzip size of the initial JavaScript, which `pnpm bench`
+    // checks against its 200 KB ceiling; Vite's raw-size warning is set just above today's bundle.
+    chunkSizeWarningLimit: 700,
   },
   server: {
     port: 5173,

@@ -18,6 +18,7 @@ export function requireAccess(access: Access): RequestHandler {
         role: principal.user.role,
         access,
         ip: req.ip,
+        requestId: req.id,
         at: new Date().toISOString(),
       },
       'forbidden',

@@ -13,5 +13,5 @@ export const navigation: NavigationItem[] = [
   { label: 'Limit library', to: '/limits', permission: 'read:limit-set' },
   { label: 'Planning board', to: '/planning', permission: 'read:planning' },
   { label: 'Reports', to: '/reports', permission: 'read:report' },
-  { label: 'Admin', to: '/admin/users', permission: 'manage:user' },
+  { label: 'Admin', to: '/admin', permission: 'manage:user' },
 ];
