@@ -45,6 +45,17 @@ export default defineConfig({
           hookTimeout: 20_000,
         },
       },
+      {
+        extends: true,
+        test: {
+          name: 'reference',
+          root: '.',
+          include: ['tests/reference/**/*.test.ts'],
+          environment: 'node',
+          // date-fns works in local time; the product's dates are UTC.
+          env: { TZ: 'UTC' },
+        },
+      },
     ],
   },
 });

@@ -12,7 +12,9 @@ import { sameOrigin } from './middleware/same-origin';
 import { auditRoutes } from './modules/audit/audit.routes';
 import { authRoutes } from './modules/auth/auth.routes';
 import { createAuthService } from './modules/auth/auth.service';
+import { calculationsRoutes } from './modules/calculations/calculations.routes';
 import { healthRoutes } from './modules/health/health.routes';
+import { openApiRoutes } from './modules/openapi/openapi.routes';
 import { organisationsRoutes } from './modules/organisations/organisations.routes';
 import { outboxRoutes } from './modules/outbox/outbox.routes';
 import { usersRoutes } from './modules/users/users.routes';
@@ -33,6 +35,8 @@ export function createApiRouter(ctx: AppContext): Router {
   api.use(organisationsRoutes(ctx));
   api.use(outboxRoutes(ctx));
   api.use(auditRoutes(ctx));
+  api.use(calculationsRoutes());
+  api.use(openApiRoutes());
   return api;
 }
 

@@ -19,6 +19,8 @@ export const permissionGrants = {
   'read:planning': ['admin', 'engineer', 'planner'],
   // Reports: staff see all, customers their own organisation's released ones.
   'read:report': ['admin', 'inspector', 'engineer', 'planner', 'customer'],
+  // The calculation endpoints (measure, evaluate, forecast, trend): staff only.
+  'run:calculation': ['admin', 'inspector', 'engineer', 'planner'],
   // Administration.
   'manage:user': ['admin'],
   'read:organisation': ['admin'],

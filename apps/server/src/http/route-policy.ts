@@ -24,6 +24,11 @@ export const routePolicy = {
   'GET /outbox': 'read:outbox',
   'GET /outbox/:id': 'read:outbox',
   'GET /audit-log': 'read:audit-log',
+  'POST /measurements': 'run:calculation',
+  'POST /evaluations': 'run:calculation',
+  'POST /forecasts': 'run:calculation',
+  'POST /trends': 'run:calculation',
+  'GET /openapi.json': 'public',
 } as const satisfies Record<string, Access>;
 
 export type RouteKey = keyof typeof routePolicy;

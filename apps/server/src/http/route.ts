@@ -1,10 +1,26 @@
 import type { RequestHandler, Router } from 'express';
+import type { z } from 'zod';
 import { allows, type Access } from '@emberline/contracts/permissions';
 import { AppError } from './app-error';
 import { optionalPrincipalOf } from './principal';
 import { routePolicy, type RouteKey } from './route-policy';
+import { validate } from './validate';
 
 type Method = 'get' | 'post' | 'patch' | 'put' | 'delete';
+
+/** What a route takes and gives: validated on the way in, and published in the OpenAPI document. */
+export interface RouteSpec {
+  summary: string;
+  params?: z.ZodType;
+  query?: z.ZodType;
+  body?: z.ZodType;
+  response?: z.ZodType;
+  /** Success status when not 200 (201 created, 202 accepted, 204 no content). */
+  status?: number;
+}
+
+/** Every registered route's spec, for the OpenAPI document. */
+export const routeSpecs = new Map<RouteKey, RouteSpec>();
 
 /** Refuses callers that the access requirement does not allow: 401 anonymous, 403 a wrong role. */
 export function requireAccess(access: Access): RequestHandler {
@@ -28,11 +44,19 @@ export function requireAccess(access: Access): RequestHandler {
 }
 
 /**
- * Registers a route with the access the route policy names for it. Each module's routes go
- * through here, so no route exists without a policy entry.
+ * Registers a route with the access the route policy names for it and the validation its spec
+ * gives. Each module's routes go through here, so no route exists without a policy entry, and
+ * the schemas that validate a request are the ones the OpenAPI document shows.
  */
-export function route(router: Router, key: RouteKey, ...handlers: RequestHandler[]): void {
+export function route(
+  router: Router,
+  key: RouteKey,
+  spec: RouteSpec,
+  ...handlers: RequestHandler[]
+): void {
   const [verb, path] = key.split(' ') as [string, string];
   const method = verb.toLowerCase() as Method;
-  router[method](path, requireAccess(routePolicy[key]), ...handlers);
+  const validation = spec.body || spec.query || spec.params ? [validate(spec)] : [];
+  router[method](path, requireAccess(routePolicy[key]), ...validation, ...handlers);
+  routeSpecs.set(key, spec);
 }

@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import type { ApiError } from '@emberline/contracts/errors';
+import { DomainError } from '@emberline/domain/errors';
 import { AppError } from '../http/app-error';
 
 interface HttpishError {
@@ -36,7 +37,12 @@ function fromMiddleware(error: HttpishError): AppError | null {
 
 /** The one error middleware: the contract's error shape with a request id, never a stack, SQL or path. */
 export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
-  const known = error instanceof AppError ? error : fromMiddleware(error as HttpishError);
+  const known =
+    error instanceof AppError
+      ? error
+      : error instanceof DomainError
+        ? AppError.unprocessable(error.message, { path: error.path })
+        : fromMiddleware(error as HttpishError);
   const requestId = String(req.id ?? '');
   if (!known) {
     req.log.error({ err: error }, 'unhandled error');

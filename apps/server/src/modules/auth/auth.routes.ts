@@ -2,7 +2,9 @@ import { Router } from 'express';
 import {
   acceptInvitationInputSchema,
   changePasswordInputSchema,
+  invitationInfoSchema,
   loginInputSchema,
+  meResponseSchema,
   passwordResetConfirmSchema,
   passwordResetRequestSchema,
   tokenSchema,
@@ -13,34 +15,48 @@ import type { AppContext } from '../../context';
 import { optionalPrincipalOf, principalOf } from '../../http/principal';
 import { requestMeta } from '../../http/request-meta';
 import { route } from '../../http/route';
-import { validate } from '../../http/validate';
 import type { AuthService } from './auth.service';
 import { clearSessionCookie, setSessionCookie } from './session-cookie';
 
 export function authRoutes(ctx: AppContext, auth: AuthService): Router {
   const router = Router();
+  const signedIn = { response: meResponseSchema };
 
-  route(router, 'POST /auth/login', validate({ body: loginInputSchema }), async (req, res) => {
-    const session = await auth.login(res.locals.body, requestMeta(req));
-    setSessionCookie(req, res, ctx.config, session.token, session.expiresAt);
-    res.json({ user: session.user } satisfies MeResponse);
-  });
+  route(
+    router,
+    'POST /auth/login',
+    { summary: 'Sign in; sets the session cookie', body: loginInputSchema, ...signedIn },
+    async (req, res) => {
+      const session = await auth.login(res.locals.body, requestMeta(req));
+      setSessionCookie(req, res, ctx.config, session.token, session.expiresAt);
+      res.json({ user: session.user } satisfies MeResponse);
+    },
+  );
 
-  route(router, 'POST /auth/logout', (req, res) => {
-    const principal = optionalPrincipalOf(res);
-    if (principal) auth.logout(principal, requestMeta(req));
-    clearSessionCookie(req, res, ctx.config);
-    res.status(204).end();
-  });
+  route(
+    router,
+    'POST /auth/logout',
+    { summary: 'Sign out; ends the session', status: 204 },
+    (req, res) => {
+      const principal = optionalPrincipalOf(res);
+      if (principal) auth.logout(principal, requestMeta(req));
+      clearSessionCookie(req, res, ctx.config);
+      res.status(204).end();
+    },
+  );
 
-  route(router, 'GET /auth/me', (_req, res) => {
+  route(router, 'GET /auth/me', { summary: 'The signed-in user', ...signedIn }, (_req, res) => {
     res.json({ user: principalOf(res).user } satisfies MeResponse);
   });
 
   route(
     router,
     'POST /auth/password',
-    validate({ body: changePasswordInputSchema }),
+    {
+      summary: 'Change the password; every other session ends',
+      body: changePasswordInputSchema,
+      ...signedIn,
+    },
     async (req, res) => {
       const session = await auth.changePassword(
         principalOf(res),
@@ -55,7 +71,11 @@ export function authRoutes(ctx: AppContext, auth: AuthService): Router {
   route(
     router,
     'POST /auth/password-reset',
-    validate({ body: passwordResetRequestSchema }),
+    {
+      summary: 'E-mail a single-use reset link when the address has an active account',
+      body: passwordResetRequestSchema,
+      status: 202,
+    },
     async (req, res) => {
       await auth.requestPasswordReset(res.locals.body.email, requestMeta(req));
       res.status(202).json({ status: 'sent-if-known' });
@@ -65,7 +85,11 @@ export function authRoutes(ctx: AppContext, auth: AuthService): Router {
   route(
     router,
     'POST /auth/password-reset/confirm',
-    validate({ body: passwordResetConfirmSchema }),
+    {
+      summary: 'Choose a new password with a reset link',
+      body: passwordResetConfirmSchema,
+      status: 204,
+    },
     async (req, res) => {
       await auth.confirmPasswordReset(res.locals.body, requestMeta(req));
       res.status(204).end();
@@ -75,7 +99,11 @@ export function authRoutes(ctx: AppContext, auth: AuthService): Router {
   route(
     router,
     'POST /auth/invitations/inspect',
-    validate({ body: z.strictObject({ token: tokenSchema }) }),
+    {
+      summary: 'Who an invitation link is for',
+      body: z.strictObject({ token: tokenSchema }),
+      response: invitationInfoSchema,
+    },
     (_req, res) => {
       res.json(auth.inspectInvitation(res.locals.body.token));
     },
@@ -84,7 +112,11 @@ export function authRoutes(ctx: AppContext, auth: AuthService): Router {
   route(
     router,
     'POST /auth/invitations/accept',
-    validate({ body: acceptInvitationInputSchema }),
+    {
+      summary: 'Accept an invitation: choose a password and sign in',
+      body: acceptInvitationInputSchema,
+      ...signedIn,
+    },
     async (req, res) => {
       const session = await auth.acceptInvitation(res.locals.body, requestMeta(req));
       setSessionCookie(req, res, ctx.config, session.token, session.expiresAt);

@@ -1,24 +1,36 @@
 import { Router } from 'express';
+import { mailMessageSchema, mailSummarySchema } from '@emberline/contracts/outbox';
 import { z } from 'zod';
 import type { AppContext } from '../../context';
 import { AppError } from '../../http/app-error';
 import { route } from '../../http/route';
-import { validate } from '../../http/validate';
 
 export function outboxRoutes(ctx: AppContext): Router {
   const router = Router();
 
-  route(router, 'GET /outbox', async (_req, res) => {
-    res.json({
-      items: ctx.caughtMail ? await ctx.caughtMail.list() : [],
-      catching: ctx.caughtMail !== null,
-    });
-  });
+  route(
+    router,
+    'GET /outbox',
+    {
+      summary: 'Messages caught by the local SMTP fake',
+      response: z.object({ items: z.array(mailSummarySchema), catching: z.boolean() }),
+    },
+    async (_req, res) => {
+      res.json({
+        items: ctx.caughtMail ? await ctx.caughtMail.list() : [],
+        catching: ctx.caughtMail !== null,
+      });
+    },
+  );
 
   route(
     router,
     'GET /outbox/:id',
-    validate({ params: z.strictObject({ id: z.string().max(40) }) }),
+    {
+      summary: 'One caught message',
+      params: z.strictObject({ id: z.string().max(40) }),
+      response: mailMessageSchema,
+    },
     async (_req, res) => {
       const message = ctx.caughtMail ? await ctx.caughtMail.read(res.locals.params.id) : null;
       if (!message) throw AppError.notFound('There is no such message in the outbox');

@@ -2,31 +2,54 @@ import { Router } from 'express';
 import {
   idParamsSchema,
   inviteUserInputSchema,
+  inviteUserResponseSchema,
   updateUserInputSchema,
+  userListResponseSchema,
+  userSchema,
 } from '@emberline/contracts/users';
+import { z } from 'zod';
 import type { AppContext } from '../../context';
 import { principalOf } from '../../http/principal';
 import { requestMeta } from '../../http/request-meta';
 import { route } from '../../http/route';
-import { validate } from '../../http/validate';
 import { createUsersService } from './users.service';
 
 export function usersRoutes(ctx: AppContext): Router {
   const router = Router();
   const users = createUsersService(ctx);
 
-  route(router, 'GET /users', (_req, res) => {
-    res.json({ items: users.list() });
-  });
+  route(
+    router,
+    'GET /users',
+    { summary: 'Every user, with status and live sessions', response: userListResponseSchema },
+    (_req, res) => {
+      res.json({ items: users.list() });
+    },
+  );
 
-  route(router, 'POST /users', validate({ body: inviteUserInputSchema }), async (req, res) => {
-    res.status(201).json(await users.invite(principalOf(res), res.locals.body, requestMeta(req)));
-  });
+  route(
+    router,
+    'POST /users',
+    {
+      summary: 'Invite a user by e-mail',
+      body: inviteUserInputSchema,
+      response: inviteUserResponseSchema,
+      status: 201,
+    },
+    async (req, res) => {
+      res.status(201).json(await users.invite(principalOf(res), res.locals.body, requestMeta(req)));
+    },
+  );
 
   route(
     router,
     'PATCH /users/:id',
-    validate({ params: idParamsSchema, body: updateUserInputSchema }),
+    {
+      summary: 'Change name, role or organisation; disable or enable',
+      params: idParamsSchema,
+      body: updateUserInputSchema,
+      response: z.object({ user: userSchema }),
+    },
     (req, res) => {
       res.json({
         user: users.update(
@@ -42,7 +65,11 @@ export function usersRoutes(ctx: AppContext): Router {
   route(
     router,
     'POST /users/:id/invitation',
-    validate({ params: idParamsSchema }),
+    {
+      summary: 'Send a new invitation link; earlier ones stop working',
+      params: idParamsSchema,
+      response: inviteUserResponseSchema,
+    },
     async (req, res) => {
       res.json(
         await users.resendInvitation(principalOf(res), res.locals.params.id, requestMeta(req)),
@@ -50,9 +77,18 @@ export function usersRoutes(ctx: AppContext): Router {
     },
   );
 
-  route(router, 'DELETE /users/:id/sessions', validate({ params: idParamsSchema }), (req, res) => {
-    res.json(users.endSessions(principalOf(res), res.locals.params.id, requestMeta(req)));
-  });
+  route(
+    router,
+    'DELETE /users/:id/sessions',
+    {
+      summary: 'End every session of a user',
+      params: idParamsSchema,
+      response: z.object({ ended: z.number().int() }),
+    },
+    (req, res) => {
+      res.json(users.endSessions(principalOf(res), res.locals.params.id, requestMeta(req)));
+    },
+  );
 
   return router;
 }

@@ -1,0 +1,85 @@
+import { z } from 'zod';
+
+const coordinate = z.number().finite().min(-1e6).max(1e6);
+
+/** An image point `[x, y]` in pixels of the full-resolution, oriented image; origin top-left. */
+export const imagePointSchema = z.tuple([coordinate, coordinate]);
+export type ImagePoint = z.infer<typeof imagePointSchema>;
+
+const positiveMm = z.number().finite().positive({ message: 'must be above zero' }).max(10_000);
+
+/** Two points a known true distance apart, in the plane of the damage. */
+export const referenceCalibrationSchema = z.strictObject({
+  kind: z.literal('reference'),
+  p1: imagePointSchema,
+  p2: imagePointSchema,
+  lengthMm: positiveMm,
+});
+
+/**
+ * Four image points that are, in this order, the corners (0,0), (W,0), (W,H), (0,H) in mm of a
+ * rectangle lying in the damaged surface, for oblique views.
+ */
+export const planeCalibrationSchema = z.strictObject({
+  kind: z.literal('plane'),
+  corners: z.tuple([imagePointSchema, imagePointSchema, imagePointSchema, imagePointSchema]),
+  widthMm: positiveMm,
+  heightMm: positiveMm,
+});
+
+export const calibrationSchema = z.discriminatedUnion('kind', [
+  referenceCalibrationSchema,
+  planeCalibrationSchema,
+]);
+export type Calibration = z.infer<typeof calibrationSchema>;
+export type ReferenceCalibration = z.infer<typeof referenceCalibrationSchema>;
+export type PlaneCalibration = z.infer<typeof planeCalibrationSchema>;
+
+export const shapeKindSchema = z.enum(['polyline', 'polygon', 'point']);
+export type ShapeKind = z.infer<typeof shapeKindSchema>;
+
+export const shapeSchema = z
+  .strictObject({
+    kind: shapeKindSchema,
+    points: z.array(imagePointSchema).min(1).max(2000),
+  })
+  .superRefine((shape, context) => {
+    const needed = { polyline: 2, polygon: 3, point: 1 }[shape.kind];
+    if (shape.points.length < needed) {
+      context.addIssue({
+        code: 'custom',
+        path: ['points'],
+        message: `a ${shape.kind} needs at least ${needed} point${needed === 1 ? '' : 's'}`,
+      });
+    }
+    if (shape.kind === 'point' && shape.points.length !== 1) {
+      context.addIssue({
+        code: 'custom',
+        path: ['points'],
+        message: 'a point has exactly one point',
+      });
+    }
+  });
+export type Shape = z.infer<typeof shapeSchema>;
+
+/** Pick uncertainty u: how far, in pixels, a clicked point may be from where it was meant. */
+export const pickUncertaintySchema = z.number().finite().min(0).max(50);
+export const DEFAULT_PICK_UNCERTAINTY_PX = 1;
+
+export const measurementRequestSchema = z.strictObject({
+  calibration: calibrationSchema,
+  shape: shapeSchema,
+  pickUncertaintyPx: pickUncertaintySchema.optional(),
+});
+export type MeasurementRequest = z.infer<typeof measurementRequestSchema>;
+
+export const measurementResultSchema = z.object({
+  mmPerPx: z.number().nullable(),
+  lengthMm: z.number().nullable(),
+  areaMm2: z.number().nullable(),
+  perimeterMm: z.number().nullable(),
+  maxExtentMm: z.number().nullable(),
+  uncertaintyMm: z.number().nullable(),
+  uncertaintyMm2: z.number().nullable(),
+});
+export type MeasurementResult = z.infer<typeof measurementResultSchema>;

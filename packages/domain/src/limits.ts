@@ -1,0 +1,576 @@
+import {
+  categories,
+  type BeyondAction,
+  type Category,
+  type EngineVerdict,
+  type EvaluationFinding,
+  type EvaluationRequest,
+  type EvaluationResult,
+  type FindingEvaluation,
+  type Interval,
+  type LimitUnit,
+  type Measure,
+  type Reason,
+  type Rule,
+  type RuleJudgement,
+} from '@emberline/contracts/limits';
+import { DomainError } from './errors';
+import { atMost, exceeds, fromMillimetres } from './units';
+
+const rank: Record<Category, number> = {
+  serviceable: 0,
+  'repeat-inspection': 1,
+  review: 2,
+  'beyond-limits': 3,
+};
+
+const unitsOf: Record<Measure, readonly LimitUnit[]> = {
+  length: ['mm', 'in'],
+  width: ['mm', 'in'],
+  depth: ['mm', 'in'],
+  area: ['mm2', 'in2'],
+  count: ['count'],
+};
+
+function worse(a: Category, b: Category): Category {
+  return rank[a] >= rank[b] ? a : b;
+}
+
+function hasCountLimit(rule: Rule): boolean {
+  return (
+    rule.maxPerAirfoil !== null ||
+    rule.maxTotalPerAirfoil !== null ||
+    rule.maxAirfoilsPerRow !== null ||
+    rule.maxAdjacentAirfoils !== null
+  );
+}
+
+function describeLimit(value: number, unit: LimitUnit): string {
+  return `${value} ${unit === 'mm2' ? 'mm²' : unit === 'in2' ? 'in²' : unit === 'count' ? '' : unit}`.trim();
+}
+
+/**
+ * Refuses a rule set that would judge wrongly: a rule with no limit (it would pass everything), a
+ * repeat limit below the serviceable one, a repeat band without an interval, a unit that does not
+ * fit the measure, a row the engine does not have, a removal "within" no cycles or hours.
+ */
+export function validateRules(rules: readonly Rule[], rowKeys: ReadonlySet<string> | null): void {
+  const seen = new Set<string>();
+  rules.forEach((rule, index) => {
+    const at = (field: string) => ['rules', index, field];
+    const name = `rule ${rule.id}`;
+    if (seen.has(rule.id))
+      throw new DomainError(`${name} appears twice: every rule needs its own id`, at('id'));
+    seen.add(rule.id);
+    if (rowKeys && !rowKeys.has(rule.row))
+      throw new DomainError(
+        `${name} is for the row "${rule.row}", which this engine model does not have`,
+        at('row'),
+      );
+    if (!unitsOf[rule.measure].includes(rule.unit)) {
+      throw new DomainError(
+        `${name} measures ${rule.measure} in "${rule.unit}": use ${unitsOf[rule.measure].join(' or ')}`,
+        at('unit'),
+      );
+    }
+    if (
+      !rule.notPermitted &&
+      rule.serviceableMax === null &&
+      rule.repeatMax === null &&
+      !hasCountLimit(rule)
+    ) {
+      throw new DomainError(
+        `${name} has no limit and is not "not permitted": it would pass every finding`,
+        at('serviceableMax'),
+      );
+    }
+    if (
+      rule.serviceableMax !== null &&
+      rule.repeatMax !== null &&
+      rule.repeatMax < rule.serviceableMax
+    ) {
+      throw new DomainError(
+        `${name}: the repeat limit (${describeLimit(rule.repeatMax, rule.unit)}) is below the serviceable limit (${describeLimit(rule.serviceableMax, rule.unit)})`,
+        at('repeatMax'),
+      );
+    }
+    const interval = rule.repeatInterval;
+    if (
+      rule.repeatMax !== null &&
+      (!interval || (interval.cycles === null && interval.hours === null && interval.days === null))
+    ) {
+      throw new DomainError(
+        `${name} has a repeat band but no repeat interval: give cycles, hours or days`,
+        at('repeatInterval'),
+      );
+    }
+    if (
+      rule.beyondAction?.kind === 'remove-within' &&
+      rule.beyondAction.cycles === null &&
+      rule.beyondAction.hours === null
+    ) {
+      throw new DomainError(
+        `${name}: "remove within" needs a number of cycles or hours`,
+        at('beyondAction'),
+      );
+    }
+  });
+}
+
+function validateFindings(
+  findings: readonly EvaluationFinding[],
+  rows: EvaluationRequest['rows'],
+): void {
+  const seen = new Set<string>();
+  const measured = [
+    'lengthMm',
+    'widthMm',
+    'depthMm',
+    'areaMm2',
+    'count',
+    'uncertaintyMm',
+    'uncertaintyMm2',
+  ] as const;
+  findings.forEach((finding, index) => {
+    const name = `finding ${finding.id}`;
+    if (seen.has(finding.id))
+      throw new DomainError(`${name} appears twice: every finding needs its own id`, [
+        'findings',
+        index,
+        'id',
+      ]);
+    seen.add(finding.id);
+    const row = rows[finding.row];
+    if (!row)
+      throw new DomainError(
+        `${name} is on the row "${finding.row}", which this engine model does not have`,
+        ['findings', index, 'row'],
+      );
+    if (finding.position < 1 || finding.position > row.count) {
+      throw new DomainError(
+        `${name} is at position ${finding.position}, outside ${finding.row} (positions 1 to ${row.count})`,
+        ['findings', index, 'position'],
+      );
+    }
+    for (const field of measured) {
+      const value = finding[field];
+      if (value !== null && value < 0)
+        throw new DomainError(`${name} has a negative ${field} (${value})`, [
+          'findings',
+          index,
+          field,
+        ]);
+    }
+  });
+}
+
+function measuredValue(finding: EvaluationFinding, measure: Measure): number | null {
+  switch (measure) {
+    case 'length':
+      return finding.lengthMm;
+    case 'width':
+      return finding.widthMm;
+    case 'depth':
+      return finding.depthMm;
+    case 'area':
+      return finding.areaMm2;
+    case 'count':
+      return finding.count;
+  }
+}
+
+function uncertaintyOf(finding: EvaluationFinding, measure: Measure): number {
+  if (measure === 'count') return 0;
+  return (measure === 'area' ? finding.uncertaintyMm2 : finding.uncertaintyMm) ?? 0;
+}
+
+function band(rule: Rule, value: number): number {
+  if (rule.serviceableMax !== null && atMost(value, rule.serviceableMax)) return 0;
+  if (rule.repeatMax !== null && atMost(value, rule.repeatMax)) return 1;
+  return 3;
+}
+
+const bandCategory: Category[] = ['serviceable', 'repeat-inspection', 'review', 'beyond-limits'];
+const bandReason: Reason[] = [
+  'within-serviceable',
+  'within-repeat',
+  'missing-measurement',
+  'exceeds-limit',
+];
+
+// One frozen array per reason: judgements share them, so that judging a finding allocates little.
+const single = Object.fromEntries(
+  [...bandReason, 'not-permitted', 'count-rule-only', 'no-matching-rule'].map((reason) => [
+    reason,
+    Object.freeze([reason]),
+  ]),
+) as unknown as Record<Reason, Reason[]>;
+
+/** The working of one rule on one finding, as ranks; reused from finding to finding. */
+interface Working {
+  level: number;
+  measuredLevel: number;
+  reasons: Reason[];
+  value: number | null;
+  uncertainty: number | null;
+  utilisation: number | null;
+}
+
+function work(rule: Rule, finding: EvaluationFinding, into: Working): Working {
+  const raw = measuredValue(finding, rule.measure);
+  const value = raw === null ? null : fromMillimetres(raw, rule.unit);
+  into.value = value;
+  into.uncertainty =
+    value === null ? null : fromMillimetres(uncertaintyOf(finding, rule.measure), rule.unit);
+  into.utilisation = null;
+  if (rule.notPermitted) {
+    into.level = into.measuredLevel = 3;
+    into.reasons = single['not-permitted'];
+  } else if (rule.serviceableMax === null && rule.repeatMax === null) {
+    into.level = into.measuredLevel = 0;
+    into.reasons = single['count-rule-only'];
+  } else if (value === null) {
+    into.level = into.measuredLevel = 2;
+    into.reasons = single['missing-measurement'];
+  } else {
+    into.measuredLevel = band(rule, value);
+    into.level = band(rule, value + into.uncertainty!);
+    into.reasons = single[bandReason[into.level]!];
+    const outer = (rule.repeatMax ?? rule.serviceableMax)!;
+    into.utilisation = outer === 0 ? null : value / outer;
+  }
+  return into;
+}
+
+function toJudgement(rule: Rule, working: Working): RuleJudgement {
+  return {
+    ruleId: rule.id,
+    category: bandCategory[working.level]!,
+    measuredCategory: bandCategory[working.measuredLevel]!,
+    reasons: working.reasons,
+    value: working.value,
+    uncertainty: working.uncertainty,
+    unit: rule.unit,
+    utilisation: working.utilisation,
+  };
+}
+
+const blank = (): Working => ({
+  level: 0,
+  measuredLevel: 0,
+  reasons: single['count-rule-only'],
+  value: null,
+  uncertainty: null,
+  utilisation: null,
+});
+
+/** How one rule judges one finding, steps 1 to 6 of DESIGN §5.2. */
+export function judge(rule: Rule, finding: EvaluationFinding): RuleJudgement {
+  return toJudgement(rule, work(rule, finding, blank()));
+}
+
+function minimum(a: number | null, b: number | null): number | null {
+  if (a === null) return b;
+  if (b === null) return a;
+  return Math.min(a, b);
+}
+
+/** Each of cycles, hours and days taken separately as the smallest given. */
+export function strictestInterval(intervals: readonly (Interval | null)[]): Interval | null {
+  let result: Interval | null = null;
+  for (const interval of intervals) {
+    if (!interval) continue;
+    result = result
+      ? {
+          cycles: minimum(result.cycles, interval.cycles),
+          hours: minimum(result.hours, interval.hours),
+          days: minimum(result.days, interval.days),
+        }
+      : { ...interval };
+  }
+  return result;
+}
+
+const actionOrder: Record<BeyondAction['kind'], number> = {
+  'remove-before-next-flight': 0,
+  'remove-within': 1,
+  'remove-at-next-shop-visit': 2,
+};
+
+/** Negative when a is more restrictive than b: before next flight, then within fewest cycles and hours, then next shop visit. */
+export function compareActions(a: BeyondAction, b: BeyondAction): number {
+  const byKind = actionOrder[a.kind] - actionOrder[b.kind];
+  if (byKind !== 0 || a.kind !== 'remove-within') return byKind;
+  const cycles = (a.cycles ?? Infinity) - (b.cycles ?? Infinity);
+  if (cycles !== 0 && !Number.isNaN(cycles)) return cycles;
+  const hours = (a.hours ?? Infinity) - (b.hours ?? Infinity);
+  return Number.isNaN(hours) ? 0 : hours;
+}
+
+function strictestAction(a: BeyondAction | null, b: BeyondAction | null): BeyondAction | null {
+  if (!a) return b;
+  if (!b) return a;
+  return compareActions(b, a) < 0 ? b : a;
+}
+
+interface Candidate {
+  rule: Rule;
+  anyZone: boolean;
+  zones: Set<string>;
+  counts: boolean;
+}
+
+const noJudgements: RuleJudgement[] = Object.freeze([]) as unknown as RuleJudgement[];
+
+function stricterInterval(a: Interval | null, b: Interval | null): Interval | null {
+  if (!a) return b ? { ...b } : null;
+  if (!b) return a;
+  return {
+    cycles: minimum(a.cycles, b.cycles),
+    hours: minimum(a.hours, b.hours),
+    days: minimum(a.days, b.days),
+  };
+}
+
+/**
+ * Judges one finding by every candidate rule that matches its zone and keeps, as it goes, the worst
+ * category and, among the rules tied at it, the strictest interval or removal and the governing rule.
+ */
+const scratch = blank();
+
+function judgeFinding(
+  finding: EvaluationFinding,
+  candidates: readonly Candidate[],
+  explain: boolean,
+  onMatch: (candidate: Candidate) => void,
+): FindingEvaluation {
+  let worst = -1;
+  let worstMeasured = 0;
+  let ruleId: string | null = null;
+  let reasons: Reason[] = [];
+  let utilisation: number | null = null;
+  let interval: Interval | null = null;
+  let action: BeyondAction | null = null;
+  const judgements = explain ? [] : noJudgements;
+  for (let index = 0; index < candidates.length; index += 1) {
+    const candidate = candidates[index]!;
+    if (!candidate.anyZone && !candidate.zones.has(finding.zone)) continue;
+    if (candidate.counts) onMatch(candidate);
+    const { rule } = candidate;
+    const working = work(rule, finding, scratch);
+    if (explain) judgements.push(toJudgement(rule, working));
+    const level = working.level;
+    if (working.measuredLevel > worstMeasured) worstMeasured = working.measuredLevel;
+    if (level > worst) {
+      worst = level;
+      ruleId = rule.id;
+      reasons = working.reasons;
+      utilisation = working.utilisation;
+      interval = level === 1 ? stricterInterval(null, rule.repeatInterval) : null;
+      action = level === 3 ? rule.beyondAction : null;
+    } else if (level === worst) {
+      if (level === 1) interval = stricterInterval(interval, rule.repeatInterval);
+      if (level === 3) action = strictestAction(action, rule.beyondAction);
+      // The higher utilisation governs (null ranks below any number); on a tie, the rule listed first.
+      if (
+        working.utilisation !== null &&
+        (utilisation === null || working.utilisation > utilisation)
+      ) {
+        ruleId = rule.id;
+        reasons = working.reasons;
+        utilisation = working.utilisation;
+      }
+    }
+  }
+  if (worst === -1) {
+    return {
+      id: finding.id,
+      category: 'review',
+      measuredCategory: 'review',
+      indeterminate: false,
+      ruleId: null,
+      reasons: single['no-matching-rule'],
+      utilisation: null,
+      repeatInterval: null,
+      beyondAction: null,
+      judgements,
+    };
+  }
+  return {
+    id: finding.id,
+    category: bandCategory[worst]!,
+    measuredCategory: bandCategory[worstMeasured]!,
+    indeterminate: worst !== worstMeasured,
+    ruleId,
+    reasons,
+    utilisation,
+    repeatInterval: interval,
+    beyondAction: action,
+    judgements,
+  };
+}
+
+function escalate(
+  evaluation: FindingEvaluation,
+  finding: EvaluationFinding,
+  rule: Rule,
+  reason: Reason,
+): void {
+  if (evaluation.category !== 'beyond-limits') {
+    evaluation.ruleId = rule.id;
+    evaluation.utilisation = judge(rule, finding).utilisation;
+    evaluation.reasons = [];
+  }
+  evaluation.category = 'beyond-limits';
+  evaluation.measuredCategory = 'beyond-limits';
+  evaluation.indeterminate = false;
+  evaluation.repeatInterval = null;
+  // Reasons arrays may be shared (frozen) between findings: replace, never push.
+  if (!evaluation.reasons.includes(reason)) evaluation.reasons = [...evaluation.reasons, reason];
+  evaluation.beyondAction = strictestAction(evaluation.beyondAction, rule.beyondAction);
+}
+
+/** Runs of consecutive positions around a ring of `count` positions (N is next to 1). */
+export function circularRuns(positions: readonly number[], count: number): number[][] {
+  const sorted = [...new Set(positions)].sort((a, b) => a - b);
+  if (sorted.length === 0) return [];
+  if (sorted.length === count) return [sorted];
+  const runs: number[][] = [];
+  for (const position of sorted) {
+    const last = runs[runs.length - 1];
+    if (last && position === last[last.length - 1]! + 1) last.push(position);
+    else runs.push([position]);
+  }
+  const first = runs[0]!;
+  const final = runs[runs.length - 1]!;
+  if (runs.length > 1 && first[0] === 1 && final[final.length - 1] === count) {
+    runs[0] = [...final, ...first];
+    runs.pop();
+  }
+  return runs;
+}
+
+function applyCountRule(
+  rule: Rule,
+  matched: number[],
+  findings: readonly EvaluationFinding[],
+  evaluations: FindingEvaluation[],
+  rowCount: number,
+): void {
+  const byPosition = new Map<number, number[]>();
+  for (const index of matched) {
+    const position = findings[index]!.position;
+    const group = byPosition.get(position);
+    if (group) group.push(index);
+    else byPosition.set(position, [index]);
+  }
+  for (const group of byPosition.values()) {
+    if (rule.maxPerAirfoil !== null && group.length > rule.maxPerAirfoil) {
+      for (const index of group)
+        escalate(evaluations[index]!, findings[index]!, rule, 'count-per-airfoil');
+    }
+    if (rule.maxTotalPerAirfoil !== null) {
+      let total = 0;
+      for (const index of group) {
+        const raw = measuredValue(findings[index]!, rule.measure);
+        if (raw !== null)
+          total += fromMillimetres(raw + uncertaintyOf(findings[index]!, rule.measure), rule.unit);
+      }
+      if (exceeds(total, rule.maxTotalPerAirfoil))
+        for (const index of group)
+          escalate(evaluations[index]!, findings[index]!, rule, 'total-per-airfoil');
+    }
+  }
+  if (rule.maxAirfoilsPerRow !== null && byPosition.size > rule.maxAirfoilsPerRow) {
+    for (const index of matched)
+      escalate(evaluations[index]!, findings[index]!, rule, 'airfoils-per-row');
+  }
+  if (rule.maxAdjacentAirfoils !== null) {
+    for (const run of circularRuns([...byPosition.keys()], rowCount)) {
+      if (run.length <= rule.maxAdjacentAirfoils) continue;
+      for (const position of run)
+        for (const index of byPosition.get(position)!)
+          escalate(evaluations[index]!, findings[index]!, rule, 'adjacent-airfoils');
+    }
+  }
+}
+
+/** The engine verdict: the worst category, the counts, the strictest interval and every removal action. */
+export function engineVerdict(evaluations: readonly FindingEvaluation[]): EngineVerdict {
+  const counts = Object.fromEntries(categories.map((category) => [category, 0])) as Record<
+    Category,
+    number
+  >;
+  let category: Category = 'serviceable';
+  const intervals: (Interval | null)[] = [];
+  const actions: BeyondAction[] = [];
+  for (const evaluation of evaluations) {
+    counts[evaluation.category] += 1;
+    category = worse(category, evaluation.category);
+    if (evaluation.category === 'repeat-inspection') intervals.push(evaluation.repeatInterval);
+    if (evaluation.category === 'beyond-limits' && evaluation.beyondAction)
+      actions.push(evaluation.beyondAction);
+  }
+  const unique = new Map(
+    actions.map((action) => [`${action.kind}|${action.cycles}|${action.hours}`, action]),
+  );
+  return {
+    category,
+    repeatInterval: strictestInterval(intervals),
+    beyondActions: [...unique.values()].sort(compareActions),
+    counts,
+  };
+}
+
+/**
+ * Evaluates every finding of an inspection against a rule set (DESIGN §5.2): each matching rule,
+ * the worst governing, then the count, total, row and adjacency limits per row, then the engine
+ * verdict. Throws a DomainError naming the item for inconsistent input. With `explain: false` the
+ * per-rule working (`judgements`) is left out, for evaluating many findings at once.
+ */
+export function evaluate(
+  input: EvaluationRequest,
+  options: { explain?: boolean } = {},
+): EvaluationResult {
+  const explain = options.explain ?? true;
+  validateRules(input.rules, new Set(Object.keys(input.rows)));
+  validateFindings(input.findings, input.rows);
+
+  // Candidate rules by row, then damage; zones as sets. Built once, then each finding is a lookup.
+  const candidates = new Map<string, Map<string, Candidate[]>>();
+  for (const rule of input.rules) {
+    let byDamage = candidates.get(rule.row);
+    if (!byDamage) candidates.set(rule.row, (byDamage = new Map()));
+    let list = byDamage.get(rule.damage);
+    if (!list) byDamage.set(rule.damage, (list = []));
+    list.push({
+      rule,
+      anyZone: rule.zones.includes('*'),
+      zones: new Set(rule.zones),
+      counts: hasCountLimit(rule),
+    });
+  }
+  const matchedByRule = new Map<Rule, number[]>();
+  const none: Candidate[] = [];
+
+  const evaluations: FindingEvaluation[] = new Array(input.findings.length);
+  let current = 0;
+  const countMatch = (candidate: Candidate) => {
+    const matched = matchedByRule.get(candidate.rule);
+    if (matched) matched.push(current);
+    else matchedByRule.set(candidate.rule, [current]);
+  };
+  for (current = 0; current < input.findings.length; current += 1) {
+    const finding = input.findings[current]!;
+    evaluations[current] = judgeFinding(
+      finding,
+      candidates.get(finding.row)?.get(finding.damage) ?? none,
+      explain,
+      countMatch,
+    );
+  }
+
+  for (const [rule, matched] of matchedByRule)
+    applyCountRule(rule, matched, input.findings, evaluations, input.rows[rule.row]!.count);
+  return { findings: evaluations, engine: engineVerdict(evaluations) };
+}

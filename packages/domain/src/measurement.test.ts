@@ -1,0 +1,281 @@
+import { describe, expect, it } from 'vitest';
+import type { Calibration } from '@emberline/contracts/measurement';
+import { measure } from './measurement';
+
+const reference: Calibration = { kind: 'reference', p1: [0, 0], p2: [100, 0], lengthMm: 10 };
+
+describe('reference calibration', () => {
+  it('measures a polyline and its uncertainty by the rule of §5.1', () => {
+    // P = 50 px (a 30-40-50 triangle), s = 10 / 100, s_max = 10 / (100 − 2), k = 1 segment.
+    const result = measure(reference, {
+      kind: 'polyline',
+      points: [
+        [0, 0],
+        [30, 40],
+      ],
+    });
+    expect(result.mmPerPx).toBeCloseTo(0.1, 12);
+    expect(result.lengthMm).toBeCloseTo(5, 12);
+    expect(result.uncertaintyMm).toBeCloseTo((10 / 98) * (50 + 2) - 5, 12);
+    expect(result.areaMm2).toBeNull();
+    expect(result.uncertaintyMm2).toBeNull();
+  });
+
+  it('counts 2u per segment for a polyline of several segments', () => {
+    const result = measure(
+      reference,
+      {
+        kind: 'polyline',
+        points: [
+          [0, 0],
+          [10, 0],
+          [10, 10],
+          [20, 10],
+        ],
+      },
+      2,
+    );
+    const sMax = 10 / (100 - 4);
+    expect(result.lengthMm).toBeCloseTo(3, 12);
+    expect(result.uncertaintyMm).toBeCloseTo(sMax * (30 + 2 * 2 * 3) - 3, 12);
+  });
+
+  it('measures a polygon: area, perimeter, largest extent and the area uncertainty', () => {
+    const result = measure(reference, {
+      kind: 'polygon',
+      points: [
+        [0, 0],
+        [10, 0],
+        [10, 10],
+        [0, 10],
+      ],
+    });
+    expect(result.areaMm2).toBeCloseTo(1, 12);
+    expect(result.perimeterMm).toBeCloseTo(4, 12);
+    expect(result.maxExtentMm).toBeCloseTo(Math.SQRT2, 12);
+    const sMax = 10 / 98;
+    expect(result.uncertaintyMm2).toBeCloseTo(sMax * sMax * (100 + 1 * 40 + Math.PI) - 1, 12);
+    expect(result.lengthMm).toBeNull();
+  });
+
+  it('gives a point its location only', () => {
+    expect(measure(reference, { kind: 'point', points: [[5, 5]] })).toEqual({
+      mmPerPx: 0.1,
+      lengthMm: null,
+      areaMm2: null,
+      perimeterMm: null,
+      maxExtentMm: null,
+      uncertaintyMm: null,
+      uncertaintyMm2: null,
+    });
+  });
+
+  it('refuses reference points closer than twice the pick uncertainty, saying how close they are', () => {
+    const close: Calibration = { kind: 'reference', p1: [10, 10], p2: [11.2, 10], lengthMm: 1 };
+    expect(() =>
+      measure(close, {
+        kind: 'polyline',
+        points: [
+          [0, 0],
+          [5, 5],
+        ],
+      }),
+    ).toThrowError('the two reference points are only 1.2 px apart');
+    expect(() =>
+      measure(
+        { ...close, p2: [12, 10] },
+        {
+          kind: 'polyline',
+          points: [
+            [0, 0],
+            [5, 5],
+          ],
+        },
+      ),
+    ).toThrowError(/only 2\.0 px apart/);
+  });
+
+  it('refuses repeated points and a flat outline', () => {
+    expect(() =>
+      measure(reference, {
+        kind: 'polyline',
+        points: [
+          [0, 0],
+          [0, 0],
+          [5, 5],
+        ],
+      }),
+    ).toThrowError(/points 1 and 2 of the polyline are the same point/);
+    expect(() =>
+      measure(reference, {
+        kind: 'polygon',
+        points: [
+          [0, 0],
+          [5, 5],
+          [0, 0],
+        ],
+      }),
+    ).toThrowError(/same point/);
+    expect(() =>
+      measure(reference, {
+        kind: 'polygon',
+        points: [
+          [0, 0],
+          [5, 5],
+          [10, 10],
+        ],
+      }),
+    ).toThrowError(/no area/);
+  });
+});
+
+describe('plane calibration', () => {
+  const square: Calibration = {
+    kind: 'plane',
+    corners: [
+      [0, 0],
+      [100, 0],
+      [100, 50],
+      [0, 50],
+    ],
+    widthMm: 10,
+    heightMm: 5,
+  };
+
+  it('matches the reference method for a rectangle seen square-on', () => {
+    const line = measure(square, {
+      kind: 'polyline',
+      points: [
+        [0, 0],
+        [30, 40],
+      ],
+    });
+    expect(line.lengthMm).toBeCloseTo(5, 9);
+    expect(line.mmPerPx).toBeNull();
+    const box = measure(square, {
+      kind: 'polygon',
+      points: [
+        [10, 10],
+        [20, 10],
+        [20, 20],
+        [10, 20],
+      ],
+    });
+    expect(box.areaMm2).toBeCloseTo(1, 9);
+    expect(box.perimeterMm).toBeCloseTo(4, 9);
+  });
+
+  // Hand-worked example (our own, kept here so it can be checked on paper): the plane-to-image map
+  // G = [[10, 0, 0], [0, 10, 0], [0, 0.05, 1]] sends the 10 mm square (0,0), (10,0), (10,10), (0,10)
+  // to the image trapezoid (0,0), (100,0), (66.67,66.67), (0,66.67): x = 10X / (0.05Y + 1),
+  // y = 10Y / (0.05Y + 1). The plane point (5,5) has w = 1.25 and appears at (40, 40); so the image
+  // segment (0,0)–(40,40) is the plane segment (0,0)–(5,5), 5√2 mm long. The vanishing line of the
+  // plane is image y = 200 (Y → ∞).
+  const trapezoid: Calibration = {
+    kind: 'plane',
+    corners: [
+      [0, 0],
+      [100, 0],
+      [200 / 3, 200 / 3],
+      [0, 200 / 3],
+    ],
+    widthMm: 10,
+    heightMm: 10,
+  };
+
+  it('measures on the plane through the homography (hand-worked square-to-trapezoid example)', () => {
+    const result = measure(trapezoid, {
+      kind: 'polyline',
+      points: [
+        [0, 0],
+        [40, 40],
+      ],
+    });
+    expect(result.lengthMm).toBeCloseTo(5 * Math.SQRT2, 9);
+    // The image square (0,0), (40,0), (40,40), (0,40) is, on the plane, Y = y / (10 − 0.05y) and
+    // X = x (0.05Y + 1) / 10: the quadrilateral (0,0), (4,0), (5,5), (0,5), of shoelace area 22.5 mm².
+    const patch = measure(trapezoid, {
+      kind: 'polygon',
+      points: [
+        [0, 0],
+        [40, 0],
+        [40, 40],
+        [0, 40],
+      ],
+    });
+    expect(patch.areaMm2).toBeCloseTo(22.5, 9);
+    expect(patch.perimeterMm).toBeCloseTo(4 + Math.hypot(1, 5) + 5 + 5, 9);
+  });
+
+  it('grows the plane uncertainty about linearly with the pick uncertainty, and gives zero for zero', () => {
+    const shape = {
+      kind: 'polyline' as const,
+      points: [
+        [10, 10],
+        [60, 30],
+      ] as [number, number][],
+    };
+    const one = measure(trapezoid, shape, 1).uncertaintyMm!;
+    const two = measure(trapezoid, shape, 2).uncertaintyMm!;
+    expect(one).toBeGreaterThan(0);
+    expect(two / one).toBeGreaterThan(1.9);
+    expect(two / one).toBeLessThan(2.1);
+    expect(measure(trapezoid, shape, 0).uncertaintyMm).toBe(0);
+  });
+
+  it('refuses a point beyond the horizon of the plane', () => {
+    expect(() =>
+      measure(trapezoid, {
+        kind: 'polyline',
+        points: [
+          [0, 0],
+          [0, 250],
+        ],
+      }),
+    ).toThrowError(/point 2 lies beyond the horizon/);
+  });
+
+  it('refuses repeated, collinear and crossed corners', () => {
+    const corners = (list: [number, number][]) => ({ ...square, corners: list as never });
+    const shape = {
+      kind: 'polyline' as const,
+      points: [
+        [1, 1],
+        [5, 5],
+      ] as [number, number][],
+    };
+    expect(() =>
+      measure(
+        corners([
+          [0, 0],
+          [0, 0],
+          [100, 50],
+          [0, 50],
+        ]),
+        shape,
+      ),
+    ).toThrowError(/corners 1 and 2 .* only 0\.0 px apart/);
+    expect(() =>
+      measure(
+        corners([
+          [0, 0],
+          [50, 0],
+          [100, 0],
+          [0, 50],
+        ]),
+        shape,
+      ),
+    ).toThrowError(/lie in a line/);
+    expect(() =>
+      measure(
+        corners([
+          [0, 0],
+          [100, 50],
+          [100, 0],
+          [0, 50],
+        ]),
+        shape,
+      ),
+    ).toThrowError(/cross or fold/);
+  });
+});

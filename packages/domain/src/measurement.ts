@@ -1,0 +1,227 @@
+import {
+  DEFAULT_PICK_UNCERTAINTY_PX,
+  type Calibration,
+  type MeasurementResult,
+  type PlaneCalibration,
+  type ReferenceCalibration,
+  type Shape,
+} from '@emberline/contracts/measurement';
+import { DomainError } from './errors';
+import {
+  distance,
+  formatPx,
+  maxExtent,
+  polygonArea,
+  polygonPerimeter,
+  polylineLength,
+  type Point,
+} from './geometry';
+import {
+  applyHomography,
+  assertUsableCorners,
+  homogeneousScale,
+  rectangleHomography,
+  type Homography,
+} from './homography';
+
+const empty: MeasurementResult = {
+  mmPerPx: null,
+  lengthMm: null,
+  areaMm2: null,
+  perimeterMm: null,
+  maxExtentMm: null,
+  uncertaintyMm: null,
+  uncertaintyMm2: null,
+};
+
+/** Refuses repeated consecutive points (and, for a polygon, a last point equal to the first). */
+function assertDistinctPoints(shape: Shape): void {
+  const { points } = shape;
+  const closing = shape.kind === 'polygon' ? points.length : points.length - 1;
+  for (let index = 0; index < closing; index += 1) {
+    const next = (index + 1) % points.length;
+    if (distance(points[index]!, points[next]!) === 0) {
+      throw new DomainError(
+        `points ${index + 1} and ${next + 1} of the ${shape.kind} are the same point: remove one of them`,
+        ['shape', 'points', next],
+      );
+    }
+  }
+  if (shape.kind === 'polygon' && polygonArea(points) === 0) {
+    throw new DomainError('the outline has no area: its points lie on one line', [
+      'shape',
+      'points',
+    ]);
+  }
+}
+
+function measureReference(
+  calibration: ReferenceCalibration,
+  shape: Shape,
+  u: number,
+): MeasurementResult {
+  const d = distance(calibration.p1, calibration.p2);
+  if (d <= 2 * u) {
+    throw new DomainError(
+      `the two reference points are only ${formatPx(d)} px apart: they must be more than ${formatPx(2 * u)} px apart (twice the pick uncertainty). Pick points farther apart.`,
+      ['calibration', 'p2'],
+    );
+  }
+  const s = calibration.lengthMm / d;
+  const sMax = calibration.lengthMm / (d - 2 * u);
+  if (shape.kind === 'point') return { ...empty, mmPerPx: s };
+  if (shape.kind === 'polyline') {
+    const pixels = polylineLength(shape.points);
+    const segments = shape.points.length - 1;
+    const lengthMm = s * pixels;
+    return {
+      ...empty,
+      mmPerPx: s,
+      lengthMm,
+      uncertaintyMm: sMax * (pixels + 2 * u * segments) - lengthMm,
+    };
+  }
+  const area = polygonArea(shape.points);
+  const perimeter = polygonPerimeter(shape.points);
+  const areaMm2 = s * s * area;
+  return {
+    ...empty,
+    mmPerPx: s,
+    areaMm2,
+    perimeterMm: s * perimeter,
+    maxExtentMm: s * maxExtent(shape.points),
+    uncertaintyMm2: sMax * sMax * (area + u * perimeter + Math.PI * u * u) - areaMm2,
+  };
+}
+
+/** Maps shape points into the calibration plane, refusing points beyond its horizon. */
+function toPlane(h: Homography, cornerSide: number, points: readonly Point[]): Point[] {
+  return points.map((point, index) => {
+    const mapped = homogeneousScale(h, point) * cornerSide > 0 ? applyHomography(h, point) : null;
+    if (!mapped) {
+      throw new DomainError(
+        `point ${index + 1} lies beyond the horizon of the calibration plane: draw on the calibrated surface`,
+        ['shape', 'points', index],
+      );
+    }
+    return mapped;
+  });
+}
+
+interface PlaneModel {
+  h: Homography;
+  side: number;
+}
+
+function planeModel(
+  corners: readonly Point[],
+  calibration: PlaneCalibration,
+  u: number,
+): PlaneModel {
+  assertUsableCorners(corners, 2 * u);
+  const h = rectangleHomography(corners, calibration.widthMm, calibration.heightMm);
+  return { h, side: Math.sign(homogeneousScale(h, corners[0]!)) };
+}
+
+/** The one figure that the plane uncertainty is taken of: length for a polyline, area for a polygon. */
+function planeFigure(model: PlaneModel, shape: Shape, points: readonly Point[]): number {
+  const mapped = toPlane(model.h, model.side, points);
+  return shape.kind === 'polyline' ? polylineLength(mapped) : polygonArea(mapped);
+}
+
+const nudges: Point[] = [
+  [1, 0],
+  [-1, 0],
+  [0, 1],
+  [0, -1],
+];
+
+/**
+ * First-order worst case: for each corner and each shape point, the largest change of the figure
+ * when that one point moves u px along +x, −x, +y or −y, summed over all points.
+ */
+function planeUncertainty(
+  calibration: PlaneCalibration,
+  shape: Shape,
+  base: PlaneModel,
+  u: number,
+  figure: number,
+): number {
+  if (u === 0) return 0;
+  let total = 0;
+  for (let corner = 0; corner < 4; corner += 1) {
+    let largest = 0;
+    for (const [dx, dy] of nudges) {
+      const moved = calibration.corners.map((p, index): Point =>
+        index === corner ? [p[0] + dx * u, p[1] + dy * u] : p,
+      );
+      let model: PlaneModel;
+      try {
+        model = planeModel(moved, calibration, 0);
+      } catch {
+        throw new DomainError(
+          `the calibration rectangle is too close to degenerate for a pick uncertainty of ${u} px: pick a larger rectangle or view it less obliquely`,
+          ['calibration', 'corners', corner],
+        );
+      }
+      largest = Math.max(largest, Math.abs(planeFigure(model, shape, shape.points) - figure));
+    }
+    total += largest;
+  }
+  shape.points.forEach((point, index) => {
+    let largest = 0;
+    for (const [dx, dy] of nudges) {
+      const moved = shape.points.map((p, i): Point =>
+        i === index ? [point[0] + dx * u, point[1] + dy * u] : p,
+      );
+      largest = Math.max(largest, Math.abs(planeFigure(base, shape, moved) - figure));
+    }
+    total += largest;
+  });
+  return total;
+}
+
+function measurePlane(calibration: PlaneCalibration, shape: Shape, u: number): MeasurementResult {
+  const model = planeModel(calibration.corners, calibration, u);
+  const mapped = toPlane(model.h, model.side, shape.points);
+  if (shape.kind === 'point') return empty;
+  if (shape.kind === 'polyline') {
+    const lengthMm = polylineLength(mapped);
+    return {
+      ...empty,
+      lengthMm,
+      uncertaintyMm: planeUncertainty(calibration, shape, model, u, lengthMm),
+    };
+  }
+  const areaMm2 = polygonArea(mapped);
+  return {
+    ...empty,
+    areaMm2,
+    perimeterMm: polygonPerimeter(mapped),
+    maxExtentMm: maxExtent(mapped),
+    uncertaintyMm2: planeUncertainty(calibration, shape, model, u, areaMm2),
+  };
+}
+
+/**
+ * Measures a shape drawn on an image with a calibration (DESIGN §5.1): polyline → length,
+ * polygon → area, perimeter and largest extent, each with its worst-case uncertainty for a pick
+ * uncertainty of `pickUncertaintyPx` per clicked point. Throws a DomainError for degenerate input.
+ */
+export function measure(
+  calibration: Calibration,
+  shape: Shape,
+  pickUncertaintyPx = DEFAULT_PICK_UNCERTAINTY_PX,
+): MeasurementResult {
+  if (!(pickUncertaintyPx >= 0))
+    throw new DomainError('the pick uncertainty cannot be negative', ['pickUncertaintyPx']);
+  if (shape.kind !== 'point') assertDistinctPoints(shape);
+  return calibration.kind === 'reference'
+    ? measureReference(calibration, shape, pickUncertaintyPx)
+    : measurePlane(calibration, shape, pickUncertaintyPx);
+}
+
+/** The homography of a plane calibration, for drawing the calibrated grid over the image. */
+export function planeHomography(calibration: PlaneCalibration): Homography {
+  return planeModel(calibration.corners, calibration, 0).h;
+}

@@ -1,0 +1,44 @@
+import type { TrendRequest, TrendResult } from '@emberline/contracts/trend';
+import { DomainError } from './errors';
+
+/**
+ * Least-squares trend of one damage series (DESIGN §5.4): value = a + b·csn, r² from three points,
+ * and, while the damage grows (b > 0), the CSN at which it reaches the limit and the cycles left.
+ */
+export function trend({ points, limit }: TrendRequest): TrendResult {
+  const n = points.length;
+  if (new Set(points.map((point) => point.csn)).size < 2) {
+    throw new DomainError('a trend needs inspections at two different CSN at least', ['points']);
+  }
+  const meanX = points.reduce((sum, point) => sum + point.csn, 0) / n;
+  const meanY = points.reduce((sum, point) => sum + point.value, 0) / n;
+  let sxx = 0;
+  let sxy = 0;
+  let syy = 0;
+  for (const { csn, value } of points) {
+    sxx += (csn - meanX) ** 2;
+    sxy += (csn - meanX) * (value - meanY);
+    syy += (value - meanY) ** 2;
+  }
+  const slope = sxy / sxx;
+  const intercept = meanY - slope * meanX;
+  let r2: number | null = null;
+  if (n >= 3) {
+    const residual = points.reduce(
+      (sum, { csn, value }) => sum + (value - (intercept + slope * csn)) ** 2,
+      0,
+    );
+    // Every value equal: the flat line fits them exactly.
+    r2 = syy === 0 ? 1 : 1 - residual / syy;
+  }
+  const latest = Math.max(...points.map((point) => point.csn));
+  const projected = slope > 0 ? (limit - intercept) / slope : null;
+  return {
+    n,
+    intercept,
+    slopePerCycle: slope,
+    r2,
+    projectedCsnAtLimit: projected,
+    cyclesRemaining: projected === null ? null : projected - latest,
+  };
+}
