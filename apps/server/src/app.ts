@@ -13,11 +13,14 @@ import { auditRoutes } from './modules/audit/audit.routes';
 import { authRoutes } from './modules/auth/auth.routes';
 import { createAuthService } from './modules/auth/auth.service';
 import { calculationsRoutes } from './modules/calculations/calculations.routes';
+import { engineModelsRoutes } from './modules/engine-models/engine-models.routes';
+import { enginesRoutes } from './modules/engines/engines.routes';
 import { healthRoutes } from './modules/health/health.routes';
 import { openApiRoutes } from './modules/openapi/openapi.routes';
 import { organisationsRoutes } from './modules/organisations/organisations.routes';
 import { outboxRoutes } from './modules/outbox/outbox.routes';
 import { usersRoutes } from './modules/users/users.routes';
+import { utilizationRoutes } from './modules/utilization/utilization.routes';
 
 export interface AppOptions {
   /** Serve the built client from this folder (default: apps/web/dist when it exists). */
@@ -33,6 +36,9 @@ export function createApiRouter(ctx: AppContext): Router {
   api.use(authRoutes(ctx, auth));
   api.use(usersRoutes(ctx));
   api.use(organisationsRoutes(ctx));
+  api.use(engineModelsRoutes(ctx));
+  api.use(enginesRoutes(ctx));
+  api.use(utilizationRoutes(ctx));
   api.use(outboxRoutes(ctx));
   api.use(auditRoutes(ctx));
   api.use(calculationsRoutes());

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { emailSchema } from './auth';
 
 export const organisationKindSchema = z.enum(['home', 'customer']);
 export type OrganisationKind = z.infer<typeof organisationKindSchema>;
@@ -12,3 +13,28 @@ export type Organisation = z.infer<typeof organisationSchema>;
 
 export const organisationListResponseSchema = z.object({ items: z.array(organisationSchema) });
 export type OrganisationListResponse = z.infer<typeof organisationListResponseSchema>;
+
+export const organisationInputSchema = z.strictObject({
+  name: z.string().trim().min(2, { message: 'Enter the organisation’s name' }).max(120),
+});
+export type OrganisationInput = z.infer<typeof organisationInputSchema>;
+
+export const contactInputSchema = z.strictObject({
+  name: z.string().trim().min(1, { message: 'Enter the contact’s name' }).max(120),
+  email: emailSchema,
+  role: z
+    .string()
+    .trim()
+    .min(1, { message: 'Say what they do, such as technical records' })
+    .max(80),
+});
+export type ContactInput = z.infer<typeof contactInputSchema>;
+
+export const contactSchema = contactInputSchema.extend({ id: z.string(), createdAt: z.string() });
+export type Contact = z.infer<typeof contactSchema>;
+
+export const organisationDetailSchema = organisationSchema.extend({
+  contacts: z.array(contactSchema),
+  engineCount: z.number().int(),
+});
+export type OrganisationDetail = z.infer<typeof organisationDetailSchema>;

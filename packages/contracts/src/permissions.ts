@@ -8,6 +8,9 @@ import type { Role } from './roles';
 export const permissionGrants = {
   // Fleet: engines, engine models, utilization. Customers see their own organisation only.
   'read:engine': ['admin', 'inspector', 'engineer', 'planner', 'customer'],
+  'manage:engine': ['admin'],
+  'manage:engine-model': ['admin'],
+  'manage:utilization': ['admin', 'planner'],
   // Inspections and findings.
   'create:inspection': ['admin', 'inspector'],
   'review:inspection': ['admin', 'engineer'],
@@ -23,7 +26,8 @@ export const permissionGrants = {
   'run:calculation': ['admin', 'inspector', 'engineer', 'planner'],
   // Administration.
   'manage:user': ['admin'],
-  'read:organisation': ['admin'],
+  'read:organisation': ['admin', 'inspector', 'engineer', 'planner'],
+  'manage:organisation': ['admin'],
   'read:outbox': ['admin'],
   'read:audit-log': ['admin'],
 } as const satisfies Record<string, readonly Role[]>;

@@ -1,5 +1,13 @@
 import { sql } from 'drizzle-orm';
-import { index, integer, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import {
+  index,
+  integer,
+  primaryKey,
+  real,
+  sqliteTable,
+  text,
+  uniqueIndex,
+} from 'drizzle-orm/sqlite-core';
 
 const createdAt = () =>
   integer({ mode: 'timestamp_ms' })
@@ -103,4 +111,105 @@ export const auditLog = sqliteTable(
     index('audit_log_entity_idx').on(table.entityType, table.entityId),
     index('audit_log_at_idx').on(table.at),
   ],
+);
+
+/** Report contacts of an organisation: the only addresses reports are ever sent to. */
+export const reportContacts = sqliteTable(
+  'report_contacts',
+  {
+    id: text().primaryKey(),
+    organisationId: text()
+      .notNull()
+      .references(() => organisations.id),
+    name: text().notNull(),
+    email: text().notNull(),
+    role: text().notNull(),
+    createdAt: createdAt(),
+  },
+  (table) => [uniqueIndex('report_contacts_org_email_idx').on(table.organisationId, table.email)],
+);
+
+interface RowNumbering {
+  positionOne: string;
+  direction: 'clockwise' | 'counter-clockwise';
+  viewpoint: 'aft-looking-forward' | 'forward-looking-aft';
+}
+
+/** An engine model version. A row in use is never re-mapped: a new version is made instead. */
+export const engineModels = sqliteTable(
+  'engine_models',
+  {
+    id: text().primaryKey(),
+    name: text().notNull(),
+    version: integer().notNull(),
+    notes: text().notNull().default(''),
+    createdAt: createdAt(),
+  },
+  (table) => [uniqueIndex('engine_models_name_version_idx').on(table.name, table.version)],
+);
+
+/** The hot-section rows of a model, in gas-path order. */
+export const engineModelRows = sqliteTable(
+  'engine_model_rows',
+  {
+    modelId: text()
+      .notNull()
+      .references(() => engineModels.id),
+    key: text().notNull(),
+    sequence: integer().notNull(),
+    label: text().notNull(),
+    kind: text({ enum: ['combustor-liner', 'fuel-nozzle', 'vane', 'blade'] }).notNull(),
+    count: integer().notNull(),
+    numbering: text({ mode: 'json' }).notNull().$type<RowNumbering>(),
+    zones: text({ mode: 'json' }).notNull().$type<string[]>(),
+    ports: text({ mode: 'json' }).notNull().$type<string[]>(),
+  },
+  (table) => [primaryKey({ columns: [table.modelId, table.key] })],
+);
+
+export const engines = sqliteTable(
+  'engines',
+  {
+    id: text().primaryKey(),
+    serialNumber: text().notNull(),
+    modelId: text()
+      .notNull()
+      .references(() => engineModels.id),
+    organisationId: text()
+      .notNull()
+      .references(() => organisations.id),
+    installedPosition: text(),
+    registration: text(),
+    /** Hours and cycles since new as of `tsnCsnAsOf`; increments recorded after that date add to them. */
+    tsn: real().notNull(),
+    csn: integer().notNull(),
+    tsnCsnAsOf: text().notNull(),
+    status: text({ enum: ['installed', 'removed', 'in-shop'] }).notNull(),
+    createdAt: createdAt(),
+  },
+  (table) => [
+    uniqueIndex('engines_model_serial_idx').on(table.modelId, table.serialNumber),
+    index('engines_organisation_idx').on(table.organisationId, table.serialNumber),
+    index('engines_status_idx').on(table.status, table.serialNumber),
+    index('engines_serial_idx').on(table.serialNumber),
+  ],
+);
+
+/** Utilization increments: the cycles and hours flown in a dated period. */
+export const utilizationRecords = sqliteTable(
+  'utilization_records',
+  {
+    id: text().primaryKey(),
+    engineId: text()
+      .notNull()
+      .references(() => engines.id),
+    periodStart: text().notNull(),
+    periodEnd: text().notNull(),
+    cycles: integer().notNull(),
+    hours: real().notNull(),
+    source: text({ enum: ['form', 'csv', 'demo'] }).notNull(),
+    createdBy: text().references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (table) => [index('utilization_engine_period_idx').on(table.engineId, table.periodEnd)],
 );

@@ -4,13 +4,14 @@ import { hashPassword } from '../modules/auth/passwords';
 import { appendAudit } from '../modules/audit/audit.repository';
 import { insertOrganisation } from '../modules/organisations/organisations.repository';
 import { insertUser } from '../modules/users/users.repository';
+import { demoEngines, loadDemoFleet } from './demo-fleet';
 
 /** The password of every demo account. */
 export const DEMO_PASSWORD = 'emberline-demo';
 
 /**
- * The invented demo scenario: a home organisation that performs borescope inspections and two
- * customer organisations. Every name here is made up for the demo.
+ * The invented demo scenario: a home organisation that performs borescope inspections, two
+ * customer organisations, and their fleet. Every name here is made up for the demo.
  */
 export const demoOrganisations = [
   { id: 'org-home', name: 'Ashgrove Hot Section Services (demo)', kind: 'home' },
@@ -88,12 +89,17 @@ export async function loadDemoScenario(
         createdAt: options.now,
       });
     });
+    loadDemoFleet(tx, options.now);
     appendAudit(tx, options.now, {
       actorUserId: null,
       action: 'demo.loaded',
       entityType: 'scenario',
       entityId: 'demo',
-      after: { organisations: demoOrganisations.length, users: demoUsers.length },
+      after: {
+        organisations: demoOrganisations.length,
+        users: demoUsers.length,
+        engines: demoEngines.length,
+      },
     });
   });
 }

@@ -1,8 +1,9 @@
-import { asc, desc, eq } from 'drizzle-orm';
+import { asc, count, desc, eq, and } from 'drizzle-orm';
 import type { DbOrTx } from '../../db/client';
-import { organisations } from '../../db/schema';
+import { engines, organisations, reportContacts } from '../../db/schema';
 
 export type OrganisationRow = typeof organisations.$inferSelect;
+export type ContactRow = typeof reportContacts.$inferSelect;
 
 export function listOrganisations(db: DbOrTx): OrganisationRow[] {
   return db
@@ -16,6 +17,62 @@ export function findOrganisation(db: DbOrTx, id: string): OrganisationRow | unde
   return db.select().from(organisations).where(eq(organisations.id, id)).get();
 }
 
+export function findOrganisationByName(db: DbOrTx, name: string): OrganisationRow | undefined {
+  return db.select().from(organisations).where(eq(organisations.name, name)).get();
+}
+
 export function insertOrganisation(db: DbOrTx, row: typeof organisations.$inferInsert): void {
   db.insert(organisations).values(row).run();
+}
+
+export function renameOrganisation(db: DbOrTx, id: string, name: string): void {
+  db.update(organisations).set({ name }).where(eq(organisations.id, id)).run();
+}
+
+export function countEnginesOf(db: DbOrTx, organisationId: string): number {
+  return (
+    db.select({ n: count() }).from(engines).where(eq(engines.organisationId, organisationId)).get()
+      ?.n ?? 0
+  );
+}
+
+export function listContacts(db: DbOrTx, organisationId: string): ContactRow[] {
+  return db
+    .select()
+    .from(reportContacts)
+    .where(eq(reportContacts.organisationId, organisationId))
+    .orderBy(asc(reportContacts.name))
+    .all();
+}
+
+export function findContact(
+  db: DbOrTx,
+  organisationId: string,
+  id: string,
+): ContactRow | undefined {
+  return db
+    .select()
+    .from(reportContacts)
+    .where(and(eq(reportContacts.organisationId, organisationId), eq(reportContacts.id, id)))
+    .get();
+}
+
+export function findContactByEmail(
+  db: DbOrTx,
+  organisationId: string,
+  email: string,
+): ContactRow | undefined {
+  return db
+    .select()
+    .from(reportContacts)
+    .where(and(eq(reportContacts.organisationId, organisationId), eq(reportContacts.email, email)))
+    .get();
+}
+
+export function insertContact(db: DbOrTx, row: typeof reportContacts.$inferInsert): void {
+  db.insert(reportContacts).values(row).run();
+}
+
+export function deleteContact(db: DbOrTx, id: string): void {
+  db.delete(reportContacts).where(eq(reportContacts.id, id)).run();
 }

@@ -1,0 +1,94 @@
+import { asc, count, eq, max } from 'drizzle-orm';
+import type { EngineModelRow } from '@emberline/contracts/fleet';
+import type { DbOrTx } from '../../db/client';
+import { engineModelRows, engineModels, engines } from '../../db/schema';
+
+export type EngineModelRecord = typeof engineModels.$inferSelect;
+
+export function listEngineModels(db: DbOrTx) {
+  const rowCounts = db
+    .select({ modelId: engineModelRows.modelId, rows: count().as('rows') })
+    .from(engineModelRows)
+    .groupBy(engineModelRows.modelId)
+    .as('row_counts');
+  const engineCounts = db
+    .select({ modelId: engines.modelId, engines: count().as('engines') })
+    .from(engines)
+    .groupBy(engines.modelId)
+    .as('engine_counts');
+  return db
+    .select({ model: engineModels, rowCount: rowCounts.rows, engineCount: engineCounts.engines })
+    .from(engineModels)
+    .leftJoin(rowCounts, eq(rowCounts.modelId, engineModels.id))
+    .leftJoin(engineCounts, eq(engineCounts.modelId, engineModels.id))
+    .orderBy(asc(engineModels.name), asc(engineModels.version))
+    .all();
+}
+
+export function findEngineModel(db: DbOrTx, id: string): EngineModelRecord | undefined {
+  return db.select().from(engineModels).where(eq(engineModels.id, id)).get();
+}
+
+export function listModelRows(db: DbOrTx, modelId: string): EngineModelRow[] {
+  return db
+    .select({
+      key: engineModelRows.key,
+      label: engineModelRows.label,
+      kind: engineModelRows.kind,
+      count: engineModelRows.count,
+      numbering: engineModelRows.numbering,
+      zones: engineModelRows.zones,
+      ports: engineModelRows.ports,
+    })
+    .from(engineModelRows)
+    .where(eq(engineModelRows.modelId, modelId))
+    .orderBy(asc(engineModelRows.sequence))
+    .all();
+}
+
+export function countEnginesOfModel(db: DbOrTx, modelId: string): number {
+  return db.select({ n: count() }).from(engines).where(eq(engines.modelId, modelId)).get()?.n ?? 0;
+}
+
+export function latestVersion(db: DbOrTx, name: string): number {
+  return (
+    db
+      .select({ version: max(engineModels.version) })
+      .from(engineModels)
+      .where(eq(engineModels.name, name))
+      .get()?.version ?? 0
+  );
+}
+
+export function insertEngineModel(db: DbOrTx, row: typeof engineModels.$inferInsert): void {
+  db.insert(engineModels).values(row).run();
+}
+
+export function updateEngineModel(
+  db: DbOrTx,
+  id: string,
+  changes: { name: string; notes: string },
+): void {
+  db.update(engineModels).set(changes).where(eq(engineModels.id, id)).run();
+}
+
+/** Writes a model's rows afresh, in the given (gas-path) order. */
+export function replaceModelRows(
+  db: DbOrTx,
+  modelId: string,
+  rows: readonly EngineModelRow[],
+): void {
+  db.delete(engineModelRows).where(eq(engineModelRows.modelId, modelId)).run();
+  if (rows.length === 0) return;
+  db.insert(engineModelRows)
+    .values(rows.map((row, sequence) => ({ modelId, sequence, ...row })))
+    .run();
+}
+
+/**
+ * Keys of the rows that recorded findings refer to. Findings are recorded by the inspections
+ * module, whose tables join this query when they exist; a model without findings has none.
+ */
+export function rowKeysInUse(_db: DbOrTx, _modelId: string): Set<string> {
+  return new Set();
+}

@@ -1,0 +1,174 @@
+import type {
+  EngineModel,
+  EngineModelInput,
+  EngineModelRow,
+  EngineModelSummary,
+} from '@emberline/contracts/fleet';
+import { engineModelInputSchema } from '@emberline/contracts/fleet';
+import { rowChangeProblems } from '@emberline/domain/engine-model';
+import type { AppContext, RequestMeta } from '../../context';
+import { inTransaction } from '../../db/client';
+import { AppError } from '../../http/app-error';
+import type { Principal } from '../../http/principal';
+import { newId } from '../../lib/ids';
+import { appendAudit } from '../audit/audit.repository';
+import {
+  countEnginesOfModel,
+  findEngineModel,
+  insertEngineModel,
+  latestVersion,
+  listEngineModels,
+  listModelRows,
+  replaceModelRows,
+  rowKeysInUse,
+  updateEngineModel,
+} from './engine-models.repository';
+
+export function createEngineModelsService(ctx: AppContext) {
+  const { db } = ctx;
+
+  function mustFind(id: string) {
+    const model = findEngineModel(db, id);
+    if (!model) throw AppError.notFound('There is no such engine model');
+    return model;
+  }
+
+  function detail(id: string): EngineModel {
+    const model = mustFind(id);
+    const inUse = rowKeysInUse(db, id);
+    return {
+      id: model.id,
+      name: model.name,
+      version: model.version,
+      notes: model.notes,
+      rows: listModelRows(db, id).map((row) => ({ ...row, inUse: inUse.has(row.key) })),
+      engineCount: countEnginesOfModel(db, id),
+      createdAt: model.createdAt.toISOString(),
+    };
+  }
+
+  function audit(
+    principal: Principal,
+    meta: RequestMeta,
+    action: string,
+    id: string,
+    before: unknown,
+    after: unknown,
+  ) {
+    return {
+      actorUserId: principal.user.id,
+      action,
+      entityType: 'engine-model',
+      entityId: id,
+      before,
+      after,
+      requestId: meta.requestId,
+      ip: meta.ip,
+    };
+  }
+
+  return {
+    detail,
+
+    list(): EngineModelSummary[] {
+      return listEngineModels(db).map(({ model, rowCount, engineCount }) => ({
+        id: model.id,
+        name: model.name,
+        version: model.version,
+        notes: model.notes,
+        rowCount: rowCount ?? 0,
+        engineCount: engineCount ?? 0,
+        createdAt: model.createdAt.toISOString(),
+      }));
+    },
+
+    create(principal: Principal, input: EngineModelInput, meta: RequestMeta): EngineModel {
+      const parsed = engineModelInputSchema.parse(input);
+      const id = newId();
+      const now = ctx.now();
+      inTransaction(db, (tx) => {
+        const version = latestVersion(tx, parsed.name) + 1;
+        insertEngineModel(tx, {
+          id,
+          name: parsed.name,
+          version,
+          notes: parsed.notes,
+          createdAt: now,
+        });
+        replaceModelRows(tx, id, parsed.rows);
+        appendAudit(
+          tx,
+          now,
+          audit(principal, meta, 'engine-model.created', id, null, { ...parsed, version }),
+        );
+      });
+      return detail(id);
+    },
+
+    /** Replaces name, notes and rows; rows that findings refer to keep their count, numbering and zones. */
+    update(
+      principal: Principal,
+      id: string,
+      input: EngineModelInput,
+      meta: RequestMeta,
+    ): EngineModel {
+      const parsed = engineModelInputSchema.parse(input);
+      const before = detail(id);
+      const problems = rowChangeProblems(before.rows, parsed.rows, rowKeysInUse(db, id));
+      if (problems.length > 0) throw AppError.conflict(problems.join('; '), { problems });
+      if (parsed.name !== before.name && latestVersion(db, parsed.name) > 0) {
+        throw AppError.conflict(
+          `There is already a model called ${parsed.name}: make a new version of it instead`,
+          { fields: { name: ['That name is taken'] }, form: [] },
+        );
+      }
+      const now = ctx.now();
+      inTransaction(db, (tx) => {
+        updateEngineModel(tx, id, { name: parsed.name, notes: parsed.notes });
+        replaceModelRows(tx, id, parsed.rows);
+        const { rows, name, notes } = before;
+        appendAudit(
+          tx,
+          now,
+          audit(principal, meta, 'engine-model.updated', id, { name, notes, rows }, parsed),
+        );
+      });
+      return detail(id);
+    },
+
+    /** A new version of a model with the same rows, for changes its rows in use cannot take. */
+    newVersion(principal: Principal, id: string, meta: RequestMeta): EngineModel {
+      const source = detail(id);
+      const copy = newId();
+      const now = ctx.now();
+      inTransaction(db, (tx) => {
+        const version = latestVersion(tx, source.name) + 1;
+        insertEngineModel(tx, {
+          id: copy,
+          name: source.name,
+          version,
+          notes: source.notes,
+          createdAt: now,
+        });
+        replaceModelRows(
+          tx,
+          copy,
+          source.rows.map(({ inUse: _inUse, ...row }): EngineModelRow => row),
+        );
+        appendAudit(
+          tx,
+          now,
+          audit(
+            principal,
+            meta,
+            'engine-model.versioned',
+            copy,
+            { from: id, version: source.version },
+            { version },
+          ),
+        );
+      });
+      return detail(copy);
+    },
+  };
+}

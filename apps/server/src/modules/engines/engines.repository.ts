@@ -1,0 +1,155 @@
+import { and, asc, count, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
+import type { EngineListQuery, EngineSortKey } from '@emberline/contracts/fleet';
+import type { DbOrTx } from '../../db/client';
+import type { AnySQLiteColumn } from 'drizzle-orm/sqlite-core';
+import { engineModels, engines, organisations } from '../../db/schema';
+
+export type EngineRecord = typeof engines.$inferSelect;
+
+const columns = {
+  id: engines.id,
+  serialNumber: engines.serialNumber,
+  modelId: engines.modelId,
+  modelName: sql<string>`${engineModels.name} || ' v' || ${engineModels.version}`,
+  organisationId: engines.organisationId,
+  organisationName: organisations.name,
+  installedPosition: engines.installedPosition,
+  registration: engines.registration,
+  tsn: engines.tsn,
+  csn: engines.csn,
+  tsnCsnAsOf: engines.tsnCsnAsOf,
+  status: engines.status,
+  createdAt: engines.createdAt,
+};
+
+export interface EngineListRow {
+  id: string;
+  serialNumber: string;
+  modelId: string;
+  modelName: string;
+  organisationId: string;
+  organisationName: string;
+  installedPosition: string | null;
+  registration: string | null;
+  tsn: number;
+  csn: number;
+  tsnCsnAsOf: string;
+  status: EngineRecord['status'];
+  createdAt: Date;
+}
+
+const sortColumns: Record<EngineSortKey, AnySQLiteColumn[]> = {
+  serialNumber: [engines.serialNumber],
+  modelName: [engineModels.name, engineModels.version],
+  organisationName: [organisations.name],
+  registration: [engines.registration],
+  status: [engines.status],
+  tsn: [engines.tsn],
+  csn: [engines.csn],
+};
+
+/** `%` and `_` typed by a user are literal characters, not wildcards. */
+function literal(text: string): string {
+  return text.replace(/[\\%_]/g, (char) => `\\${char}`);
+}
+
+function escapedLike(
+  column: typeof engines.serialNumber | typeof engines.registration,
+  pattern: string,
+): SQL {
+  return sql`${like(column, pattern)} escape '\\'`;
+}
+
+export interface EngineFilter extends Omit<
+  EngineListQuery,
+  'page' | 'pageSize' | 'sort' | 'order'
+> {
+  /** Tenancy: when set, only this organisation's engines, whatever the other filters say. */
+  scopeOrganisationId?: string;
+}
+
+function whereOf(filter: EngineFilter): SQL | undefined {
+  const conditions: SQL[] = [];
+  if (filter.scopeOrganisationId)
+    conditions.push(eq(engines.organisationId, filter.scopeOrganisationId));
+  if (filter.organisationId) conditions.push(eq(engines.organisationId, filter.organisationId));
+  if (filter.modelId) conditions.push(eq(engines.modelId, filter.modelId));
+  if (filter.status) conditions.push(eq(engines.status, filter.status));
+  if (filter.serial)
+    conditions.push(escapedLike(engines.serialNumber, `${literal(filter.serial.toUpperCase())}%`));
+  if (filter.q) {
+    const pattern = `%${literal(filter.q)}%`;
+    conditions.push(
+      or(
+        escapedLike(engines.serialNumber, pattern.toUpperCase()),
+        escapedLike(engines.registration, pattern.toUpperCase()),
+      )!,
+    );
+  }
+  return conditions.length ? and(...conditions) : undefined;
+}
+
+export function listEngines(
+  db: DbOrTx,
+  query: EngineListQuery,
+  filter: EngineFilter,
+): { rows: EngineListRow[]; total: number } {
+  const where = whereOf(filter);
+  const direction = query.order === 'desc' ? desc : asc;
+  const rows = db
+    .select(columns)
+    .from(engines)
+    .innerJoin(engineModels, eq(engineModels.id, engines.modelId))
+    .innerJoin(organisations, eq(organisations.id, engines.organisationId))
+    .where(where)
+    .orderBy(
+      ...sortColumns[query.sort].map((column) => direction(column)),
+      asc(engines.serialNumber),
+      asc(engines.id),
+    )
+    .limit(query.pageSize)
+    .offset((query.page - 1) * query.pageSize)
+    .all();
+  const total =
+    db
+      .select({ n: count() })
+      .from(engines)
+      .innerJoin(organisations, eq(organisations.id, engines.organisationId))
+      .where(where)
+      .get()?.n ?? 0;
+  return { rows, total };
+}
+
+export function findEngineRow(db: DbOrTx, id: string): EngineListRow | undefined {
+  return db
+    .select(columns)
+    .from(engines)
+    .innerJoin(engineModels, eq(engineModels.id, engines.modelId))
+    .innerJoin(organisations, eq(organisations.id, engines.organisationId))
+    .where(eq(engines.id, id))
+    .get();
+}
+
+export function findEngineBySerial(
+  db: DbOrTx,
+  modelId: string,
+  serialNumber: string,
+): EngineRecord | undefined {
+  return db
+    .select()
+    .from(engines)
+    .where(and(eq(engines.modelId, modelId), eq(engines.serialNumber, serialNumber)))
+    .get();
+}
+
+export function insertEngine(db: DbOrTx, row: typeof engines.$inferInsert): void {
+  db.insert(engines).values(row).run();
+}
+
+export function updateEngine(
+  db: DbOrTx,
+  id: string,
+  changes: Partial<typeof engines.$inferInsert>,
+): void {
+  db.update(engines).set(changes).where(eq(engines.id, id)).run();
+}

@@ -1,0 +1,153 @@
+import type {
+  Engine,
+  EngineDetail,
+  EngineInput,
+  EngineListQuery,
+  EngineListResponse,
+  EngineUpdate,
+} from '@emberline/contracts/fleet';
+import { engineInputSchema, engineUpdateSchema } from '@emberline/contracts/fleet';
+import { isStaffRole } from '@emberline/contracts/roles';
+import { dailyUtilization } from '@emberline/domain/utilization';
+import type { AppContext, RequestMeta } from '../../context';
+import { inTransaction } from '../../db/client';
+import { AppError } from '../../http/app-error';
+import type { Principal } from '../../http/principal';
+import { newId } from '../../lib/ids';
+import { appendAudit } from '../audit/audit.repository';
+import { findEngineModel } from '../engine-models/engine-models.repository';
+import { findOrganisation } from '../organisations/organisations.repository';
+import { listUtilization } from '../utilization/utilization.repository';
+import {
+  findEngineBySerial,
+  findEngineRow,
+  insertEngine,
+  listEngines,
+  updateEngine,
+  type EngineListRow,
+} from './engines.repository';
+
+export function toEngine(row: EngineListRow): Engine {
+  return { ...row, createdAt: row.createdAt.toISOString() };
+}
+
+/** Customers see their own organisation's engines only; everyone else sees all. */
+export function tenancyScope(principal: Principal): string | undefined {
+  return isStaffRole(principal.user.role) ? undefined : principal.user.organisationId;
+}
+
+export function createEnginesService(ctx: AppContext) {
+  const { db } = ctx;
+
+  /** The engine, when the caller may see it; 404 otherwise, never the record. */
+  function visibleEngine(principal: Principal, id: string): EngineListRow {
+    const row = findEngineRow(db, id);
+    const scope = tenancyScope(principal);
+    if (!row || (scope && row.organisationId !== scope))
+      throw AppError.notFound('There is no such engine');
+    return row;
+  }
+
+  function assertOwner(organisationId: string) {
+    const owner = findOrganisation(db, organisationId);
+    if (!owner || owner.kind !== 'customer') {
+      throw AppError.unprocessable('The owner must be one of the customer organisations', {
+        fields: { organisationId: ['Choose a customer organisation'] },
+        form: [],
+      });
+    }
+  }
+
+  function audit(
+    principal: Principal,
+    meta: RequestMeta,
+    action: string,
+    id: string,
+    before: unknown,
+    after: unknown,
+  ) {
+    return {
+      actorUserId: principal.user.id,
+      action,
+      entityType: 'engine',
+      entityId: id,
+      before,
+      after,
+      requestId: meta.requestId,
+      ip: meta.ip,
+    };
+  }
+
+  return {
+    visibleEngine,
+
+    list(principal: Principal, query: EngineListQuery): EngineListResponse {
+      const { page, pageSize, sort: _sort, order: _order, ...filters } = query;
+      const { rows, total } = listEngines(db, query, {
+        ...filters,
+        scopeOrganisationId: tenancyScope(principal),
+      });
+      return { items: rows.map(toEngine), total, page, pageSize };
+    },
+
+    detail(principal: Principal, id: string): EngineDetail {
+      const row = visibleEngine(principal, id);
+      return { ...toEngine(row), utilization: dailyUtilization(listUtilization(db, id)) };
+    },
+
+    create(principal: Principal, input: EngineInput, meta: RequestMeta): EngineDetail {
+      const parsed = engineInputSchema.parse(input);
+      if (!findEngineModel(db, parsed.modelId)) {
+        throw AppError.unprocessable('That engine model does not exist', {
+          fields: { modelId: ['Choose an engine model'] },
+          form: [],
+        });
+      }
+      assertOwner(parsed.organisationId);
+      if (parsed.tsnCsnAsOf > ctx.now().toISOString().slice(0, 10)) {
+        throw AppError.unprocessable('TSN and CSN cannot be given as of a future date', {
+          fields: { tsnCsnAsOf: ['Give a date up to today'] },
+          form: [],
+        });
+      }
+      const id = newId();
+      const now = ctx.now();
+      inTransaction(db, (tx) => {
+        if (findEngineBySerial(tx, parsed.modelId, parsed.serialNumber)) {
+          throw AppError.conflict(
+            `There is already an engine ${parsed.serialNumber} of this model`,
+            { fields: { serialNumber: ['This serial number is already in the fleet'] }, form: [] },
+          );
+        }
+        insertEngine(tx, { id, ...parsed, createdAt: now });
+        appendAudit(tx, now, audit(principal, meta, 'engine.created', id, null, parsed));
+      });
+      return this.detail(principal, id);
+    },
+
+    update(principal: Principal, id: string, input: EngineUpdate, meta: RequestMeta): EngineDetail {
+      const changes = engineUpdateSchema.parse(input);
+      const before = visibleEngine(principal, id);
+      if (changes.organisationId) assertOwner(changes.organisationId);
+      const now = ctx.now();
+      inTransaction(db, (tx) => {
+        if (
+          changes.serialNumber &&
+          changes.serialNumber !== before.serialNumber &&
+          findEngineBySerial(tx, before.modelId, changes.serialNumber)
+        ) {
+          throw AppError.conflict(
+            `There is already an engine ${changes.serialNumber} of this model`,
+            { fields: { serialNumber: ['This serial number is already in the fleet'] }, form: [] },
+          );
+        }
+        updateEngine(tx, id, changes);
+        const picked = Object.fromEntries(
+          Object.keys(changes).map((key) => [key, before[key as keyof EngineListRow]]),
+        );
+        appendAudit(tx, now, audit(principal, meta, 'engine.updated', id, picked, changes));
+      });
+      return this.detail(principal, id);
+    },
+  };
+}
