@@ -31,3 +31,8 @@ export function openDatabase(file: string): DatabaseHandle {
 export function inTransaction<T>(db: Db, work: (tx: DbOrTx) => T): T {
   return db.transaction((tx) => work(tx), { behavior: 'immediate' });
 }
+
+/** The better-sqlite3 connection behind a Drizzle handle, for tests and benchmarks that need raw SQL. */
+export function rawConnection(db: Db): Database.Database {
+  return (db as unknown as { $client: Database.Database }).$client;
+}

@@ -1,40 +1,48 @@
 import { createBrowserRouter, Navigate, RouterProvider } from 'react-router-dom';
+import { LoadingLine } from '../components/ui/page';
 import { RequireAuth } from '../features/auth/components/require-auth';
-import { AcceptInvitationRoute } from './routes/accept-invitation';
-import { AccountRoute } from './routes/account';
-import { AdminLayout } from './routes/admin/admin-layout';
-import { AdminAuditLogRoute } from './routes/admin/audit-log';
-import { AdminOutboxRoute } from './routes/admin/outbox';
-import { AdminUsersRoute } from './routes/admin/users';
 import { AppShell } from './routes/app-shell';
-import { ForgotPasswordRoute } from './routes/forgot-password';
+import { FleetRoute } from './routes/fleet';
 import { NotBuiltYet } from './routes/not-built-yet';
 import { NotFoundRoute } from './routes/not-found';
-import { ResetPasswordRoute } from './routes/reset-password';
 import { SignInRoute } from './routes/sign-in';
 
+// Sign-in, the shell and the fleet list load first; every other screen is its own chunk.
 const router = createBrowserRouter([
   { path: '/sign-in', element: <SignInRoute /> },
-  { path: '/forgot-password', element: <ForgotPasswordRoute /> },
-  { path: '/reset-password', element: <ResetPasswordRoute /> },
-  { path: '/accept-invitation', element: <AcceptInvitationRoute /> },
+  {
+    path: '/forgot-password',
+    lazy: async () => ({
+      Component: (await import('./routes/forgot-password')).ForgotPasswordRoute,
+    }),
+  },
+  {
+    path: '/reset-password',
+    lazy: async () => ({ Component: (await import('./routes/reset-password')).ResetPasswordRoute }),
+  },
+  {
+    path: '/accept-invitation',
+    lazy: async () => ({
+      Component: (await import('./routes/accept-invitation')).AcceptInvitationRoute,
+    }),
+  },
   {
     element: (
       <RequireAuth>
         <AppShell />
       </RequireAuth>
     ),
+    hydrateFallbackElement: <LoadingLine />,
     children: [
       { index: true, element: <Navigate to="/fleet" replace /> },
+      { path: 'fleet', element: <FleetRoute /> },
       {
-        path: 'fleet',
-        element: (
-          <NotBuiltYet
-            title="Fleet"
-            permission="read:engine"
-            purpose="Engines with their models, owners, TSN and CSN, utilization and inspections."
-          />
-        ),
+        path: 'fleet/new',
+        lazy: async () => ({ Component: (await import('./routes/new-engine')).NewEngineRoute }),
+      },
+      {
+        path: 'fleet/:engineId',
+        lazy: async () => ({ Component: (await import('./routes/engine')).EngineRoute }),
       },
       {
         path: 'review',
@@ -76,15 +84,59 @@ const router = createBrowserRouter([
           />
         ),
       },
-      { path: 'account', element: <AccountRoute /> },
+      {
+        path: 'account',
+        lazy: async () => ({ Component: (await import('./routes/account')).AccountRoute }),
+      },
       {
         path: 'admin',
-        element: <AdminLayout />,
+        lazy: async () => ({
+          Component: (await import('./routes/admin/admin-layout')).AdminLayout,
+        }),
         children: [
           { index: true, element: <Navigate to="/admin/users" replace /> },
-          { path: 'users', element: <AdminUsersRoute /> },
-          { path: 'outbox', element: <AdminOutboxRoute /> },
-          { path: 'audit-log', element: <AdminAuditLogRoute /> },
+          {
+            path: 'users',
+            lazy: async () => ({
+              Component: (await import('./routes/admin/users')).AdminUsersRoute,
+            }),
+          },
+          {
+            path: 'organisations',
+            lazy: async () => ({
+              Component: (await import('./routes/admin/organisations')).AdminOrganisationsRoute,
+            }),
+          },
+          {
+            path: 'engine-models',
+            lazy: async () => ({
+              Component: (await import('./routes/admin/engine-models')).AdminEngineModelsRoute,
+            }),
+          },
+          {
+            path: 'engine-models/new',
+            lazy: async () => ({
+              Component: (await import('./routes/admin/engine-model')).AdminEngineModelRoute,
+            }),
+          },
+          {
+            path: 'engine-models/:modelId',
+            lazy: async () => ({
+              Component: (await import('./routes/admin/engine-model')).AdminEngineModelRoute,
+            }),
+          },
+          {
+            path: 'outbox',
+            lazy: async () => ({
+              Component: (await import('./routes/admin/outbox')).AdminOutboxRoute,
+            }),
+          },
+          {
+            path: 'audit-log',
+            lazy: async () => ({
+              Component: (await import('./routes/admin/audit-log')).AdminAuditLogRoute,
+            }),
+          },
         ],
       },
       { path: '*', element: <NotFoundRoute /> },

@@ -26,17 +26,22 @@ const BASE = '/api/v1';
 
 type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 
-async function request<T>(method: Method, path: string, body?: unknown): Promise<T> {
+async function request<T>(
+  method: Method,
+  path: string,
+  body?: unknown,
+  raw?: { content: Blob; type: string },
+): Promise<T> {
   let response: Response;
+  const headers: Record<string, string> = { Accept: 'application/json' };
+  if (raw) headers['Content-Type'] = raw.type;
+  else if (body !== undefined) headers['Content-Type'] = 'application/json';
   try {
     response = await fetch(`${BASE}${path}`, {
       method,
       credentials: 'same-origin',
-      headers:
-        body === undefined
-          ? { Accept: 'application/json' }
-          : { Accept: 'application/json', 'Content-Type': 'application/json' },
-      body: body === undefined ? undefined : JSON.stringify(body),
+      headers,
+      body: raw ? raw.content : body === undefined ? undefined : JSON.stringify(body),
     });
   } catch {
     throw new ApiError(
@@ -70,5 +75,9 @@ export const api = {
   get: <T>(path: string) => request<T>('GET', path),
   post: <T>(path: string, body?: unknown) => request<T>('POST', path, body ?? {}),
   patch: <T>(path: string, body: unknown) => request<T>('PATCH', path, body),
+  put: <T>(path: string, body: unknown) => request<T>('PUT', path, body),
+  /** Sends a file's bytes as the body, so that the server sees them as they are. */
+  upload: <T>(path: string, content: Blob, type: string) =>
+    request<T>('POST', path, undefined, { content, type }),
   delete: <T>(path: string) => request<T>('DELETE', path),
 };

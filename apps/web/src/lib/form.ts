@@ -35,7 +35,7 @@ export function applyServerErrors<T extends FieldValues>(
   let placed = false;
   if (fieldErrors) {
     for (const [name, messages] of Object.entries(fieldErrors.fields)) {
-      if (name in form.getValues()) {
+      if (form.getValues(name as Path<T>) !== undefined) {
         form.setError(name as Path<T>, { type: 'server', message: messages[0] });
         placed = true;
       }

@@ -89,14 +89,11 @@ function whereOf(filter: EngineFilter): SQL | undefined {
   return conditions.length ? and(...conditions) : undefined;
 }
 
-export function listEngines(
-  db: DbOrTx,
-  query: EngineListQuery,
-  filter: EngineFilter,
-): { rows: EngineListRow[]; total: number } {
+/** The page and count queries of an engine list, unexecuted (the benchmark runs their SQL raw). */
+export function engineListQueries(db: DbOrTx, query: EngineListQuery, filter: EngineFilter) {
   const where = whereOf(filter);
   const direction = query.order === 'desc' ? desc : asc;
-  const rows = db
+  const page = db
     .select(columns)
     .from(engines)
     .innerJoin(engineModels, eq(engineModels.id, engines.modelId))
@@ -108,16 +105,18 @@ export function listEngines(
       asc(engines.id),
     )
     .limit(query.pageSize)
-    .offset((query.page - 1) * query.pageSize)
-    .all();
-  const total =
-    db
-      .select({ n: count() })
-      .from(engines)
-      .innerJoin(organisations, eq(organisations.id, engines.organisationId))
-      .where(where)
-      .get()?.n ?? 0;
-  return { rows, total };
+    .offset((query.page - 1) * query.pageSize);
+  const total = db.select({ n: count() }).from(engines).where(where);
+  return { page, total };
+}
+
+export function listEngines(
+  db: DbOrTx,
+  query: EngineListQuery,
+  filter: EngineFilter,
+): { rows: EngineListRow[]; total: number } {
+  const { page, total } = engineListQueries(db, query, filter);
+  return { rows: page.all(), total: total.get()?.n ?? 0 };
 }
 
 export function findEngineRow(db: DbOrTx, id: string): EngineListRow | undefined {

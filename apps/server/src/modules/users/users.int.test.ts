@@ -1,5 +1,5 @@
-import type Database from 'better-sqlite3';
 import request from 'supertest';
+import { rawConnection } from '../../db/client';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import {
   demoAccounts,
@@ -215,7 +215,7 @@ describe('user administration', () => {
       before: { name: 'Jonah Whitlaw' },
       after: { name: 'Jonah W.' },
     });
-    const sqlite = (t.runtime.ctx.db as unknown as { $client: Database.Database }).$client;
+    const sqlite = rawConnection(t.runtime.ctx.db);
     expect(() => sqlite.prepare('UPDATE audit_log SET action = ?').run('edited')).toThrow(
       /append-only/,
     );

@@ -4,6 +4,8 @@ import { RequirePermission } from '../../../features/auth/components/require-per
 
 const sections = [
   { to: '/admin/users', label: 'Users' },
+  { to: '/admin/organisations', label: 'Organisations' },
+  { to: '/admin/engine-models', label: 'Engine models' },
   { to: '/admin/outbox', label: 'Outbox' },
   { to: '/admin/audit-log', label: 'Audit log' },
 ];
@@ -13,7 +15,7 @@ export function AdminLayout() {
     <RequirePermission permission="manage:user">
       <PageHeader
         title="Admin"
-        description="People, their roles and sessions; the mail Emberline has sent; the record of every change."
+        description="People and their roles; customer organisations and their report contacts; engine models; the mail Emberline has sent; the record of every change."
       />
       <nav aria-label="Admin sections" className="mb-6">
         <ul className="flex gap-1 border-b border-soot-200">

@@ -1,5 +1,4 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { OrganisationListResponse } from '@emberline/contracts/organisations';
 import type {
   InviteUserInput,
   InviteUserResponse,
@@ -14,11 +13,6 @@ export const userKeys = {
   list: () => [...userKeys.all, 'list'] as const,
 };
 
-export const organisationKeys = {
-  all: ['organisations'] as const,
-  list: () => [...organisationKeys.all, 'list'] as const,
-};
-
 export const usersQueryOptions = () =>
   // Sessions and statuses change by other people's hands: fetch afresh whenever the page opens.
   queryOptions({
@@ -27,19 +21,8 @@ export const usersQueryOptions = () =>
     staleTime: 0,
   });
 
-export const organisationsQueryOptions = () =>
-  queryOptions({
-    queryKey: organisationKeys.list(),
-    queryFn: () => api.get<OrganisationListResponse>('/organisations').then((body) => body.items),
-    staleTime: 5 * 60_000,
-  });
-
 export function useUsers() {
   return useQuery(usersQueryOptions());
-}
-
-export function useOrganisations() {
-  return useQuery(organisationsQueryOptions());
 }
 
 export function useInviteUser() {

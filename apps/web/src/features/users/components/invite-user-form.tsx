@@ -5,10 +5,10 @@ import { Button } from '../../../components/ui/button';
 import { Field, Input, Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { applyServerErrors, useZodForm } from '../../../lib/form';
-import { useInviteUser, useOrganisations } from '../api/users';
+import type { Organisation } from '@emberline/contracts/organisations';
+import { useInviteUser } from '../api/users';
 
-export function InviteUserForm() {
-  const organisations = useOrganisations();
+export function InviteUserForm({ organisations }: { organisations: Organisation[] }) {
   const invite = useInviteUser();
   const form = useZodForm(inviteUserInputSchema, {
     defaultValues: { email: '', name: '', role: 'inspector', organisationId: '' },
@@ -18,7 +18,7 @@ export function InviteUserForm() {
     text: string;
   } | null>(null);
   const role = form.watch('role');
-  const choices = (organisations.data ?? []).filter((organisation) =>
+  const choices = organisations.filter((organisation) =>
     role === 'customer' ? organisation.kind === 'customer' : organisation.kind === 'home',
   );
   const { errors } = form.formState;

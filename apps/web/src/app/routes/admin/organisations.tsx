@@ -1,0 +1,5 @@
+import { OrganisationsView } from '../../../features/organisations/components/organisations-view';
+
+export function AdminOrganisationsRoute() {
+  return <OrganisationsView />;
+}

@@ -1,0 +1,62 @@
+import { can } from '@emberline/contracts/permissions';
+import { ArrowLeft } from 'lucide-react';
+import { Link, useParams } from 'react-router-dom';
+import { Notice } from '../../components/ui/notice';
+import { ApiError } from '../../lib/api-client';
+import { LoadingLine, PageHeader, Panel } from '../../components/ui/page';
+import { useSignedInUser } from '../../features/auth/hooks/use-signed-in-user';
+import { useEngine } from '../../features/fleet/api/engines';
+import { EngineParticulars } from '../../features/fleet/components/engine-particulars';
+import { EngineStatusForm } from '../../features/fleet/components/engine-status-form';
+import { UtilizationPanel } from '../../features/fleet/components/utilization-panel';
+
+export function EngineRoute() {
+  const { engineId = '' } = useParams();
+  const user = useSignedInUser();
+  const engine = useEngine(engineId);
+
+  if (engine.isPending) return <LoadingLine />;
+  if (engine.error) {
+    return (
+      <>
+        <PageHeader title="Engine" />
+        <Notice tone="error">
+          {engine.error instanceof ApiError && engine.error.status === 404
+            ? 'There is no such engine, or it is not shared with you.'
+            : engine.error.message}
+        </Notice>
+      </>
+    );
+  }
+  const data = engine.data;
+  return (
+    <div className="flex flex-col gap-6">
+      <Link
+        to="/fleet"
+        className="inline-flex items-center gap-1 text-sm text-ember-800 hover:underline"
+      >
+        <ArrowLeft className="size-4" aria-hidden /> Fleet
+      </Link>
+      <PageHeader
+        title={`Engine ${data.serialNumber}`}
+        description={`${data.modelName} · ${data.organisationName}`}
+      />
+      <Panel>
+        <h2 className="mb-4 text-lg font-semibold">Particulars</h2>
+        <EngineParticulars engine={data} />
+        {can(user.role, 'manage:engine') ? <EngineStatusForm engine={data} /> : null}
+      </Panel>
+      <Panel>
+        <h2 className="mb-4 text-lg font-semibold">Utilization</h2>
+        <UtilizationPanel engineId={data.id} canManage={can(user.role, 'manage:utilization')} />
+      </Panel>
+      <Panel>
+        <h2 className="mb-2 text-lg font-semibold">Inspections</h2>
+        <Notice title="Not built yet">
+          Borescope inspections of this engine, with their findings and dispositions, will be listed
+          here. That part of Emberline is not in this version.
+        </Notice>
+      </Panel>
+    </div>
+  );
+}

@@ -1,0 +1,82 @@
+import { useState } from 'react';
+import {
+  engineStatuses,
+  engineStatusLabels,
+  engineUpdateSchema,
+  type EngineDetail,
+} from '@emberline/contracts/fleet';
+import { Button } from '../../../components/ui/button';
+import { Field, Input, Select } from '../../../components/ui/field';
+import { Notice } from '../../../components/ui/notice';
+import { applyServerErrors, useZodForm } from '../../../lib/form';
+import { useUpdateEngine } from '../api/engines';
+
+const emptyToNull = (value: unknown) => (value === '' ? null : value);
+
+/** Where the engine is: status, aircraft and position, which change at removal and installation. */
+export function EngineStatusForm({ engine }: { engine: EngineDetail }) {
+  const update = useUpdateEngine(engine.id);
+  const [message, setMessage] = useState<{ tone: 'success' | 'error'; text: string } | null>(null);
+  const form = useZodForm(engineUpdateSchema, {
+    defaultValues: {
+      status: engine.status,
+      registration: engine.registration,
+      installedPosition: engine.installedPosition,
+    },
+  });
+  const { errors } = form.formState;
+  const onSubmit = form.handleSubmit((values) => {
+    setMessage(null);
+    update.mutate(values, {
+      onSuccess: () => setMessage({ tone: 'success', text: 'Saved.' }),
+      onError: (error) => {
+        const text = applyServerErrors(form, error);
+        if (text) setMessage({ tone: 'error', text });
+      },
+    });
+  });
+  return (
+    <form
+      onSubmit={onSubmit}
+      noValidate
+      className="mt-6 flex flex-col gap-3 border-t border-soot-200 pt-4"
+      aria-label="Change status"
+    >
+      <h3 className="font-semibold">Installation</h3>
+      {message ? <Notice tone={message.tone}>{message.text}</Notice> : null}
+      <div className="grid gap-3 sm:grid-cols-3">
+        <Field label="Status" error={errors.status}>
+          {(props) => (
+            <Select {...props} {...form.register('status')}>
+              {engineStatuses.map((status) => (
+                <option key={status} value={status}>
+                  {engineStatusLabels[status]}
+                </option>
+              ))}
+            </Select>
+          )}
+        </Field>
+        <Field label="Aircraft registration" error={errors.registration}>
+          {(props) => (
+            <Input
+              {...props}
+              className="uppercase"
+              {...form.register('registration', { setValueAs: emptyToNull })}
+            />
+          )}
+        </Field>
+        <Field label="Installed position" error={errors.installedPosition}>
+          {(props) => (
+            <Input
+              {...props}
+              {...form.register('installedPosition', { setValueAs: emptyToNull })}
+            />
+          )}
+        </Field>
+      </div>
+      <Button type="submit" variant="secondary" busy={update.isPending} className="self-start">
+        Save installation
+      </Button>
+    </form>
+  );
+}

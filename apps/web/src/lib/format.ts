@@ -1,0 +1,26 @@
+/** Hours with one decimal and thousands separated, as logbooks show them. */
+export function formatHours(value: number): string {
+  return value.toLocaleString('en-GB', { minimumFractionDigits: 1, maximumFractionDigits: 1 });
+}
+
+export function formatCount(value: number): string {
+  return value.toLocaleString('en-GB', { maximumFractionDigits: 0 });
+}
+
+export function formatRate(value: number | null, unit: string): string {
+  return value === null
+    ? 'not enough records'
+    : `${value.toLocaleString('en-GB', { maximumFractionDigits: 2, minimumFractionDigits: 2 })} ${unit}`;
+}
+
+/** A `YYYY-MM-DD` date as an unambiguous day: 14 Mar 2026. */
+export function formatDate(value: string | null): string {
+  if (!value) return '—';
+  const date = new Date(`${value.slice(0, 10)}T00:00:00Z`);
+  return date.toLocaleDateString('en-GB', {
+    day: 'numeric',
+    month: 'short',
+    year: 'numeric',
+    timeZone: 'UTC',
+  });
+}
