@@ -48,6 +48,16 @@ export default defineConfig({
       {
         extends: true,
         test: {
+          name: 'fault',
+          root: '.',
+          include: ['tests/fault/**/*.test.ts'],
+          environment: 'node',
+          testTimeout: 240_000,
+        },
+      },
+      {
+        extends: true,
+        test: {
           name: 'reference',
           root: '.',
           include: ['tests/reference/**/*.test.ts'],

@@ -15,6 +15,8 @@ import { createAuthService } from './modules/auth/auth.service';
 import { calculationsRoutes } from './modules/calculations/calculations.routes';
 import { engineModelsRoutes } from './modules/engine-models/engine-models.routes';
 import { enginesRoutes } from './modules/engines/engines.routes';
+import { imagesRoutes } from './modules/images/images.routes';
+import { inspectionsRoutes } from './modules/inspections/inspections.routes';
 import { healthRoutes } from './modules/health/health.routes';
 import { openApiRoutes } from './modules/openapi/openapi.routes';
 import { organisationsRoutes } from './modules/organisations/organisations.routes';
@@ -39,6 +41,8 @@ export function createApiRouter(ctx: AppContext): Router {
   api.use(engineModelsRoutes(ctx));
   api.use(enginesRoutes(ctx));
   api.use(utilizationRoutes(ctx));
+  api.use(inspectionsRoutes(ctx));
+  api.use(imagesRoutes(ctx));
   api.use(outboxRoutes(ctx));
   api.use(auditRoutes(ctx));
   api.use(calculationsRoutes());

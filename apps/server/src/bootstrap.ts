@@ -10,6 +10,8 @@ import { caughtMailStore } from './lib/email/caught-mail';
 import { createMailer } from './lib/email/mailer';
 import { startSmtpFake } from './lib/email/smtp-fake';
 import type { Logger } from './lib/logger';
+import { createLocalStorage } from './lib/storage/local-storage';
+import { knownImageHashes } from './modules/images/images.repository';
 import { countUsers } from './modules/users/users.repository';
 
 export interface Runtime {
@@ -67,6 +69,14 @@ export async function prepareRuntime(
     }
   }
 
+  const storage = await createLocalStorage(config.dataDir);
+  // Files that a crash left without a record (or half-written) go; every record keeps its file,
+  // because a record is only written after its file is in place.
+  const known = knownImageHashes(handle.db);
+  const swept = await storage.sweep((sha256) => known.has(sha256));
+  if (swept.removed > 0)
+    logger.info({ removed: swept.removed }, 'removed image files without records');
+
   const smtpFake = config.smtp ? null : await startSmtpFake(path.join(config.dataDir, 'mail'));
   const mailer = createMailer(
     config.smtp ?? { host: '127.0.0.1', port: smtpFake?.port ?? 0, secure: false },
@@ -80,6 +90,7 @@ export async function prepareRuntime(
     mailer,
     caughtMail: smtpFake ? caughtMailStore(path.join(config.dataDir, 'mail')) : null,
     sessionKey: sessionKey(config, logger),
+    storage,
     now,
   };
   return {

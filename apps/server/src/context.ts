@@ -3,6 +3,7 @@ import type { Db } from './db/client';
 import type { CaughtMailStore } from './lib/email/caught-mail';
 import type { Mailer } from './lib/email/mailer';
 import type { Logger } from './lib/logger';
+import type { ImageStorage } from './lib/storage/local-storage';
 
 /** What every module is given: configuration, the database, side-effect services and the clock. */
 export interface AppContext {
@@ -13,6 +14,7 @@ export interface AppContext {
   /** The outbox of the local SMTP fake; null when a real relay is configured. */
   caughtMail: CaughtMailStore | null;
   sessionKey: Uint8Array;
+  storage: ImageStorage;
   now: () => Date;
 }
 

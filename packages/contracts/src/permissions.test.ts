@@ -3,11 +3,11 @@ import { allows, can, permissionGrants } from './permissions';
 import { roles } from './roles';
 
 describe('permissions', () => {
-  it('lets customers only read engines and reports', () => {
+  it('lets customers only read engines, inspections and reports', () => {
     const customerMay = Object.keys(permissionGrants).filter((permission) =>
       can('customer', permission as keyof typeof permissionGrants),
     );
-    expect(customerMay.sort()).toEqual(['read:engine', 'read:report']);
+    expect(customerMay.sort()).toEqual(['read:engine', 'read:inspection', 'read:report']);
   });
 
   it('keeps user administration to admins', () => {

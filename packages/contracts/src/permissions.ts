@@ -11,7 +11,8 @@ export const permissionGrants = {
   'manage:engine': ['admin'],
   'manage:engine-model': ['admin'],
   'manage:utilization': ['admin', 'planner'],
-  // Inspections and findings.
+  // Inspections, their images and findings. Customers see released inspections of their own.
+  'read:inspection': ['admin', 'inspector', 'engineer', 'planner', 'customer'],
   'create:inspection': ['admin', 'inspector'],
   'review:inspection': ['admin', 'engineer'],
   // Damage-limit library.

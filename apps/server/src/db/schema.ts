@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm';
 import {
+  blob,
   index,
   integer,
   primaryKey,
@@ -212,4 +213,85 @@ export const utilizationRecords = sqliteTable(
     createdAt: createdAt(),
   },
   (table) => [index('utilization_engine_period_idx').on(table.engineId, table.periodEnd)],
+);
+
+interface StoredFlag {
+  code: 'probe-calibration-expired' | 'qualification-expired' | 'csn-doubt' | 'tsn-doubt';
+  message: string;
+  acknowledgedAt: string | null;
+  acknowledgedBy: string | null;
+  note: string | null;
+}
+
+export const inspections = sqliteTable(
+  'inspections',
+  {
+    id: text().primaryKey(),
+    engineId: text()
+      .notNull()
+      .references(() => engines.id),
+    date: text().notNull(),
+    reason: text({
+      enum: [
+        'scheduled',
+        'repeat-inspection',
+        'over-temperature',
+        'hot-start',
+        'foreign-object-ingestion',
+        'egt-trend',
+        'other',
+      ],
+    }).notNull(),
+    reasonDetail: text().notNull().default(''),
+    csn: integer().notNull(),
+    tsn: real().notNull(),
+    inspectorName: text().notNull(),
+    qualificationRef: text().notNull(),
+    qualificationExpiresOn: text().notNull(),
+    probe: text().notNull(),
+    probeCalibrationDueOn: text().notNull(),
+    rows: text({ mode: 'json' }).notNull().$type<string[]>(),
+    state: text({ enum: ['draft', 'submitted', 'dispositioned', 'released'] }).notNull(),
+    flags: text({ mode: 'json' }).notNull().$type<StoredFlag[]>(),
+    createdBy: text()
+      .notNull()
+      .references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (table) => [index('inspections_engine_date_idx').on(table.engineId, table.date)],
+);
+
+/** An image of an inspection: the original on disk by SHA-256, renditions in the row. */
+export const images = sqliteTable(
+  'images',
+  {
+    id: text().primaryKey(),
+    inspectionId: text()
+      .notNull()
+      .references(() => inspections.id),
+    sha256: text().notNull(),
+    format: text({ enum: ['jpeg', 'png', 'tiff', 'webp'] }).notNull(),
+    bytes: integer().notNull(),
+    width: integer().notNull(),
+    height: integer().notNull(),
+    originalName: text().notNull(),
+    capturedAt: text(),
+    source: text({ enum: ['upload', 'video-frame'] }).notNull(),
+    videoFileName: text(),
+    videoTimeSeconds: real(),
+    rowKey: text(),
+    position: integer(),
+    thumbnail: blob({ mode: 'buffer' }).notNull(),
+    thumbnailType: text().notNull(),
+    preview: blob({ mode: 'buffer' }).notNull(),
+    previewType: text().notNull(),
+    createdBy: text()
+      .notNull()
+      .references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (table) => [
+    uniqueIndex('images_inspection_sha_idx').on(table.inspectionId, table.sha256),
+    index('images_sha_idx').on(table.sha256),
+  ],
 );

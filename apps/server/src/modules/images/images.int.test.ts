@@ -1,0 +1,377 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import { deflateSync } from 'node:zlib';
+import exifReader from 'exif-reader';
+import sharp from 'sharp';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { demoAccounts, startTestApp, type TestApp } from '../../../test/test-app';
+
+let t: TestApp;
+let inspector: string;
+let customer: string;
+let inspectionId: string;
+
+const inspection = {
+  engineId: 'engine-d0101',
+  date: '2026-05-20',
+  reason: 'scheduled',
+  csn: 14_125,
+  tsn: 22_600,
+  inspectorName: 'Tobias Rennick',
+  qualificationRef: 'BSI-L2-0457',
+  qualificationExpiresOn: '2027-03-31',
+  probe: 'Demo probe VX-6 s/n 118',
+  probeCalibrationDueOn: '2026-09-30',
+  rows: ['hpt1-ngv', 'hpt1-blade'],
+};
+
+const solid = (width: number, height: number) =>
+  sharp({ create: { width, height, channels: 3, background: { r: 150, g: 90, b: 40 } } });
+
+/** A PNG that claims 20000×20000 pixels in its header, with a token of data after it. */
+function hugePngHeader(): Buffer {
+  const crcTable = Array.from({ length: 256 }, (_, n) => {
+    let c = n;
+    for (let k = 0; k < 8; k += 1) c = c & 1 ? 0xedb88320 ^ (c >>> 1) : c >>> 1;
+    return c >>> 0;
+  });
+  const crc = (bytes: Buffer) => {
+    let c = 0xffffffff;
+    for (const byte of bytes) c = crcTable[(c ^ byte) & 0xff]! ^ (c >>> 8);
+    return (c ^ 0xffffffff) >>> 0;
+  };
+  const chunk = (type: string, data: Buffer) => {
+    const body = Buffer.concat([Buffer.from(type, 'latin1'), data]);
+    const length = Buffer.alloc(4);
+    length.writeUInt32BE(data.length);
+    const check = Buffer.alloc(4);
+    check.writeUInt32BE(crc(body));
+    return Buffer.concat([length, body, check]);
+  };
+  const ihdr = Buffer.alloc(13);
+  ihdr.writeUInt32BE(20_000, 0);
+  ihdr.writeUInt32BE(20_000, 4);
+  ihdr.set([8, 2, 0, 0, 0], 8);
+  return Buffer.concat([
+    Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+    chunk('IHDR', ihdr),
+    chunk('IDAT', deflateSync(Buffer.alloc(1000))),
+    chunk('IEND', Buffer.alloc(0)),
+  ]);
+}
+
+const upload = (
+  files: { name: string; data: Buffer }[],
+  cookie = inspector,
+  id = () => inspectionId,
+) => {
+  let call = request(t.app).post(`/api/v1/inspections/${id()}/images`).set('Cookie', cookie);
+  for (const file of files)
+    call = call.attach('files', file.data, { filename: file.name, contentType: 'image/jpeg' });
+  return call;
+};
+
+beforeAll(async () => {
+  t = await startTestApp();
+  inspector = await t.signIn(demoAccounts.inspector);
+  customer = await t.signIn(demoAccounts.customer);
+  const created = await request(t.app)
+    .post('/api/v1/inspections')
+    .set('Cookie', inspector)
+    .send(inspection);
+  expect(created.status).toBe(201);
+  inspectionId = created.body.id;
+});
+afterAll(() => t.close());
+
+describe('image upload', () => {
+  it('accepts JPEG, PNG, TIFF and WebP by their content, with thumbnails and previews', async () => {
+    const files = [
+      { name: 'blade-01.jpg', data: await solid(640, 480).jpeg().toBuffer() },
+      { name: 'blade-02.png', data: await solid(641, 480).png().toBuffer() },
+      { name: 'blade-03.tif', data: await solid(642, 480).tiff().toBuffer() },
+      { name: 'blade-04.webp', data: await solid(643, 480).webp().toBuffer() },
+      // A PNG with a misleading name is still a PNG.
+      { name: 'misnamed.jpg', data: await solid(644, 480).png().toBuffer() },
+    ];
+    const response = await upload(files);
+    expect(response.status).toBe(201);
+    expect(response.body.rejected).toEqual([]);
+    expect(
+      response.body.images.map((image: { format: string; width: number }) => [
+        image.format,
+        image.width,
+      ]),
+    ).toEqual([
+      ['jpeg', 640],
+      ['png', 641],
+      ['tiff', 642],
+      ['webp', 643],
+      ['png', 644],
+    ]);
+    const thumbnail = await request(t.app)
+      .get(`/api/v1/images/${response.body.images[2].id}/thumbnail`)
+      .set('Cookie', inspector);
+    expect(thumbnail.status).toBe(200);
+    expect(thumbnail.headers['content-type']).toBe('image/webp');
+    expect(thumbnail.headers['x-content-type-options']).toBe('nosniff');
+    expect(thumbnail.headers['cache-control']).toContain('immutable');
+    // Reference check: the rendition read back by sharp's own decoder.
+    expect(await sharp(thumbnail.body as Buffer).metadata()).toMatchObject({
+      format: 'webp',
+      width: 320,
+    });
+    const full = await request(t.app)
+      .get(`/api/v1/images/${response.body.images[2].id}/full`)
+      .set('Cookie', inspector);
+    expect(full.headers['content-type']).toBe('image/jpeg');
+    expect(await sharp(full.body as Buffer).metadata()).toMatchObject({
+      format: 'jpeg',
+      width: 642,
+      height: 480,
+    });
+    const original = await request(t.app)
+      .get(`/api/v1/images/${response.body.images[2].id}/original`)
+      .set('Cookie', inspector)
+      .buffer(true)
+      .parse((res, done) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (chunk: Buffer) => chunks.push(chunk));
+        res.on('end', () => done(null, Buffer.concat(chunks)));
+      });
+    expect(original.headers['content-type']).toBe('image/tiff');
+    expect(original.headers['content-disposition']).toContain(
+      'attachment; filename="blade-03.tif"',
+    );
+    expect((original.body as Buffer).equals(files[2]!.data)).toBe(true);
+  });
+
+  it('orients a rotated EXIF JPEG upright, reports its displayed size, and strips EXIF and GPS from renditions', async () => {
+    const rotated = await solid(400, 200)
+      .jpeg()
+      .withMetadata({ orientation: 6 })
+      .withExifMerge({
+        IFD0: { Make: 'Demo' },
+        IFD3: { GPSLatitudeRef: 'N', GPSLatitude: '51/1 30/1 0/1' },
+      })
+      .toBuffer();
+    const source = await sharp(rotated).metadata();
+    expect(source.orientation).toBe(6);
+    expect(exifReader(source.exif!).GPSInfo, 'the upload carries GPS').toBeDefined();
+    const response = await upload([{ name: 'rotated.jpg', data: rotated }]);
+    expect(response.status).toBe(201);
+    expect(response.body.images[0]).toMatchObject({ width: 200, height: 400 });
+    const id = response.body.images[0].id;
+    for (const rendition of ['thumbnail', 'preview', 'full']) {
+      const body = (
+        await request(t.app).get(`/api/v1/images/${id}/${rendition}`).set('Cookie', inspector)
+      ).body as Buffer;
+      const metadata = await sharp(body).metadata();
+      expect(metadata.width, rendition).toBeLessThan(metadata.height!);
+      expect(metadata.exif, `${rendition} has no EXIF`).toBeUndefined();
+      expect(metadata.orientation ?? 1).toBe(1);
+    }
+  });
+
+  it('refuses an HTML page and an SVG drawing named .jpg with 415 and says what they are', async () => {
+    const response = await upload([
+      {
+        name: 'photo.jpg',
+        data: Buffer.from('<!DOCTYPE html><html><script>alert(1)</script></html>'),
+      },
+      {
+        name: 'drawing.jpg',
+        data: Buffer.from(
+          '<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>',
+        ),
+      },
+    ]);
+    expect(response.status).toBe(415);
+    expect(response.body.images).toEqual([]);
+    expect(response.body.rejected).toEqual([
+      {
+        filename: 'photo.jpg',
+        code: 'unsupported_type',
+        message: expect.stringContaining('an HTML page'),
+      },
+      {
+        filename: 'drawing.jpg',
+        code: 'unsupported_type',
+        message: expect.stringContaining('an SVG drawing'),
+      },
+    ]);
+  });
+
+  it('refuses a 20000×20000 PNG from its header in under a second', async () => {
+    const started = performance.now();
+    const response = await upload([{ name: 'bomb.png', data: hugePngHeader() }]);
+    expect(performance.now() - started).toBeLessThan(1000);
+    expect(response.status).toBe(415);
+    expect(response.body.rejected[0]).toMatchObject({
+      code: 'too_many_pixels',
+      message: expect.stringContaining('20000×20000'),
+    });
+  });
+
+  it('answers a file over 64 MB with 413 and stores nothing', async () => {
+    const before = fs.readdirSync(t.runtime.ctx.storage.tempDir);
+    const big = Buffer.alloc(64 * 1024 * 1024 + 1, 0);
+    big.set([0xff, 0xd8, 0xff], 0);
+    const response = await upload([{ name: 'huge.jpg', data: big }]);
+    expect(response.status).toBe(413);
+    expect(response.body.error.code).toBe('payload_too_large');
+    expect(response.body.rejected[0].code).toBe('too_large');
+    expect(fs.readdirSync(t.runtime.ctx.storage.tempDir)).toEqual(before);
+  });
+
+  it('stores a file named ../../x.jpg under its hash, keeping only the base name to show', async () => {
+    const data = await solid(300, 300).jpeg({ quality: 70 }).toBuffer();
+    const response = await upload([{ name: '../../x.jpg', data }]);
+    expect(response.status).toBe(201);
+    const image = response.body.images[0];
+    expect(image.originalName).toBe('x.jpg');
+    expect(fs.existsSync(path.join(t.dataDir, 'x.jpg'))).toBe(false);
+    expect(fs.existsSync(t.runtime.ctx.storage.originalPath(image.sha256))).toBe(true);
+  });
+
+  it('reports identical bytes uploaded again as a duplicate, not stored twice', async () => {
+    const data = await solid(310, 300).jpeg().toBuffer();
+    const first = await upload([{ name: 'a.jpg', data }]);
+    const again = await upload([{ name: 'a-copy.jpg', data }]);
+    expect(again.status).toBe(200);
+    expect(again.body.rejected[0]).toMatchObject({
+      code: 'duplicate',
+      imageId: first.body.images[0].id,
+    });
+    const detail = await request(t.app)
+      .get(`/api/v1/inspections/${inspectionId}`)
+      .set('Cookie', inspector);
+    expect(
+      detail.body.images.filter(
+        (image: { sha256: string }) => image.sha256 === first.body.images[0].sha256,
+      ),
+    ).toHaveLength(1);
+  });
+
+  it('tags an image with a row and position of the inspection, refusing a position outside the row', async () => {
+    const detail = await request(t.app)
+      .get(`/api/v1/inspections/${inspectionId}`)
+      .set('Cookie', inspector);
+    const id = detail.body.images[0].id;
+    const tagged = await request(t.app)
+      .patch(`/api/v1/images/${id}`)
+      .set('Cookie', inspector)
+      .send({ rowKey: 'hpt1-blade', position: 12 });
+    expect(tagged.body).toMatchObject({ rowKey: 'hpt1-blade', position: 12 });
+    const outside = await request(t.app)
+      .patch(`/api/v1/images/${id}`)
+      .set('Cookie', inspector)
+      .send({ rowKey: 'hpt1-blade', position: 65 });
+    expect(outside.status).toBe(422);
+    expect(outside.body.error.message).toMatch(/positions 1 to 64/);
+    expect(
+      (
+        await request(t.app)
+          .patch(`/api/v1/images/${id}`)
+          .set('Cookie', inspector)
+          .send({ rowKey: 'lpt1-blade', position: 1 })
+      ).status,
+    ).toBe(422);
+  });
+});
+
+describe('who may see and add images', () => {
+  it('answers 404 to a customer for a draft inspection and its images, and 403 to their uploads', async () => {
+    const detail = await request(t.app)
+      .get(`/api/v1/inspections/${inspectionId}`)
+      .set('Cookie', inspector);
+    const id = detail.body.images[0].id;
+    expect(
+      (await request(t.app).get(`/api/v1/inspections/${inspectionId}`).set('Cookie', customer))
+        .status,
+    ).toBe(404);
+    for (const rendition of ['thumbnail', 'preview', 'full', 'original']) {
+      expect(
+        (await request(t.app).get(`/api/v1/images/${id}/${rendition}`).set('Cookie', customer))
+          .status,
+        rendition,
+      ).toBe(404);
+    }
+    expect(
+      (await request(t.app).get('/api/v1/inspections').set('Cookie', customer)).body.items,
+    ).toEqual([]);
+    expect((await upload([{ name: 'x.jpg', data: Buffer.from('x') }], customer)).status).toBe(403);
+    expect((await request(t.app).get(`/api/v1/images/${id}/thumbnail`)).status).toBe(401);
+  });
+
+  it('refuses a cross-site upload with 403 before reading it', async () => {
+    const response = await request(t.app)
+      .post(`/api/v1/inspections/${inspectionId}/images`)
+      .set('Cookie', inspector)
+      .set('Origin', 'https://evil.example')
+      .attach('files', Buffer.from('x'), 'x.jpg');
+    expect(response.status).toBe(403);
+  });
+});
+
+describe('inspections', () => {
+  it('flags an expired probe calibration and a CSN that does not fit, until acknowledged', async () => {
+    const created = await request(t.app)
+      .post('/api/v1/inspections')
+      .set('Cookie', inspector)
+      .send({ ...inspection, csn: 13_000, probeCalibrationDueOn: '2026-05-01' });
+    expect(created.status).toBe(201);
+    expect(created.body.flags.map((flag: { code: string }) => flag.code)).toEqual([
+      'probe-calibration-expired',
+      'csn-doubt',
+    ]);
+    const acknowledged = await request(t.app)
+      .post(
+        `/api/v1/inspections/${created.body.id}/flags/probe-calibration-expired/acknowledgement`,
+      )
+      .set('Cookie', inspector)
+      .send({ note: 'Calibration renewed on 2026-05-19, certificate DEMO-CAL-22' });
+    expect(acknowledged.status).toBe(200);
+    expect(acknowledged.body.flags[0]).toMatchObject({
+      acknowledgedBy: 'Tobias Rennick',
+      note: expect.stringContaining('renewed'),
+    });
+    expect(acknowledged.body.flags[1].acknowledgedAt).toBeNull();
+  });
+
+  it('refuses a row the engine model does not have, a future date, and an engine of nobody', async () => {
+    expect(
+      (
+        await request(t.app)
+          .post('/api/v1/inspections')
+          .set('Cookie', inspector)
+          .send({ ...inspection, rows: ['hpt9-blade'] })
+      ).status,
+    ).toBe(422);
+    expect(
+      (
+        await request(t.app)
+          .post('/api/v1/inspections')
+          .set('Cookie', inspector)
+          .send({ ...inspection, date: '2027-01-01' })
+      ).status,
+    ).toBe(422);
+    expect(
+      (
+        await request(t.app)
+          .post('/api/v1/inspections')
+          .set('Cookie', inspector)
+          .send({ ...inspection, engineId: 'engine-none' })
+      ).status,
+    ).toBe(404);
+    expect(
+      (
+        await request(t.app)
+          .post('/api/v1/inspections')
+          .set('Cookie', await t.signIn(demoAccounts.planner))
+          .send(inspection)
+      ).status,
+    ).toBe(403);
+  });
+});

@@ -1,0 +1,194 @@
+import { Router, type ErrorRequestHandler, type RequestHandler, type Response } from 'express';
+import multer from 'multer';
+import {
+  imageSchema,
+  imageTagInputSchema,
+  uploadResponseSchema,
+} from '@emberline/contracts/inspections';
+import { idParamsSchema } from '@emberline/contracts/users';
+import { z } from 'zod';
+import type { AppContext } from '../../context';
+import { AppError } from '../../http/app-error';
+import { principalOf } from '../../http/principal';
+import { requestMeta } from '../../http/request-meta';
+import { route } from '../../http/route';
+import { tempName } from '../../lib/storage/local-storage';
+import { createImagesService, displayName, type FrameSource } from './images.service';
+
+export const UPLOAD_LIMITS = {
+  fileSize: 64 * 1024 * 1024,
+  files: 200,
+  fields: 10,
+  parts: 212,
+  fieldSize: 1024,
+} as const;
+
+const frameFieldsSchema = z.strictObject({
+  videoFileName: z.string().trim().min(1).max(200).optional(),
+  videoTimeSeconds: z.coerce.number().finite().min(0).max(86_400).optional(),
+});
+
+const limitMessages: Record<string, string> = {
+  LIMIT_FILE_SIZE: `A file is over the ${UPLOAD_LIMITS.fileSize / 1024 / 1024} MB limit; nothing in this batch was stored.`,
+  LIMIT_FILE_COUNT: `At most ${UPLOAD_LIMITS.files} files go in one upload; nothing in this batch was stored.`,
+  LIMIT_PART_COUNT: 'The upload has too many parts; nothing in this batch was stored.',
+  LIMIT_FIELD_COUNT: 'The upload has too many fields; nothing in this batch was stored.',
+  LIMIT_FIELD_VALUE: 'A field of the upload is too long; nothing in this batch was stored.',
+  LIMIT_FIELD_KEY: 'A field name of the upload is too long; nothing in this batch was stored.',
+  LIMIT_UNEXPECTED_FILE: 'Files go in the field "files"; nothing in this batch was stored.',
+};
+
+/** Multer's limit errors as the upload's own answer: 413 (400 for a wrong field) with the refused files. */
+const uploadErrors: ErrorRequestHandler = (error, _req, res, next) => {
+  if (!(error instanceof multer.MulterError)) return next(error);
+  const status = error.code === 'LIMIT_UNEXPECTED_FILE' ? 400 : 413;
+  const message = limitMessages[error.code] ?? 'The upload could not be read; nothing was stored.';
+  res.status(status).json({
+    error: {
+      code: status === 413 ? 'payload_too_large' : 'invalid_request',
+      message,
+      requestId: String(_req.id ?? ''),
+    },
+    images: [],
+    rejected: [{ filename: displayName(error.field ?? 'upload'), code: 'too_large', message }],
+  });
+};
+
+function sendBuffer(res: Response, data: Buffer, type: string, etag: string): void {
+  res.setHeader('Content-Type', type);
+  res.setHeader('Cache-Control', 'private, max-age=31536000, immutable');
+  res.setHeader('ETag', `"${etag}"`);
+  res.setHeader('Content-Disposition', 'inline');
+  res.end(data);
+}
+
+export function imagesRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const images = createImagesService(ctx);
+  const upload = multer({
+    storage: multer.diskStorage({
+      destination: ctx.storage.tempDir,
+      filename: (_req, _file, done) => done(null, tempName()),
+    }),
+    limits: UPLOAD_LIMITS,
+  });
+  const beforeBytes: RequestHandler = (req, res, next) => {
+    images.assertCanUpload(principalOf(res), String(req.params.id));
+    next();
+  };
+
+  route(
+    router,
+    'POST /inspections/:id/images',
+    {
+      summary: 'Upload images (multipart, field "files"); accepted and refused files with reasons',
+      params: idParamsSchema,
+      response: uploadResponseSchema,
+      status: 201,
+    },
+    beforeBytes,
+    upload.array('files', UPLOAD_LIMITS.files),
+    // Express tells an error handler by its four parameters; the cast only satisfies the type.
+    uploadErrors as unknown as RequestHandler,
+    async (req, res) => {
+      const fields = frameFieldsSchema.safeParse(req.body ?? {});
+      if (!fields.success)
+        throw AppError.badRequest('The upload has fields Emberline does not take');
+      const frame: FrameSource | null =
+        fields.data.videoFileName !== undefined && fields.data.videoTimeSeconds !== undefined
+          ? {
+              videoFileName: fields.data.videoFileName,
+              videoTimeSeconds: fields.data.videoTimeSeconds,
+            }
+          : null;
+      const files = (req.files as Express.Multer.File[] | undefined) ?? [];
+      const { status, body } = await images.upload(
+        principalOf(res),
+        res.locals.params.id,
+        files,
+        frame,
+        requestMeta(req),
+      );
+      res.status(status).json(
+        status === 415
+          ? {
+              ...body,
+              error: {
+                code: 'unsupported_media_type',
+                message: 'None of the files could be taken.',
+                requestId: String(req.id ?? ''),
+              },
+            }
+          : body,
+      );
+    },
+  );
+
+  route(
+    router,
+    'PATCH /images/:id',
+    {
+      summary: 'Tag an image with the row and position it shows',
+      params: idParamsSchema,
+      body: imageTagInputSchema,
+      response: imageSchema,
+    },
+    (req, res) => {
+      res.json(
+        images.tag(principalOf(res), res.locals.params.id, res.locals.body, requestMeta(req)),
+      );
+    },
+  );
+
+  for (const which of ['thumbnail', 'preview'] as const) {
+    route(
+      router,
+      `GET /images/:id/${which}`,
+      {
+        summary: which === 'thumbnail' ? 'About 320 px, WebP' : 'About 1600 px, JPEG',
+        params: idParamsSchema,
+      },
+      (_req, res) => {
+        const rendition = images.rendition(principalOf(res), res.locals.params.id, which);
+        sendBuffer(res, rendition.data, rendition.type, `${rendition.sha256}-${which}`);
+      },
+    );
+  }
+
+  route(
+    router,
+    'GET /images/:id/full',
+    { summary: 'Full resolution, oriented, JPEG', params: idParamsSchema },
+    async (_req, res) => {
+      const full = await images.full(principalOf(res), res.locals.params.id);
+      res.setHeader('Cache-Control', 'private, max-age=31536000, immutable');
+      res.setHeader('Content-Disposition', 'inline');
+      res.sendFile(full.path, {
+        headers: { 'Content-Type': 'image/jpeg' },
+        etag: true,
+        lastModified: false,
+      });
+    },
+  );
+
+  route(
+    router,
+    'GET /images/:id/original',
+    { summary: 'The bytes as uploaded, as a download', params: idParamsSchema },
+    (_req, res) => {
+      const { path, image } = images.original(principalOf(res), res.locals.params.id);
+      const type = { jpeg: 'image/jpeg', png: 'image/png', tiff: 'image/tiff', webp: 'image/webp' }[
+        image.format
+      ];
+      const ascii = image.originalName.replace(/[^\x20-\x7e]/g, '_');
+      res.setHeader(
+        'Content-Disposition',
+        `attachment; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(image.originalName)}`,
+      );
+      res.setHeader('Cache-Control', 'private, max-age=31536000, immutable');
+      res.sendFile(path, { headers: { 'Content-Type': type }, etag: true, lastModified: false });
+    },
+  );
+
+  return router;
+}

@@ -1,0 +1,31 @@
+import { isStaffRole } from '@emberline/contracts/roles';
+import type { DbOrTx } from '../../db/client';
+import { AppError } from '../../http/app-error';
+import type { Principal } from '../../http/principal';
+import { findInspection, type InspectionRow } from './inspections.repository';
+
+/**
+ * The inspection when the caller may see it: staff see every one, customers only released
+ * inspections of their own organisation's engines. Anything else is 404, never the record.
+ */
+export function visibleInspection(db: DbOrTx, principal: Principal, id: string): InspectionRow {
+  const inspection = findInspection(db, id);
+  const visible =
+    inspection &&
+    (isStaffRole(principal.user.role) ||
+      (inspection.organisationId === principal.user.organisationId &&
+        inspection.state === 'released'));
+  if (!inspection || !visible) throw AppError.notFound('There is no such inspection');
+  return inspection;
+}
+
+/** An inspection whose images and findings may still change: a draft. */
+export function draftInspection(db: DbOrTx, principal: Principal, id: string): InspectionRow {
+  const inspection = visibleInspection(db, principal, id);
+  if (inspection.state !== 'draft') {
+    throw AppError.conflict(
+      'This inspection has been submitted for review and is locked; an engineer can send it back to draft.',
+    );
+  }
+  return inspection;
+}

@@ -1,0 +1,85 @@
+import { Router } from 'express';
+import {
+  acknowledgeFlagInputSchema,
+  inspectionDetailSchema,
+  inspectionFlagCodes,
+  inspectionInputSchema,
+  inspectionListQuerySchema,
+  inspectionListResponseSchema,
+} from '@emberline/contracts/inspections';
+import { z } from 'zod';
+import { idParamsSchema } from '@emberline/contracts/users';
+import type { AppContext } from '../../context';
+import { principalOf } from '../../http/principal';
+import { requestMeta } from '../../http/request-meta';
+import { route } from '../../http/route';
+import { createInspectionsService } from './inspections.service';
+
+export function inspectionsRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const inspections = createInspectionsService(ctx);
+
+  route(
+    router,
+    'GET /inspections',
+    {
+      summary: 'Inspections, newest first; customers see released ones of their own',
+      query: inspectionListQuerySchema,
+      response: inspectionListResponseSchema,
+    },
+    (_req, res) => {
+      res.json({ items: inspections.list(principalOf(res), res.locals.query.engineId) });
+    },
+  );
+
+  route(
+    router,
+    'POST /inspections',
+    {
+      summary: 'Open a draft inspection on an engine',
+      body: inspectionInputSchema,
+      response: inspectionDetailSchema,
+      status: 201,
+    },
+    (req, res) => {
+      res.status(201).json(inspections.create(principalOf(res), res.locals.body, requestMeta(req)));
+    },
+  );
+
+  route(
+    router,
+    'GET /inspections/:id',
+    {
+      summary: 'An inspection with its flags and images',
+      params: idParamsSchema,
+      response: inspectionDetailSchema,
+    },
+    (_req, res) => {
+      res.json(inspections.detail(principalOf(res), res.locals.params.id));
+    },
+  );
+
+  route(
+    router,
+    'POST /inspections/:id/flags/:code/acknowledgement',
+    {
+      summary: 'Acknowledge a flag, saying why the inspection may go on',
+      params: z.strictObject({ id: z.string().min(1).max(64), code: z.enum(inspectionFlagCodes) }),
+      body: acknowledgeFlagInputSchema,
+      response: inspectionDetailSchema,
+    },
+    (req, res) => {
+      res.json(
+        inspections.acknowledge(
+          principalOf(res),
+          res.locals.params.id,
+          res.locals.params.code,
+          res.locals.body.note,
+          requestMeta(req),
+        ),
+      );
+    },
+  );
+
+  return router;
+}

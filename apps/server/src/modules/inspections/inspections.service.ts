@@ -1,0 +1,158 @@
+import type {
+  Inspection,
+  InspectionDetail,
+  InspectionFlag,
+  InspectionInput,
+} from '@emberline/contracts/inspections';
+import { inspectionInputSchema } from '@emberline/contracts/inspections';
+import { isStaffRole } from '@emberline/contracts/roles';
+import { inspectionFlags } from '@emberline/domain/inspection-flags';
+import type { AppContext, RequestMeta } from '../../context';
+import { inTransaction } from '../../db/client';
+import { AppError } from '../../http/app-error';
+import type { Principal } from '../../http/principal';
+import { newId } from '../../lib/ids';
+import { appendAudit } from '../audit/audit.repository';
+import { listModelRows } from '../engine-models/engine-models.repository';
+import { createEnginesService } from '../engines/engines.service';
+import { listImages } from '../images/images.repository';
+import { toImage } from '../images/image-view';
+import { listUtilization } from '../utilization/utilization.repository';
+import { draftInspection, visibleInspection } from './inspection-access';
+import {
+  findInspection,
+  insertInspection,
+  listInspections,
+  updateInspectionFlags,
+  type InspectionRow,
+} from './inspections.repository';
+
+export function toInspection(row: InspectionRow): Inspection {
+  return {
+    id: row.id,
+    engineId: row.engineId,
+    engineSerialNumber: row.engineSerialNumber,
+    organisationId: row.organisationId,
+    date: row.date,
+    reason: row.reason,
+    reasonDetail: row.reasonDetail,
+    csn: row.csn,
+    tsn: row.tsn,
+    inspectorName: row.inspectorName,
+    qualificationRef: row.qualificationRef,
+    qualificationExpiresOn: row.qualificationExpiresOn,
+    probe: row.probe,
+    probeCalibrationDueOn: row.probeCalibrationDueOn,
+    rows: row.rows,
+    state: row.state,
+    flags: row.flags as InspectionFlag[],
+    imageCount: row.imageCount,
+    createdAt: row.createdAt.toISOString(),
+  };
+}
+
+export function createInspectionsService(ctx: AppContext) {
+  const { db } = ctx;
+  const engines = createEnginesService(ctx);
+
+  return {
+    list(principal: Principal, engineId: string | undefined): Inspection[] {
+      if (engineId) engines.visibleEngine(principal, engineId);
+      const customer = !isStaffRole(principal.user.role);
+      return listInspections(db, {
+        engineId,
+        organisationId: customer ? principal.user.organisationId : undefined,
+        releasedOnly: customer,
+      }).map(toInspection);
+    },
+
+    detail(principal: Principal, id: string): InspectionDetail {
+      const inspection = visibleInspection(db, principal, id);
+      return { ...toInspection(inspection), images: listImages(db, id).map(toImage) };
+    },
+
+    create(principal: Principal, input: InspectionInput, meta: RequestMeta): InspectionDetail {
+      const parsed = inspectionInputSchema.parse(input);
+      const engine = engines.visibleEngine(principal, parsed.engineId);
+      const rowKeys = new Set(listModelRows(db, engine.modelId).map((row) => row.key));
+      const unknown = parsed.rows.filter((key) => !rowKeys.has(key));
+      if (unknown.length)
+        throw AppError.unprocessable(`The engine model has no row ${unknown.join(', ')}`, {
+          fields: { rows: [`Unknown row ${unknown[0]}`] },
+          form: [],
+        });
+      if (parsed.date > ctx.now().toISOString().slice(0, 10)) {
+        throw AppError.unprocessable('An inspection cannot be dated in the future', {
+          fields: { date: ['Give the day the engine was inspected'] },
+          form: [],
+        });
+      }
+      const flags = inspectionFlags(parsed, engine, listUtilization(db, engine.id)).map((flag) => ({
+        ...flag,
+        acknowledgedAt: null,
+        acknowledgedBy: null,
+        note: null,
+      }));
+      const id = newId();
+      const now = ctx.now();
+      inTransaction(db, (tx) => {
+        insertInspection(tx, {
+          id,
+          ...parsed,
+          state: 'draft',
+          flags,
+          createdBy: principal.user.id,
+          createdAt: now,
+        });
+        appendAudit(tx, now, {
+          actorUserId: principal.user.id,
+          action: 'inspection.created',
+          entityType: 'inspection',
+          entityId: id,
+          after: { ...parsed, flags: flags.map((flag) => flag.code) },
+          requestId: meta.requestId,
+          ip: meta.ip,
+        });
+      });
+      return this.detail(principal, id);
+    },
+
+    /** Records that a flag was seen and why the inspection may go on; submission needs every flag acknowledged. */
+    acknowledge(
+      principal: Principal,
+      id: string,
+      code: string,
+      note: string,
+      meta: RequestMeta,
+    ): InspectionDetail {
+      const inspection = draftInspection(db, principal, id);
+      const flag = inspection.flags.find((item) => item.code === code);
+      if (!flag) throw AppError.notFound('This inspection has no such flag');
+      if (flag.acknowledgedAt) throw AppError.conflict('This flag is already acknowledged');
+      const now = ctx.now();
+      const flags = inspection.flags.map((item) =>
+        item.code === code
+          ? {
+              ...item,
+              acknowledgedAt: now.toISOString(),
+              acknowledgedBy: principal.user.name,
+              note,
+            }
+          : item,
+      );
+      inTransaction(db, (tx) => {
+        updateInspectionFlags(tx, id, flags);
+        appendAudit(tx, now, {
+          actorUserId: principal.user.id,
+          action: 'inspection.flag-acknowledged',
+          entityType: 'inspection',
+          entityId: id,
+          after: { code, note },
+          requestId: meta.requestId,
+          ip: meta.ip,
+        });
+      });
+      return this.detail(principal, findInspection(db, id)!.id);
+    },
+  };
+}

@@ -1,0 +1,156 @@
+import { z } from 'zod';
+import { isoDateSchema } from './forecast';
+
+export const inspectionReasons = [
+  'scheduled',
+  'repeat-inspection',
+  'over-temperature',
+  'hot-start',
+  'foreign-object-ingestion',
+  'egt-trend',
+  'other',
+] as const;
+export const inspectionReasonSchema = z.enum(inspectionReasons);
+export type InspectionReason = z.infer<typeof inspectionReasonSchema>;
+export const inspectionReasonLabels: Record<InspectionReason, string> = {
+  scheduled: 'Scheduled',
+  'repeat-inspection': 'Repeat inspection',
+  'over-temperature': 'Over-temperature',
+  'hot-start': 'Hot start',
+  'foreign-object-ingestion': 'Foreign-object ingestion',
+  'egt-trend': 'Exhaust-gas temperature trend',
+  other: 'Other',
+};
+
+export const inspectionStates = ['draft', 'submitted', 'dispositioned', 'released'] as const;
+export const inspectionStateSchema = z.enum(inspectionStates);
+export type InspectionState = z.infer<typeof inspectionStateSchema>;
+export const inspectionStateLabels: Record<InspectionState, string> = {
+  draft: 'Draft',
+  submitted: 'Submitted for review',
+  dispositioned: 'Dispositioned',
+  released: 'Released',
+};
+
+const text = (what: string, max = 120) =>
+  z
+    .string()
+    .trim()
+    .min(1, { message: `Enter the ${what}` })
+    .max(max);
+
+export const inspectionInputSchema = z.strictObject({
+  engineId: z.string().min(1).max(64),
+  date: isoDateSchema,
+  reason: inspectionReasonSchema,
+  reasonDetail: z.string().trim().max(500).default(''),
+  csn: z
+    .number({ error: 'Enter the CSN at inspection' })
+    .int({ message: 'cycles are whole numbers' })
+    .min(0)
+    .max(500_000),
+  tsn: z.number({ error: 'Enter the TSN at inspection' }).finite().min(0).max(500_000),
+  inspectorName: text('inspector’s name'),
+  qualificationRef: text('qualification reference', 60),
+  qualificationExpiresOn: isoDateSchema,
+  probe: text('probe (model and serial)', 80),
+  probeCalibrationDueOn: isoDateSchema,
+  rows: z
+    .array(z.string().min(1).max(40))
+    .min(1, { message: 'List at least one row inspected' })
+    .max(60),
+});
+export type InspectionInput = z.input<typeof inspectionInputSchema>;
+
+export const inspectionFlagCodes = [
+  'probe-calibration-expired',
+  'qualification-expired',
+  'csn-doubt',
+  'tsn-doubt',
+] as const;
+export const inspectionFlagSchema = z.object({
+  code: z.enum(inspectionFlagCodes),
+  message: z.string(),
+  acknowledgedAt: z.string().nullable(),
+  acknowledgedBy: z.string().nullable(),
+  note: z.string().nullable(),
+});
+export type InspectionFlag = z.infer<typeof inspectionFlagSchema>;
+
+export const acknowledgeFlagInputSchema = z.strictObject({
+  note: z
+    .string()
+    .trim()
+    .min(3, { message: 'Say why it is acceptable, for example the certificate renewed on…' })
+    .max(500),
+});
+
+export const imageSchema = z.object({
+  id: z.string(),
+  inspectionId: z.string(),
+  sha256: z.string(),
+  width: z.number().int(),
+  height: z.number().int(),
+  format: z.enum(['jpeg', 'png', 'tiff', 'webp']),
+  bytes: z.number().int(),
+  originalName: z.string(),
+  capturedAt: z.string().nullable(),
+  source: z.enum(['upload', 'video-frame']),
+  videoFileName: z.string().nullable(),
+  videoTimeSeconds: z.number().nullable(),
+  rowKey: z.string().nullable(),
+  position: z.number().int().nullable(),
+  createdAt: z.string(),
+});
+export type Image = z.infer<typeof imageSchema>;
+
+export const rejectedFileSchema = z.object({
+  filename: z.string(),
+  code: z.enum(['unsupported_type', 'too_large', 'too_many_pixels', 'unreadable', 'duplicate']),
+  message: z.string(),
+  imageId: z.string().optional(),
+});
+export type RejectedFile = z.infer<typeof rejectedFileSchema>;
+
+export const uploadResponseSchema = z.object({
+  images: z.array(imageSchema),
+  rejected: z.array(rejectedFileSchema),
+});
+export type UploadResponse = z.infer<typeof uploadResponseSchema>;
+
+export const imageTagInputSchema = z.strictObject({
+  rowKey: z.string().min(1).max(40).nullable(),
+  position: z.number().int().min(1).max(1000).nullable(),
+});
+export type ImageTagInput = z.infer<typeof imageTagInputSchema>;
+
+export const inspectionSchema = z.object({
+  id: z.string(),
+  engineId: z.string(),
+  engineSerialNumber: z.string(),
+  organisationId: z.string(),
+  date: z.string(),
+  reason: inspectionReasonSchema,
+  reasonDetail: z.string(),
+  csn: z.number().int(),
+  tsn: z.number(),
+  inspectorName: z.string(),
+  qualificationRef: z.string(),
+  qualificationExpiresOn: z.string(),
+  probe: z.string(),
+  probeCalibrationDueOn: z.string(),
+  rows: z.array(z.string()),
+  state: inspectionStateSchema,
+  flags: z.array(inspectionFlagSchema),
+  imageCount: z.number().int(),
+  createdAt: z.string(),
+});
+export type Inspection = z.infer<typeof inspectionSchema>;
+
+export const inspectionDetailSchema = inspectionSchema.extend({ images: z.array(imageSchema) });
+export type InspectionDetail = z.infer<typeof inspectionDetailSchema>;
+
+export const inspectionListQuerySchema = z.strictObject({
+  engineId: z.string().max(64).optional(),
+});
+export const inspectionListResponseSchema = z.object({ items: z.array(inspectionSchema) });

@@ -1,0 +1,185 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import { createHash } from 'node:crypto';
+import fs from 'node:fs';
+import net from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
+import Database from 'better-sqlite3';
+import sharp from 'sharp';
+import { describe, expect, it } from 'vitest';
+
+// QUALITY §3 kill test: concurrent uploads, the server killed (SIGKILL) at a random moment and
+// restarted, 20 rounds; every acknowledged upload must survive, and nothing may be left orphaned.
+
+const ROUNDS = 20;
+const UPLOADS_PER_ROUND = 4;
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const server = net.createServer();
+    server.listen(0, '127.0.0.1', () => {
+      const { port } = server.address() as net.AddressInfo;
+      server.close(() => resolve(port));
+    });
+    server.on('error', reject);
+  });
+}
+
+async function startServer(dataDir: string, port: number): Promise<ChildProcess> {
+  const child = spawn(process.execPath, ['--import', 'tsx', 'apps/server/src/server.ts'], {
+    env: {
+      ...process.env,
+      PORT: String(port),
+      DATA_DIR: dataDir,
+      LOG_LEVEL: 'error',
+      BCRYPT_COST: '10',
+      NODE_ENV: 'production',
+    },
+    stdio: ['ignore', 'ignore', 'inherit'],
+  });
+  for (let attempt = 0; attempt < 200; attempt += 1) {
+    try {
+      if ((await fetch(`http://127.0.0.1:${port}/api/v1/health`)).ok) return child;
+    } catch {
+      // not up yet
+    }
+    await new Promise((resolve) => setTimeout(resolve, 50));
+  }
+  child.kill('SIGKILL');
+  throw new Error('the server did not start');
+}
+
+function kill(child: ChildProcess): Promise<void> {
+  return new Promise((resolve) => {
+    if (child.exitCode !== null) return resolve();
+    child.once('exit', () => resolve());
+    child.kill('SIGKILL');
+  });
+}
+
+const sha256 = (data: Buffer) => createHash('sha256').update(data).digest('hex');
+
+describe('uploads survive a killed server', () => {
+  it(`keeps every acknowledged image through ${ROUNDS} rounds of SIGKILL during concurrent uploads`, async () => {
+    const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'emberline-kill-'));
+    const port = await freePort();
+    const base = `http://127.0.0.1:${port}/api/v1`;
+    let server = await startServer(dataDir, port);
+    const login = await fetch(`${base}/auth/login`, {
+      method: 'POST',
+      headers: { 'Content-Type': 'application/json' },
+      body: JSON.stringify({ email: 'inspector@demo.test', password: 'emberline-demo' }),
+    });
+    const cookie = (login.headers.get('set-cookie') ?? '').split(';')[0]!;
+    const today = new Date().toISOString().slice(0, 10);
+    const created = await fetch(`${base}/inspections`, {
+      method: 'POST',
+      headers: { 'Content-Type': 'application/json', cookie },
+      body: JSON.stringify({
+        engineId: 'engine-d0103',
+        date: today,
+        reason: 'scheduled',
+        csn: 9455,
+        tsn: 13237,
+        inspectorName: 'Kill Test',
+        qualificationRef: 'Q-1',
+        qualificationExpiresOn: '2099-01-01',
+        probe: 'P-1',
+        probeCalibrationDueOn: '2099-01-01',
+        rows: ['hpt1-blade'],
+      }),
+    });
+    expect(created.status).toBe(201);
+    const inspectionId = ((await created.json()) as { id: string }).id;
+
+    const acknowledged = new Map<string, string>();
+    let killedDuringUpload = 0;
+    for (let round = 0; round < ROUNDS; round += 1) {
+      const uploads = await Promise.all(
+        Array.from({ length: UPLOADS_PER_ROUND }, async (_, index) => {
+          const data = await sharp({
+            create: {
+              width: 1600,
+              height: 1200,
+              channels: 3,
+              background: '#000',
+              noise: { type: 'gaussian', mean: 100 + round, sigma: 30 + index },
+            },
+          })
+            .jpeg()
+            .toBuffer();
+          return data;
+        }),
+      );
+      const inFlight = uploads.map(async (data, index) => {
+        const form = new FormData();
+        form.append(
+          'files',
+          new Blob([new Uint8Array(data)], { type: 'image/jpeg' }),
+          `round-${round}-${index}.jpg`,
+        );
+        try {
+          const response = await fetch(`${base}/inspections/${inspectionId}/images`, {
+            method: 'POST',
+            headers: { cookie },
+            body: form,
+          });
+          if (response.status !== 201) return;
+          const body = (await response.json()) as { images: { id: string; sha256: string }[] };
+          for (const image of body.images) acknowledged.set(image.id, image.sha256);
+          expect(body.images[0]!.sha256).toBe(sha256(data));
+        } catch {
+          killedDuringUpload += 1;
+        }
+      });
+      await new Promise((resolve) => setTimeout(resolve, 30 + Math.random() * 400));
+      await kill(server);
+      await Promise.all(inFlight);
+      server = await startServer(dataDir, port);
+
+      for (const [id, hash] of acknowledged) {
+        const thumbnail = await fetch(`${base}/images/${id}/thumbnail`, { headers: { cookie } });
+        expect(thumbnail.status, `image ${id} after round ${round}`).toBe(200);
+        expect((await thumbnail.arrayBuffer()).byteLength).toBeGreaterThan(0);
+        const original = Buffer.from(
+          await (
+            await fetch(`${base}/images/${id}/original`, { headers: { cookie } })
+          ).arrayBuffer(),
+        );
+        expect(sha256(original)).toBe(hash);
+      }
+    }
+    await kill(server);
+    // The restart after the last kill swept; a last start and stop checks nothing is left over.
+    server = await startServer(dataDir, port);
+    await kill(server);
+
+    const db = new Database(path.join(dataDir, 'emberline.sqlite'));
+    expect(db.pragma('integrity_check', { simple: true })).toBe('ok');
+    expect(db.pragma('foreign_key_check')).toEqual([]);
+    const rows = db.prepare('select id, sha256 from images').all() as {
+      id: string;
+      sha256: string;
+    }[];
+    db.close();
+    for (const [id, hash] of acknowledged)
+      expect(rows.find((row) => row.id === id)?.sha256).toBe(hash);
+    const files = fs
+      .readdirSync(path.join(dataDir, 'images', 'originals'), {
+        recursive: true,
+        withFileTypes: true,
+      })
+      .filter((entry) => entry.isFile())
+      .map((entry) => entry.name);
+    expect(new Set(files)).toEqual(new Set(rows.map((row) => row.sha256)));
+    for (const row of rows) {
+      const file = path.join(dataDir, 'images', 'originals', row.sha256.slice(0, 2), row.sha256);
+      expect(sha256(fs.readFileSync(file))).toBe(row.sha256);
+    }
+    expect(fs.readdirSync(path.join(dataDir, 'images', 'tmp'))).toEqual([]);
+    console.log(
+      `kill test: ${ROUNDS} rounds, ${acknowledged.size} acknowledged images kept, ${rows.length} stored, ${killedDuringUpload} uploads cut by a kill`,
+    );
+    expect(acknowledged.size).toBeGreaterThan(0);
+  });
+});
