@@ -5,6 +5,7 @@ import type { Config } from './config/env';
 import type { AppContext } from './context';
 import { openDatabase } from './db/client';
 import { runMigrations } from './db/migrate';
+import { loadDemoInspection } from './demo/demo-inspection';
 import { loadDemoScenario } from './demo/demo-scenario';
 import { caughtMailStore } from './lib/email/caught-mail';
 import { createMailer } from './lib/email/mailer';
@@ -58,10 +59,12 @@ export async function prepareRuntime(
   const handle = openDatabase(path.join(config.dataDir, 'emberline.sqlite'));
   runMigrations(handle.db);
 
+  let demoLoaded = false;
   if (countUsers(handle.db) === 0) {
     if (config.demo) {
       await loadDemoScenario(handle.db, { bcryptCost: config.bcryptCost, now: now() });
-      logger.info('loaded the demo scenario (invented organisations and users)');
+      demoLoaded = true;
+      logger.info('loaded the demo scenario (invented organisations, users and fleet)');
     } else {
       logger.warn(
         'there are no users yet: create the first administrator with `pnpm create-admin`',
@@ -93,6 +96,8 @@ export async function prepareRuntime(
     storage,
     now,
   };
+  if (demoLoaded && config.demoImages) await loadDemoInspection(ctx);
+
   return {
     ctx,
     async close() {

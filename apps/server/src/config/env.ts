@@ -22,6 +22,7 @@ const envSchema = z.object({
   HOST: z.string().min(1).default('0.0.0.0'),
   DATA_DIR: z.string().min(1).default('./data'),
   DEMO: booleanFlag.default(true),
+  DEMO_IMAGES: booleanFlag.default(true),
   SESSION_SECRET: z
     .string()
     .min(32, 'SESSION_SECRET must be at least 32 characters; leave it unset to have one generated')
@@ -87,6 +88,8 @@ export interface Config {
   host: string;
   dataDir: string;
   demo: boolean;
+  /** With the demo: a demo inspection with invented stills (off in most tests, for speed). */
+  demoImages: boolean;
   sessionSecret: string | undefined;
   publicOrigins: string[];
   sessionIdleMs: number;
@@ -126,6 +129,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     host: e.HOST,
     dataDir: path.resolve(e.DATA_DIR),
     demo: e.DEMO,
+    demoImages: e.DEMO_IMAGES,
     sessionSecret: e.SESSION_SECRET,
     publicOrigins: e.PUBLIC_ORIGIN,
     sessionIdleMs: e.SESSION_IDLE_MINUTES * 60_000,

@@ -45,6 +45,16 @@ const router = createBrowserRouter([
         lazy: async () => ({ Component: (await import('./routes/engine')).EngineRoute }),
       },
       {
+        path: 'fleet/:engineId/inspections/new',
+        lazy: async () => ({
+          Component: (await import('./routes/new-inspection')).NewInspectionRoute,
+        }),
+      },
+      {
+        path: 'inspections/:inspectionId',
+        lazy: async () => ({ Component: (await import('./routes/inspection')).InspectionRoute }),
+      },
+      {
         path: 'review',
         element: (
           <NotBuiltYet

@@ -198,3 +198,8 @@ export async function renderFull(original: string, target: string): Promise<void
   );
   await fs.rename(temp, target);
 }
+
+/** Renders an SVG drawing to a JPEG, for the invented demo stills. */
+export async function rasteriseSvg(svg: string, quality = 86): Promise<Buffer> {
+  return sharp(Buffer.from(svg)).flatten({ background: '#000' }).jpeg({ quality }).toBuffer();
+}

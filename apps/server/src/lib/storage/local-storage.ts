@@ -9,6 +9,8 @@ import path from 'node:path';
  */
 export interface ImageStorage {
   tempDir: string;
+  /** Writes bytes to a new temp file (for images made on the server, such as the demo's). */
+  writeTemp(data: Buffer): Promise<string>;
   /** Hashes a finished temp file (SHA-256 of its bytes). */
   hash(tempFile: string): Promise<string>;
   /** Moves a temp file to its content address: fsync, then rename. Idempotent for the same hash. */
@@ -51,6 +53,11 @@ export async function createLocalStorage(dataDir: string): Promise<ImageStorage>
 
   return {
     tempDir,
+    async writeTemp(data) {
+      const file = path.join(tempDir, tempName());
+      await fs.writeFile(file, data);
+      return file;
+    },
     hash(tempFile) {
       return new Promise((resolve, reject) => {
         const hash = createHash('sha256');

@@ -3,6 +3,7 @@ import { roleLabels } from '@emberline/contracts/roles';
 import { LogOut, UserRound } from 'lucide-react';
 import { Link, NavLink, Outlet, useNavigate } from 'react-router-dom';
 import { CautionLine } from '../../components/layout/caution-line';
+import { UploadPanel } from '../../components/layout/upload-panel';
 import { navigation } from '../../config/navigation';
 import { useLogout } from '../../features/auth/api/auth';
 import { useSignedInUser } from '../../features/auth/hooks/use-signed-in-user';
@@ -80,6 +81,7 @@ export function AppShell() {
       <main id="main" className="mx-auto w-full max-w-7xl flex-1 px-6 py-8">
         <Outlet />
       </main>
+      <UploadPanel />
       <CautionLine />
     </div>
   );

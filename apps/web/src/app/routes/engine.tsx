@@ -9,6 +9,7 @@ import { useEngine } from '../../features/fleet/api/engines';
 import { EngineParticulars } from '../../features/fleet/components/engine-particulars';
 import { EngineStatusForm } from '../../features/fleet/components/engine-status-form';
 import { UtilizationPanel } from '../../features/fleet/components/utilization-panel';
+import { InspectionsList } from '../../features/inspections/components/inspections-list';
 
 export function EngineRoute() {
   const { engineId = '' } = useParams();
@@ -51,11 +52,18 @@ export function EngineRoute() {
         <UtilizationPanel engineId={data.id} canManage={can(user.role, 'manage:utilization')} />
       </Panel>
       <Panel>
-        <h2 className="mb-2 text-lg font-semibold">Inspections</h2>
-        <Notice title="Not built yet">
-          Borescope inspections of this engine, with their findings and dispositions, will be listed
-          here. That part of Emberline is not in this version.
-        </Notice>
+        <div className="mb-3 flex items-center justify-between">
+          <h2 className="text-lg font-semibold">Inspections</h2>
+          {can(user.role, 'create:inspection') ? (
+            <Link
+              to={`/fleet/${data.id}/inspections/new`}
+              className="rounded-md bg-ember-600 px-3.5 py-2 text-sm font-medium text-white hover:bg-ember-700"
+            >
+              New inspection
+            </Link>
+          ) : null}
+        </div>
+        <InspectionsList engineId={data.id} />
       </Panel>
     </div>
   );

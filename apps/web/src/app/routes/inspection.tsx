@@ -1,0 +1,107 @@
+import { useState } from 'react';
+import { inspectionReasonLabels, inspectionStateLabels } from '@emberline/contracts/inspections';
+import { can } from '@emberline/contracts/permissions';
+import { ArrowLeft } from 'lucide-react';
+import { Link, useParams } from 'react-router-dom';
+import { Notice } from '../../components/ui/notice';
+import { LoadingLine, PageHeader, Panel } from '../../components/ui/page';
+import { useSignedInUser } from '../../features/auth/hooks/use-signed-in-user';
+import { useEngineModel } from '../../features/engine-models/api/engine-models';
+import { useEngine } from '../../features/fleet/api/engines';
+import { useInspection } from '../../features/inspections/api/inspections';
+import { FlagsPanel } from '../../features/inspections/components/flags-panel';
+import { ImageDrop } from '../../features/inspections/components/image-drop';
+import { ImageStrip } from '../../features/inspections/components/image-strip';
+import { ImageViewer } from '../../features/inspections/components/image-viewer';
+import { VideoFrames } from '../../features/inspections/components/video-frames';
+import { ApiError } from '../../lib/api-client';
+import { formatDate, formatHours } from '../../lib/format';
+
+export function InspectionRoute() {
+  const { inspectionId = '' } = useParams();
+  const user = useSignedInUser();
+  const inspection = useInspection(inspectionId);
+  const engine = useEngine(inspection.data?.engineId ?? '');
+  const model = useEngineModel(engine.data?.modelId ?? null);
+  const [selected, setSelected] = useState(0);
+
+  if (inspection.isPending) return <LoadingLine />;
+  if (inspection.error) {
+    return (
+      <Notice tone="error">
+        {inspection.error instanceof ApiError && inspection.error.status === 404
+          ? 'There is no such inspection, or it is not shared with you.'
+          : inspection.error.message}
+      </Notice>
+    );
+  }
+  const data = inspection.data;
+  const editable = data.state === 'draft' && can(user.role, 'create:inspection');
+  const rows = (model.data?.rows ?? []).filter((row) => data.rows.includes(row.key));
+  const particulars: [string, string][] = [
+    ['Date', formatDate(data.date)],
+    [
+      'Reason',
+      inspectionReasonLabels[data.reason] + (data.reasonDetail ? ` (${data.reasonDetail})` : ''),
+    ],
+    ['CSN / TSN', `${data.csn.toLocaleString('en-GB')} / ${formatHours(data.tsn)} h`],
+    [
+      'Inspector',
+      `${data.inspectorName} · ${data.qualificationRef}, valid to ${formatDate(data.qualificationExpiresOn)}`,
+    ],
+    ['Probe', `${data.probe} · calibration due ${formatDate(data.probeCalibrationDueOn)}`],
+    ['Rows inspected', rows.map((row) => row.label).join(', ') || data.rows.join(', ')],
+  ];
+
+  return (
+    <div className="flex flex-col gap-6">
+      <Link
+        to={`/fleet/${data.engineId}`}
+        className="inline-flex items-center gap-1 text-sm text-ember-800 hover:underline"
+      >
+        <ArrowLeft className="size-4" aria-hidden /> Engine {data.engineSerialNumber}
+      </Link>
+      <PageHeader
+        title={`Inspection of ${data.engineSerialNumber}, ${formatDate(data.date)}`}
+        description={inspectionStateLabels[data.state]}
+      />
+      <Panel>
+        <dl className="grid gap-x-6 gap-y-3 text-sm sm:grid-cols-2 lg:grid-cols-3">
+          {particulars.map(([label, value]) => (
+            <div key={label}>
+              <dt className="text-xs uppercase tracking-wide text-soot-600">{label}</dt>
+              <dd className="mt-0.5 font-medium">{value}</dd>
+            </div>
+          ))}
+        </dl>
+      </Panel>
+      <Panel>
+        <h2 className="mb-3 text-lg font-semibold">Flags</h2>
+        <FlagsPanel inspection={data} canAcknowledge={editable} />
+      </Panel>
+      <Panel className="flex flex-col gap-4">
+        <h2 className="text-lg font-semibold">
+          Images <span className="text-sm font-normal text-soot-600">({data.images.length})</span>
+        </h2>
+        {editable ? <ImageDrop inspectionId={data.id} /> : null}
+        <ImageStrip images={data.images} selected={selected} onSelect={setSelected} />
+        {data.images.length > 0 ? (
+          <ImageViewer
+            images={data.images}
+            index={Math.min(selected, data.images.length - 1)}
+            onIndex={setSelected}
+            rows={rows}
+            inspectionId={data.id}
+            editable={editable}
+          />
+        ) : null}
+      </Panel>
+      {editable ? (
+        <Panel>
+          <h2 className="mb-3 text-lg font-semibold">Frames from a probe video</h2>
+          <VideoFrames inspectionId={data.id} />
+        </Panel>
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,72 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type {
+  Image,
+  ImageTagInput,
+  Inspection,
+  InspectionDetail,
+  InspectionInput,
+} from '@emberline/contracts/inspections';
+import { api } from '../../../lib/api-client';
+
+export const inspectionKeys = {
+  all: ['inspections'] as const,
+  lists: () => [...inspectionKeys.all, 'list'] as const,
+  list: (engineId: string) => [...inspectionKeys.lists(), engineId] as const,
+  detail: (id: string) => [...inspectionKeys.all, 'detail', id] as const,
+};
+
+export const inspectionsQueryOptions = (engineId: string) =>
+  queryOptions({
+    queryKey: inspectionKeys.list(engineId),
+    queryFn: () =>
+      api
+        .get<{ items: Inspection[] }>(`/inspections?engineId=${encodeURIComponent(engineId)}`)
+        .then((body) => body.items),
+  });
+
+export const inspectionQueryOptions = (id: string) =>
+  queryOptions({
+    queryKey: inspectionKeys.detail(id),
+    queryFn: () => api.get<InspectionDetail>(`/inspections/${encodeURIComponent(id)}`),
+  });
+
+export function useInspections(engineId: string) {
+  return useQuery(inspectionsQueryOptions(engineId));
+}
+
+export function useInspection(id: string) {
+  return useQuery(inspectionQueryOptions(id));
+}
+
+export function useCreateInspection() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: InspectionInput) => api.post<InspectionDetail>('/inspections', input),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: inspectionKeys.all }),
+  });
+}
+
+export function useAcknowledgeFlag(id: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ code, note }: { code: string; note: string }) =>
+      api.post<InspectionDetail>(
+        `/inspections/${encodeURIComponent(id)}/flags/${code}/acknowledgement`,
+        { note },
+      ),
+    onSuccess: (detail) => queryClient.setQueryData(inspectionKeys.detail(id), detail),
+  });
+}
+
+export function useTagImage(inspectionId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ imageId, tag }: { imageId: string; tag: ImageTagInput }) =>
+      api.patch<Image>(`/images/${encodeURIComponent(imageId)}`, tag),
+    onSuccess: () =>
+      queryClient.invalidateQueries({ queryKey: inspectionKeys.detail(inspectionId) }),
+  });
+}
+
+export const imageUrl = (id: string, rendition: 'thumbnail' | 'preview' | 'full' | 'original') =>
+  `/api/v1/images/${encodeURIComponent(id)}/${rendition}`;

@@ -1,0 +1,204 @@
+import { useState } from 'react';
+import type { EngineModelRow } from '@emberline/contracts/fleet';
+import type { Image } from '@emberline/contracts/inspections';
+import { TransformComponent, TransformWrapper } from 'react-zoom-pan-pinch';
+import { Button } from '../../../components/ui/button';
+import { Input, Select } from '../../../components/ui/field';
+import { Notice } from '../../../components/ui/notice';
+import { imageUrl, useTagImage } from '../api/inspections';
+
+// Past this zoom the 1600 px preview is coarser than the screen: the full image takes over.
+const FULL_AT_SCALE = 2;
+
+function TagForm({
+  image,
+  rows,
+  inspectionId,
+  editable,
+}: {
+  image: Image;
+  rows: EngineModelRow[];
+  inspectionId: string;
+  editable: boolean;
+}) {
+  const tag = useTagImage(inspectionId);
+  const [rowKey, setRowKey] = useState(image.rowKey ?? '');
+  const [position, setPosition] = useState(image.position ? String(image.position) : '');
+  const row = rows.find((candidate) => candidate.key === rowKey);
+  if (!editable) {
+    return (
+      <p className="text-sm">
+        {image.rowKey
+          ? `Shows ${image.rowKey}, position ${image.position}`
+          : 'Not tagged with a row and position.'}
+      </p>
+    );
+  }
+  return (
+    <form
+      className="flex flex-wrap items-end gap-2"
+      aria-label="Row and position shown"
+      onSubmit={(event) => {
+        event.preventDefault();
+        tag.mutate({
+          imageId: image.id,
+          tag: rowKey ? { rowKey, position: Number(position) } : { rowKey: null, position: null },
+        });
+      }}
+    >
+      <label className="flex flex-col gap-1 text-sm">
+        Row shown
+        <Select value={rowKey} onChange={(event) => setRowKey(event.target.value)}>
+          <option value="">None</option>
+          {rows.map((candidate) => (
+            <option key={candidate.key} value={candidate.key}>
+              {candidate.label}
+            </option>
+          ))}
+        </Select>
+      </label>
+      <label className="flex flex-col gap-1 text-sm">
+        Position {row ? `(1–${row.count})` : ''}
+        <Input
+          type="number"
+          min={1}
+          max={row?.count}
+          value={position}
+          onChange={(event) => setPosition(event.target.value)}
+          className="w-24"
+          disabled={!rowKey}
+        />
+      </label>
+      <Button type="submit" variant="secondary" busy={tag.isPending}>
+        Save tag
+      </Button>
+      {tag.error ? <Notice tone="error">{tag.error.message}</Notice> : null}
+    </form>
+  );
+}
+
+export function ImageViewer({
+  images,
+  index,
+  onIndex,
+  rows,
+  inspectionId,
+  editable,
+}: {
+  images: Image[];
+  index: number;
+  onIndex: (index: number) => void;
+  rows: EngineModelRow[];
+  inspectionId: string;
+  editable: boolean;
+}) {
+  const image = images[index];
+  const [deep, setDeep] = useState<Record<string, boolean>>({});
+  if (!image) return null;
+  const full = deep[image.id] ?? false;
+  const go = (step: number) => onIndex((index + step + images.length) % images.length);
+  return (
+    <section
+      aria-label="Image viewer"
+      tabIndex={0}
+      onKeyDown={(event) => {
+        if (event.key === 'ArrowRight') {
+          event.preventDefault();
+          go(1);
+        } else if (event.key === 'ArrowLeft') {
+          event.preventDefault();
+          go(-1);
+        }
+      }}
+      className="flex flex-col gap-3 rounded-lg border border-soot-200 bg-soot-950 p-3 text-soot-100 focus-visible:outline-2"
+    >
+      <div className="flex flex-wrap items-center justify-between gap-2 text-sm">
+        <p>
+          <span className="font-medium">{image.originalName}</span> · {image.width}×{image.height}{' '}
+          px · image {index + 1} of {images.length}
+          {image.videoFileName
+            ? ` · frame at ${image.videoTimeSeconds?.toFixed(2)} s of ${image.videoFileName}`
+            : ''}
+        </p>
+        <div className="flex gap-2">
+          <button
+            type="button"
+            className="rounded border border-soot-600 px-2 py-1 hover:bg-soot-800"
+            onClick={() => go(-1)}
+            aria-label="Previous image (left arrow)"
+          >
+            ←
+          </button>
+          <button
+            type="button"
+            className="rounded border border-soot-600 px-2 py-1 hover:bg-soot-800"
+            onClick={() => go(1)}
+            aria-label="Next image (right arrow)"
+          >
+            →
+          </button>
+        </div>
+      </div>
+      <TransformWrapper
+        key={image.id}
+        minScale={1}
+        maxScale={16}
+        doubleClick={{ step: 1.5 }}
+        onTransform={(_ref, state) => {
+          if (state.scale >= FULL_AT_SCALE && !full) setDeep({ ...deep, [image.id]: true });
+        }}
+      >
+        {({ zoomIn, zoomOut, resetTransform }) => (
+          <>
+            <div className="flex gap-2 text-xs">
+              <button
+                type="button"
+                className="rounded border border-soot-600 px-2 py-1 hover:bg-soot-800"
+                onClick={() => zoomIn(1)}
+              >
+                Zoom in
+              </button>
+              <button
+                type="button"
+                className="rounded border border-soot-600 px-2 py-1 hover:bg-soot-800"
+                onClick={() => zoomOut(1)}
+              >
+                Zoom out
+              </button>
+              <button
+                type="button"
+                className="rounded border border-soot-600 px-2 py-1 hover:bg-soot-800"
+                onClick={() => resetTransform()}
+              >
+                Fit
+              </button>
+              <span className="self-center text-soot-300" data-testid="viewer-resolution">
+                {full ? 'Full resolution' : 'Preview'}
+              </span>
+            </div>
+            <TransformComponent
+              wrapperClass="!w-full !h-[60vh] bg-black rounded"
+              contentClass="!w-full !h-full flex items-center justify-center"
+            >
+              <img
+                src={imageUrl(image.id, full ? 'full' : 'preview')}
+                alt={`${image.originalName}${image.rowKey ? `, ${image.rowKey} position ${image.position}` : ''}`}
+                className="max-h-[60vh] max-w-full object-contain"
+                draggable={false}
+              />
+            </TransformComponent>
+          </>
+        )}
+      </TransformWrapper>
+      <div className="rounded bg-white p-3 text-soot-900">
+        <TagForm
+          key={image.id}
+          image={image}
+          rows={rows}
+          inspectionId={inspectionId}
+          editable={editable}
+        />
+      </div>
+    </section>
+  );
+}
