@@ -2,6 +2,7 @@
 // same run where the ceiling is a measurement. Run after `pnpm build`.
 import { benchEngineList } from './engine-list';
 import { benchEvaluation } from './evaluation';
+import { benchIngest } from './ingest';
 import { benchInitialJavaScript } from './initial-javascript';
 import { benchSessionCheck } from './session-check';
 
@@ -10,6 +11,7 @@ const results = [
   ...(await benchEvaluation()),
   await benchSessionCheck(),
   await benchEngineList(),
+  ...(await benchIngest()),
 ];
 
 console.log(`\n${'benchmark'.padEnd(50)}${'figure'.padEnd(16)}${'ceiling'.padEnd(22)}within`);

@@ -1,53 +1,18 @@
-import { spawn, type ChildProcess } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import Database from 'better-sqlite3';
 import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
+import { freePort, signInCookie, startServerProcess } from '../../scripts/lib/server-process';
 
 // QUALITY §3 kill test: concurrent uploads, the server killed (SIGKILL) at a random moment and
 // restarted, 20 rounds; every acknowledged upload must survive, and nothing may be left orphaned.
 
 const ROUNDS = 20;
 const UPLOADS_PER_ROUND = 4;
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = net.createServer();
-    server.listen(0, '127.0.0.1', () => {
-      const { port } = server.address() as net.AddressInfo;
-      server.close(() => resolve(port));
-    });
-    server.on('error', reject);
-  });
-}
-
-async function startServer(dataDir: string, port: number): Promise<ChildProcess> {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'apps/server/src/server.ts'], {
-    env: {
-      ...process.env,
-      PORT: String(port),
-      DATA_DIR: dataDir,
-      LOG_LEVEL: 'error',
-      BCRYPT_COST: '10',
-      NODE_ENV: 'production',
-    },
-    stdio: ['ignore', 'ignore', 'inherit'],
-  });
-  for (let attempt = 0; attempt < 200; attempt += 1) {
-    try {
-      if ((await fetch(`http://127.0.0.1:${port}/api/v1/health`)).ok) return child;
-    } catch {
-      // not up yet
-    }
-    await new Promise((resolve) => setTimeout(resolve, 50));
-  }
-  child.kill('SIGKILL');
-  throw new Error('the server did not start');
-}
 
 function kill(child: ChildProcess): Promise<void> {
   return new Promise((resolve) => {
@@ -64,13 +29,8 @@ describe('uploads survive a killed server', () => {
     const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'emberline-kill-'));
     const port = await freePort();
     const base = `http://127.0.0.1:${port}/api/v1`;
-    let server = await startServer(dataDir, port);
-    const login = await fetch(`${base}/auth/login`, {
-      method: 'POST',
-      headers: { 'Content-Type': 'application/json' },
-      body: JSON.stringify({ email: 'inspector@demo.test', password: 'emberline-demo' }),
-    });
-    const cookie = (login.headers.get('set-cookie') ?? '').split(';')[0]!;
+    let server = await startServerProcess(dataDir, port, { FROM_SOURCES: '1' });
+    const cookie = await signInCookie(base, 'inspector@demo.test');
     const today = new Date().toISOString().slice(0, 10);
     const created = await fetch(`${base}/inspections`, {
       method: 'POST',
@@ -135,7 +95,7 @@ describe('uploads survive a killed server', () => {
       await new Promise((resolve) => setTimeout(resolve, 30 + Math.random() * 400));
       await kill(server);
       await Promise.all(inFlight);
-      server = await startServer(dataDir, port);
+      server = await startServerProcess(dataDir, port, { FROM_SOURCES: '1' });
 
       for (const [id, hash] of acknowledged) {
         const thumbnail = await fetch(`${base}/images/${id}/thumbnail`, { headers: { cookie } });
@@ -151,7 +111,7 @@ describe('uploads survive a killed server', () => {
     }
     await kill(server);
     // The restart after the last kill swept; a last start and stop checks nothing is left over.
-    server = await startServer(dataDir, port);
+    server = await startServerProcess(dataDir, port, { FROM_SOURCES: '1' });
     await kill(server);
 
     const db = new Database(path.join(dataDir, 'emberline.sqlite'));

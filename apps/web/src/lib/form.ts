@@ -43,3 +43,6 @@ export function applyServerErrors<T extends FieldValues>(
   }
   return placed ? (fieldErrors?.form[0] ?? '') : error.message;
 }
+
+/** For an optional text input whose contract value is null when left empty. */
+export const emptyToNull = (value: unknown) => (value === '' ? null : value);

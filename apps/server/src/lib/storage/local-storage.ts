@@ -1,5 +1,5 @@
 import { createHash, randomBytes } from 'node:crypto';
-import { createReadStream } from 'node:fs';
+import { createReadStream, createWriteStream } from 'node:fs';
 import fs from 'node:fs/promises';
 import path from 'node:path';
 
@@ -9,6 +9,8 @@ import path from 'node:path';
  */
 export interface ImageStorage {
   tempDir: string;
+  /** Streams an upload into a new temp file, hashing it on the way: one pass over the bytes. */
+  receive(stream: NodeJS.ReadableStream): Promise<{ path: string; size: number; sha256: string }>;
   /** Writes bytes to a new temp file (for images made on the server, such as the demo's). */
   writeTemp(data: Buffer): Promise<string>;
   /** Hashes a finished temp file (SHA-256 of its bytes). */
@@ -53,6 +55,25 @@ export async function createLocalStorage(dataDir: string): Promise<ImageStorage>
 
   return {
     tempDir,
+    receive(stream) {
+      const file = path.join(tempDir, tempName());
+      const hash = createHash('sha256');
+      let size = 0;
+      return new Promise((resolve, reject) => {
+        const out = createWriteStream(file);
+        stream.on('data', (chunk: Buffer) => {
+          hash.update(chunk);
+          size += chunk.length;
+        });
+        stream.on('error', (error) => {
+          out.destroy();
+          reject(error);
+        });
+        out.on('error', reject);
+        out.on('finish', () => resolve({ path: file, size, sha256: hash.digest('hex') }));
+        stream.pipe(out);
+      });
+    },
     async writeTemp(data) {
       const file = path.join(tempDir, tempName());
       await fs.writeFile(file, data);

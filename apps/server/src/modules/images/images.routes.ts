@@ -12,8 +12,8 @@ import { AppError } from '../../http/app-error';
 import { principalOf } from '../../http/principal';
 import { requestMeta } from '../../http/request-meta';
 import { route } from '../../http/route';
-import { tempName } from '../../lib/storage/local-storage';
 import { createImagesService, displayName, type FrameSource } from './images.service';
+import { hashingStorage, type ReceivedFile } from './upload-storage';
 
 export const UPLOAD_LIMITS = {
   fileSize: 64 * 1024 * 1024,
@@ -66,10 +66,7 @@ export function imagesRoutes(ctx: AppContext): Router {
   const router = Router();
   const images = createImagesService(ctx);
   const upload = multer({
-    storage: multer.diskStorage({
-      destination: ctx.storage.tempDir,
-      filename: (_req, _file, done) => done(null, tempName()),
-    }),
+    storage: hashingStorage(ctx.storage),
     limits: UPLOAD_LIMITS,
   });
   const beforeBytes: RequestHandler = (req, res, next) => {
@@ -101,7 +98,7 @@ export function imagesRoutes(ctx: AppContext): Router {
               videoTimeSeconds: fields.data.videoTimeSeconds,
             }
           : null;
-      const files = (req.files as Express.Multer.File[] | undefined) ?? [];
+      const files = (req.files as ReceivedFile[] | undefined) ?? [];
       const { status, body } = await images.upload(
         principalOf(res),
         res.locals.params.id,

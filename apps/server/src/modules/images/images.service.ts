@@ -29,6 +29,8 @@ export interface UploadedFile {
   path: string;
   originalname: string;
   size: number;
+  /** Computed while the upload was written. */
+  sha256: string;
 }
 
 export interface FrameSource {
@@ -60,8 +62,8 @@ export function createImagesService(ctx: AppContext) {
   ): Promise<Image | RejectedFile> {
     const filename = displayName(file.originalname);
     try {
-      const processed = await processImageQueued(file.path);
-      const sha256 = await storage.hash(file.path);
+      // Hashed while it arrived: a duplicate costs no decode.
+      const { sha256 } = file;
       const existing = findImageBySha(db, inspectionId, sha256);
       if (existing || seen.has(sha256)) {
         await storage.discard(file.path);
@@ -73,6 +75,7 @@ export function createImagesService(ctx: AppContext) {
         };
       }
       seen.add(sha256);
+      const processed = await processImageQueued(file.path);
       // The original is in place (fsync, rename) before its record commits.
       await storage.commitOriginal(file.path, sha256);
       const id = newId();

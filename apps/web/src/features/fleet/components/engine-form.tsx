@@ -10,10 +10,8 @@ import type { Organisation } from '@emberline/contracts/organisations';
 import { Button } from '../../../components/ui/button';
 import { Field, Input, Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
-import { applyServerErrors, useZodForm } from '../../../lib/form';
+import { applyServerErrors, emptyToNull, useZodForm } from '../../../lib/form';
 import { useCreateEngine } from '../api/engines';
-
-const emptyToNull = (value: unknown) => (value === '' ? null : value);
 
 export function EngineForm({
   models,

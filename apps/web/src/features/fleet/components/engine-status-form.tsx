@@ -8,10 +8,8 @@ import {
 import { Button } from '../../../components/ui/button';
 import { Field, Input, Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
-import { applyServerErrors, useZodForm } from '../../../lib/form';
+import { applyServerErrors, emptyToNull, useZodForm } from '../../../lib/form';
 import { useUpdateEngine } from '../api/engines';
-
-const emptyToNull = (value: unknown) => (value === '' ? null : value);
 
 /** Where the engine is: status, aircraft and position, which change at removal and installation. */
 export function EngineStatusForm({ engine }: { engine: EngineDetail }) {

@@ -1,0 +1,172 @@
+import { execFileSync } from 'node:child_process';
+import fs from 'node:fs';
+import http from 'node:http';
+import os from 'node:os';
+import path from 'node:path';
+import sharp from 'sharp';
+import { freePort, signInCookie, startServerProcess } from '../lib/server-process';
+import { peakRssBytes } from './memory';
+
+const IMAGES = Number(process.env.BENCH_INGEST_IMAGES ?? 200);
+/** Pipelines in flight: the server's bounded queue runs two, and so does the raw pipeline. */
+const PARALLEL = 2;
+/** Requests the client keeps open, so that an upload in transfer never leaves a pipeline idle. */
+const REQUESTS_IN_FLIGHT = Number(process.env.BENCH_REQUESTS ?? 4);
+
+/** Distinct 12 MP JPEGs: one noise field, each with its own band, so that no two are the same. */
+async function makeImages(directory: string): Promise<void> {
+  const width = 4000;
+  const height = 3000;
+  // Sensor-like noise of a dim scene; heavy noise would make every rendition a worst case no probe shows.
+  const noise = await sharp({
+    create: {
+      width,
+      height,
+      channels: 3,
+      background: '#553311',
+      noise: { type: 'gaussian', mean: 90, sigma: 12 },
+    },
+  })
+    .raw()
+    .toBuffer();
+  for (let index = 0; index < IMAGES; index += 1) {
+    const band = Buffer.alloc(width * 3 * 8, (index * 37) % 256);
+    band.copy(noise, (index % (height - 8)) * width * 3);
+    await sharp(noise, { raw: { width, height, channels: 3 } })
+      .jpeg({ quality: 88 })
+      .toFile(path.join(directory, `still-${String(index).padStart(3, '0')}.jpg`));
+  }
+}
+
+/**
+ * One multipart upload with a plain HTTP request: the body is the file between two short
+ * boundaries, so that the client itself takes next to no CPU from the server it measures.
+ */
+function postImage(
+  port: number,
+  agent: http.Agent,
+  cookie: string,
+  inspectionId: string,
+  file: string,
+): Promise<number> {
+  const boundary = `----emberline${Math.random().toString(16).slice(2)}`;
+  const head = Buffer.from(
+    `--${boundary}\r\nContent-Disposition: form-data; name="files"; filename="${path.basename(file)}"\r\nContent-Type: image/jpeg\r\n\r\n`,
+  );
+  const tail = Buffer.from(`\r\n--${boundary}--\r\n`);
+  const body = fs.readFileSync(file);
+  return new Promise((resolve, reject) => {
+    const request = http.request(
+      {
+        host: '127.0.0.1',
+        port,
+        method: 'POST',
+        path: `/api/v1/inspections/${inspectionId}/images`,
+        agent,
+        headers: {
+          cookie,
+          'Content-Type': `multipart/form-data; boundary=${boundary}`,
+          'Content-Length': head.length + body.length + tail.length,
+        },
+      },
+      (response) => {
+        response.resume();
+        response.on('end', () => resolve(response.statusCode ?? 0));
+      },
+    );
+    request.on('error', reject);
+    request.write(head);
+    request.write(body);
+    request.end(tail);
+  });
+}
+
+/**
+ * Ingest of 12 MP JPEGs through the HTTP API (one file a request, four requests open, two pipelines
+ * in the server) beside the raw pipeline making the same renditions two at a time, and the peak memory of each
+ * process for the same job (QUALITY §4: throughput ≥ 0.85 × raw, peak RSS ≤ 1.3 × raw).
+ */
+export async function benchIngest() {
+  const images = fs.mkdtempSync(path.join(os.tmpdir(), 'emberline-ingest-'));
+  await makeImages(images);
+  const files = fs.readdirSync(images).map((name) => path.join(images, name));
+
+  // The ceiling is the better of two runs: the first may meet the new files still being written out.
+  const rawRun = () =>
+    JSON.parse(
+      execFileSync(
+        process.execPath,
+        ['--import', 'tsx', 'scripts/bench/raw-pipeline-worker.ts', images, String(PARALLEL)],
+        { encoding: 'utf8', maxBuffer: 1 << 20 },
+      ),
+    ) as {
+      images: number;
+      seconds: number;
+      peakRss: number;
+    };
+  const runs = [rawRun(), rawRun()];
+  const raw = runs[0]!.seconds <= runs[1]!.seconds ? runs[0]! : runs[1]!;
+
+  const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'emberline-ingest-data-'));
+  const port = await freePort();
+  const profile = process.env.BENCH_SERVER_PROFILE
+    ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_SERVER_PROFILE}`]
+    : [];
+  const server = await startServerProcess(dataDir, port, {}, profile);
+  const base = `http://127.0.0.1:${port}/api/v1`;
+  const cookie = await signInCookie(base, 'inspector@demo.test');
+  const created = await fetch(`${base}/inspections`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json', cookie },
+    body: JSON.stringify({
+      engineId: 'engine-d0103',
+      date: new Date().toISOString().slice(0, 10),
+      reason: 'scheduled',
+      csn: 9455,
+      tsn: 13237,
+      inspectorName: 'Bench',
+      qualificationRef: 'Q',
+      qualificationExpiresOn: '2099-01-01',
+      probe: 'P',
+      probeCalibrationDueOn: '2099-01-01',
+      rows: ['hpt1-blade'],
+    }),
+  });
+  const { id } = (await created.json()) as { id: string };
+  const started = performance.now();
+  let next = 0;
+  const agent = new http.Agent({ keepAlive: true, maxSockets: REQUESTS_IN_FLIGHT });
+  await Promise.all(
+    Array.from({ length: REQUESTS_IN_FLIGHT }, async () => {
+      while (next < files.length) {
+        const file = files[next++]!;
+        const status = await postImage(port, agent, cookie, id, file);
+        if (status !== 201) throw new Error(`upload answered ${status}`);
+      }
+    }),
+  );
+  agent.destroy();
+  const apiSeconds = (performance.now() - started) / 1000;
+  const serverPeak = peakRssBytes(server.pid!);
+  server.kill('SIGTERM');
+  fs.rmSync(images, { recursive: true, force: true });
+  fs.rmSync(dataDir, { recursive: true, force: true });
+
+  const apiRate = files.length / apiSeconds;
+  const rawRate = raw.images / raw.seconds;
+  const mb = (bytes: number) => `${Math.round(bytes / 1024 / 1024)} MB`;
+  return [
+    {
+      name: `ingest ${files.length} × 12 MP JPEG via API (img/s)`,
+      figure: apiRate.toFixed(1),
+      ceiling: `${rawRate.toFixed(1)} (raw sharp)`,
+      ok: apiRate >= 0.85 * rawRate,
+    },
+    {
+      name: `peak RSS ingesting ${files.length} × 12 MP`,
+      figure: mb(serverPeak),
+      ceiling: `${mb(raw.peakRss)} (raw sharp)`,
+      ok: serverPeak > 0 && serverPeak <= 1.3 * raw.peakRss,
+    },
+  ];
+}

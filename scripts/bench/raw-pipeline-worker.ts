@@ -1,0 +1,25 @@
+// The raw pipeline of the ingest benchmark, in a process of its own so that its peak memory is its
+// own: the same renditions (lib/images), the same parallelism, no HTTP, no database.
+import fs from 'node:fs';
+import path from 'node:path';
+import { processImage } from '../../apps/server/src/lib/images/image-pipeline';
+import { peakRssBytes } from './memory';
+
+const [directory, parallelText] = process.argv.slice(2);
+const files = fs.readdirSync(directory!).map((name) => path.join(directory!, name));
+const parallel = Number(parallelText ?? 2);
+
+const started = performance.now();
+let next = 0;
+await Promise.all(
+  Array.from({ length: parallel }, async () => {
+    while (next < files.length) {
+      const file = files[next++]!;
+      await processImage(file);
+    }
+  }),
+);
+const seconds = (performance.now() - started) / 1000;
+process.stdout.write(
+  JSON.stringify({ images: files.length, seconds, peakRss: peakRssBytes(process.pid) }),
+);

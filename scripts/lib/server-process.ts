@@ -1,0 +1,69 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import fs from 'node:fs';
+import net from 'node:net';
+
+/** A port on 127.0.0.1 that nothing listens on now. */
+export function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const server = net.createServer();
+    server.listen(0, '127.0.0.1', () => {
+      const { port } = server.address() as net.AddressInfo;
+      server.close(() => resolve(port));
+    });
+    server.on('error', reject);
+  });
+}
+
+/**
+ * Starts the server as a process of its own (the built bundle when there is one, the sources
+ * otherwise) and waits until it answers /health.
+ */
+export async function startServerProcess(
+  dataDir: string,
+  port: number,
+  env: Record<string, string> = {},
+  nodeArgs: string[] = [],
+): Promise<ChildProcess> {
+  const entry =
+    fs.existsSync('apps/server/dist/server.js') && !env.FROM_SOURCES
+      ? ['apps/server/dist/server.js']
+      : ['--import', 'tsx', 'apps/server/src/server.ts'];
+  const child = spawn(process.execPath, [...nodeArgs, ...entry], {
+    env: {
+      ...process.env,
+      PORT: String(port),
+      DATA_DIR: dataDir,
+      LOG_LEVEL: 'error',
+      BCRYPT_COST: '10',
+      DEMO_IMAGES: '0',
+      NODE_ENV: 'production',
+      ...env,
+    },
+    stdio: ['ignore', 'ignore', 'inherit'],
+  });
+  for (let attempt = 0; attempt < 300; attempt += 1) {
+    try {
+      if ((await fetch(`http://127.0.0.1:${port}/api/v1/health`)).ok) return child;
+    } catch {
+      // not up yet
+    }
+    await new Promise((resolve) => setTimeout(resolve, 50));
+  }
+  child.kill('SIGKILL');
+  throw new Error('the server did not start');
+}
+
+/** Signs in through the API and returns the session cookie ("name=value"). */
+export async function signInCookie(
+  base: string,
+  email: string,
+  password = 'emberline-demo',
+): Promise<string> {
+  const response = await fetch(`${base}/auth/login`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ email, password }),
+  });
+  if (!response.ok) throw new Error(`sign-in of ${email} answered ${response.status}`);
+  return (response.headers.get('set-cookie') ?? '').split(';')[0]!;
+}
