@@ -105,6 +105,10 @@ test('the inspector opens an inspection, drops 20 images, browses and zooms them
   });
   await page.getByTestId('image-strip').getByRole('button').last().click();
   await expect(viewer).toContainText('of bp3-sweep.webm');
+
+  await page.getByRole('button', { name: 'Submit for review' }).click();
+  await expect(page.getByText('Submitted for review', { exact: true })).toBeVisible();
+  await expect(page.getByLabel('Images to upload')).toHaveCount(0);
 });
 
 test('a video the browser cannot play is refused with what to convert it to', async ({ page }) => {

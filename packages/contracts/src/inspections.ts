@@ -143,6 +143,8 @@ export const inspectionSchema = z.object({
   state: inspectionStateSchema,
   flags: z.array(inspectionFlagSchema),
   imageCount: z.number().int(),
+  /** Why an engineer sent it back to draft, until it is submitted again. */
+  returnedReason: z.string().nullable(),
   createdAt: z.string(),
 });
 export type Inspection = z.infer<typeof inspectionSchema>;
@@ -154,3 +156,12 @@ export const inspectionListQuerySchema = z.strictObject({
   engineId: z.string().max(64).optional(),
 });
 export const inspectionListResponseSchema = z.object({ items: z.array(inspectionSchema) });
+
+export const returnToDraftInputSchema = z.strictObject({
+  reason: z
+    .string()
+    .trim()
+    .min(5, { message: 'Say what the inspector should look at again' })
+    .max(1000),
+});
+export type ReturnToDraftInput = z.infer<typeof returnToDraftInputSchema>;

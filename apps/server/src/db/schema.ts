@@ -253,6 +253,8 @@ export const inspections = sqliteTable(
     rows: text({ mode: 'json' }).notNull().$type<string[]>(),
     state: text({ enum: ['draft', 'submitted', 'dispositioned', 'released'] }).notNull(),
     flags: text({ mode: 'json' }).notNull().$type<StoredFlag[]>(),
+    /** Why an engineer last sent it back to draft; cleared when it is submitted again. */
+    returnedReason: text(),
     createdBy: text()
       .notNull()
       .references(() => users.id),

@@ -46,6 +46,8 @@ export const routePolicy = {
   'POST /inspections': 'create:inspection',
   'GET /inspections/:id': 'read:inspection',
   'POST /inspections/:id/flags/:code/acknowledgement': 'create:inspection',
+  'POST /inspections/:id/submission': 'create:inspection',
+  'POST /inspections/:id/return': 'review:inspection',
   'POST /inspections/:id/images': 'create:inspection',
   'PATCH /images/:id': 'create:inspection',
   'GET /images/:id/thumbnail': 'read:inspection',

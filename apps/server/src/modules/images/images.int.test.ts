@@ -375,3 +375,84 @@ describe('inspections', () => {
     ).toBe(403);
   });
 });
+
+describe('submission and return to draft', () => {
+  it('blocks submission while a flag is open, locks images once submitted, and lets an engineer send it back', async () => {
+    const created = await request(t.app)
+      .post('/api/v1/inspections')
+      .set('Cookie', inspector)
+      .send({ ...inspection, qualificationExpiresOn: '2026-01-31' });
+    const id = created.body.id as string;
+    expect(created.body.flags.map((flag: { code: string }) => flag.code)).toEqual([
+      'qualification-expired',
+    ]);
+    await upload(
+      [{ name: 'first.jpg', data: await solid(333, 222).jpeg().toBuffer() }],
+      inspector,
+      () => id,
+    );
+
+    const blocked = await request(t.app)
+      .post(`/api/v1/inspections/${id}/submission`)
+      .set('Cookie', inspector)
+      .send({});
+    expect(blocked.status).toBe(409);
+    expect(blocked.body.error.message).toMatch(/Acknowledge the flag before submitting/);
+    await request(t.app)
+      .post(`/api/v1/inspections/${id}/flags/qualification-expired/acknowledgement`)
+      .set('Cookie', inspector)
+      .send({ note: 'Renewal DEMO-REN-3 issued on 2026-05-02' });
+    const submitted = await request(t.app)
+      .post(`/api/v1/inspections/${id}/submission`)
+      .set('Cookie', inspector)
+      .send({});
+    expect(submitted.status).toBe(200);
+    expect(submitted.body.state).toBe('submitted');
+
+    const locked = await upload(
+      [{ name: 'late.jpg', data: await solid(334, 222).jpeg().toBuffer() }],
+      inspector,
+      () => id,
+    );
+    expect(locked.status).toBe(409);
+    expect(
+      (
+        await request(t.app)
+          .post(`/api/v1/inspections/${id}/return`)
+          .set('Cookie', inspector)
+          .send({ reason: 'Look again at blade 12' })
+      ).status,
+    ).toBe(403);
+
+    const engineer = await t.signIn(demoAccounts.engineer);
+    const returned = await request(t.app)
+      .post(`/api/v1/inspections/${id}/return`)
+      .set('Cookie', engineer)
+      .send({ reason: 'Look again at blade 12' });
+    expect(returned.status).toBe(200);
+    expect(returned.body).toMatchObject({
+      state: 'draft',
+      returnedReason: 'Look again at blade 12',
+    });
+    expect(
+      (
+        await request(t.app)
+          .post(`/api/v1/inspections/${id}/return`)
+          .set('Cookie', engineer)
+          .send({ reason: 'Again please' })
+      ).status,
+    ).toBe(409);
+  });
+
+  it('refuses to submit an inspection without images', async () => {
+    const created = await request(t.app)
+      .post('/api/v1/inspections')
+      .set('Cookie', inspector)
+      .send(inspection);
+    const response = await request(t.app)
+      .post(`/api/v1/inspections/${created.body.id}/submission`)
+      .set('Cookie', inspector)
+      .send({});
+    expect(response.status).toBe(422);
+  });
+});

@@ -55,6 +55,15 @@ export function insertInspection(db: DbOrTx, row: typeof inspections.$inferInser
   db.insert(inspections).values(row).run();
 }
 
+export function setInspectionState(
+  db: DbOrTx,
+  id: string,
+  state: InspectionRecord['state'],
+  returnedReason: string | null,
+): void {
+  db.update(inspections).set({ state, returnedReason }).where(eq(inspections.id, id)).run();
+}
+
 export function updateInspectionFlags(
   db: DbOrTx,
   id: string,

@@ -6,6 +6,7 @@ import {
   inspectionInputSchema,
   inspectionListQuerySchema,
   inspectionListResponseSchema,
+  returnToDraftInputSchema,
 } from '@emberline/contracts/inspections';
 import { z } from 'zod';
 import { idParamsSchema } from '@emberline/contracts/users';
@@ -75,6 +76,40 @@ export function inspectionsRoutes(ctx: AppContext): Router {
           res.locals.params.id,
           res.locals.params.code,
           res.locals.body.note,
+          requestMeta(req),
+        ),
+      );
+    },
+  );
+
+  route(
+    router,
+    'POST /inspections/:id/submission',
+    {
+      summary: 'Submit a draft for review; every flag must be acknowledged',
+      params: idParamsSchema,
+      response: inspectionDetailSchema,
+    },
+    (req, res) => {
+      res.json(inspections.submit(principalOf(res), res.locals.params.id, requestMeta(req)));
+    },
+  );
+
+  route(
+    router,
+    'POST /inspections/:id/return',
+    {
+      summary: 'Send a submitted inspection back to draft, with the reason',
+      params: idParamsSchema,
+      body: returnToDraftInputSchema,
+      response: inspectionDetailSchema,
+    },
+    (req, res) => {
+      res.json(
+        inspections.returnToDraft(
+          principalOf(res),
+          res.locals.params.id,
+          res.locals.body.reason,
           requestMeta(req),
         ),
       );

@@ -23,6 +23,7 @@ import {
   findInspection,
   insertInspection,
   listInspections,
+  setInspectionState,
   updateInspectionFlags,
   type InspectionRow,
 } from './inspections.repository';
@@ -47,6 +48,7 @@ export function toInspection(row: InspectionRow): Inspection {
     state: row.state,
     flags: row.flags as InspectionFlag[],
     imageCount: row.imageCount,
+    returnedReason: row.returnedReason,
     createdAt: row.createdAt.toISOString(),
   };
 }
@@ -153,6 +155,66 @@ export function createInspectionsService(ctx: AppContext) {
         });
       });
       return this.detail(principal, findInspection(db, id)!.id);
+    },
+
+    /** Sends a draft for review; every flag must be acknowledged first. Its images lock. */
+    submit(principal: Principal, id: string, meta: RequestMeta): InspectionDetail {
+      const inspection = draftInspection(db, principal, id);
+      const open = inspection.flags.filter((flag) => !flag.acknowledgedAt);
+      if (open.length > 0) {
+        throw AppError.conflict(
+          `Acknowledge ${open.length === 1 ? 'the flag' : `the ${open.length} flags`} before submitting: ${open.map((flag) => flag.message).join(' ')}`,
+          {
+            flags: open.map((flag) => flag.code),
+          },
+        );
+      }
+      if (inspection.imageCount === 0)
+        throw AppError.unprocessable(
+          'An inspection goes for review with its images: upload at least one first.',
+        );
+      const now = ctx.now();
+      inTransaction(db, (tx) => {
+        setInspectionState(tx, id, 'submitted', null);
+        appendAudit(tx, now, {
+          actorUserId: principal.user.id,
+          action: 'inspection.submitted',
+          entityType: 'inspection',
+          entityId: id,
+          before: { state: 'draft' },
+          after: { state: 'submitted' },
+          requestId: meta.requestId,
+          ip: meta.ip,
+        });
+      });
+      return this.detail(principal, id);
+    },
+
+    /** An engineer sends a submitted inspection back to draft, saying why. */
+    returnToDraft(
+      principal: Principal,
+      id: string,
+      reason: string,
+      meta: RequestMeta,
+    ): InspectionDetail {
+      const inspection = visibleInspection(db, principal, id);
+      if (inspection.state !== 'submitted')
+        throw AppError.conflict('Only a submitted inspection can be sent back to draft.');
+      const now = ctx.now();
+      inTransaction(db, (tx) => {
+        setInspectionState(tx, id, 'draft', reason);
+        appendAudit(tx, now, {
+          actorUserId: principal.user.id,
+          action: 'inspection.returned-to-draft',
+          entityType: 'inspection',
+          entityId: id,
+          before: { state: 'submitted' },
+          after: { state: 'draft', reason },
+          requestId: meta.requestId,
+          ip: meta.ip,
+        });
+      });
+      return this.detail(principal, id);
     },
   };
 }

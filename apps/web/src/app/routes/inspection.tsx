@@ -13,6 +13,7 @@ import { FlagsPanel } from '../../features/inspections/components/flags-panel';
 import { ImageDrop } from '../../features/inspections/components/image-drop';
 import { ImageStrip } from '../../features/inspections/components/image-strip';
 import { ImageViewer } from '../../features/inspections/components/image-viewer';
+import { ReviewActions } from '../../features/inspections/components/review-actions';
 import { VideoFrames } from '../../features/inspections/components/video-frames';
 import { ApiError } from '../../lib/api-client';
 import { formatDate, formatHours } from '../../lib/format';
@@ -78,6 +79,13 @@ export function InspectionRoute() {
       <Panel>
         <h2 className="mb-3 text-lg font-semibold">Flags</h2>
         <FlagsPanel inspection={data} canAcknowledge={editable} />
+        <div className="mt-4 border-t border-soot-200 pt-4">
+          <ReviewActions
+            inspection={data}
+            canSubmit={can(user.role, 'create:inspection')}
+            canReturn={can(user.role, 'review:inspection')}
+          />
+        </div>
       </Panel>
       <Panel className="flex flex-col gap-4">
         <h2 className="text-lg font-semibold">

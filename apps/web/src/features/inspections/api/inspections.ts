@@ -70,3 +70,27 @@ export function useTagImage(inspectionId: string) {
 
 export const imageUrl = (id: string, rendition: 'thumbnail' | 'preview' | 'full' | 'original') =>
   `/api/v1/images/${encodeURIComponent(id)}/${rendition}`;
+
+export function useSubmitInspection(id: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: () =>
+      api.post<InspectionDetail>(`/inspections/${encodeURIComponent(id)}/submission`),
+    onSuccess: (detail) => {
+      queryClient.setQueryData(inspectionKeys.detail(id), detail);
+      void queryClient.invalidateQueries({ queryKey: inspectionKeys.lists() });
+    },
+  });
+}
+
+export function useReturnInspection(id: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (reason: string) =>
+      api.post<InspectionDetail>(`/inspections/${encodeURIComponent(id)}/return`, { reason }),
+    onSuccess: (detail) => {
+      queryClient.setQueryData(inspectionKeys.detail(id), detail);
+      void queryClient.invalidateQueries({ queryKey: inspectionKeys.lists() });
+    },
+  });
+}

@@ -1,0 +1,1 @@
+ALTER TABLE `inspections` ADD `returned_reason` text;
