@@ -38,7 +38,7 @@ export function AppShell() {
                   <NavLink
                     to={item.to}
                     className={({ isActive }) =>
-                      `block rounded-md px-3 py-1.5 text-sm font-medium ${isActive ? 'bg-ember-600 text-white' : 'text-soot-200 hover:bg-soot-800 hover:text-white'}`
+                      `block rounded-md px-3 py-1.5 text-sm font-medium ${isActive ? 'bg-ember-700 text-white' : 'text-soot-200 hover:bg-soot-800 hover:text-white'}`
                     }
                   >
                     {item.label}

@@ -57,7 +57,7 @@ export function EngineRoute() {
           {can(user.role, 'create:inspection') ? (
             <Link
               to={`/fleet/${data.id}/inspections/new`}
-              className="rounded-md bg-ember-600 px-3.5 py-2 text-sm font-medium text-white hover:bg-ember-700"
+              className="rounded-md bg-ember-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-ember-800"
             >
               New inspection
             </Link>

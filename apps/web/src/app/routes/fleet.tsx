@@ -65,7 +65,7 @@ export function FleetRoute() {
           can(user.role, 'manage:engine') ? (
             <Link
               to="/fleet/new"
-              className="inline-flex items-center gap-2 rounded-md bg-ember-600 px-3.5 py-2 text-sm font-medium text-white hover:bg-ember-700"
+              className="inline-flex items-center gap-2 rounded-md bg-ember-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-ember-800"
             >
               <Plus className="size-4" aria-hidden /> Add engine
             </Link>

@@ -1,7 +1,7 @@
 import type { ButtonHTMLAttributes } from 'react';
 
 const variants = {
-  primary: 'bg-ember-600 text-white hover:bg-ember-700 disabled:bg-ember-200',
+  primary: 'bg-ember-700 text-white hover:bg-ember-800 disabled:bg-ember-200',
   secondary:
     'border border-soot-300 bg-white text-soot-800 hover:bg-soot-100 disabled:text-soot-500',
   danger: 'border border-red-300 bg-white text-red-800 hover:bg-red-50 disabled:text-soot-500',

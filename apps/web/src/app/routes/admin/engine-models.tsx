@@ -11,7 +11,7 @@ export function AdminEngineModelsRoute() {
         <h2 className="text-lg font-semibold">Engine models</h2>
         <Link
           to="/admin/engine-models/new"
-          className="rounded-md bg-ember-600 px-3.5 py-2 text-sm font-medium text-white hover:bg-ember-700"
+          className="rounded-md bg-ember-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-ember-800"
         >
           New engine model
         </Link>

@@ -16,20 +16,22 @@ export function EngineParticulars({ engine }: { engine: EngineDetail }) {
     ['Hours per day', formatRate(engine.utilization.hoursPerDay, 'h/day')],
   ];
   return (
-    <dl className="grid grid-cols-2 gap-x-6 gap-y-3 text-sm sm:grid-cols-3 lg:grid-cols-5">
-      {items.map(([label, value]) => (
-        <div key={label}>
-          <dt className="text-xs uppercase tracking-wide text-soot-600">{label}</dt>
-          <dd className="mt-0.5 font-medium text-soot-900">{value}</dd>
-        </div>
-      ))}
-      <div className="col-span-full text-xs text-soot-600">
+    <>
+      <dl className="grid grid-cols-2 gap-x-6 gap-y-3 text-sm sm:grid-cols-3 lg:grid-cols-5">
+        {items.map(([label, value]) => (
+          <div key={label}>
+            <dt className="text-xs uppercase tracking-wide text-soot-600">{label}</dt>
+            <dd className="mt-0.5 font-medium text-soot-900">{value}</dd>
+          </div>
+        ))}
+      </dl>
+      <p className="mt-3 text-xs text-soot-600">
         Daily utilization averages the records{' '}
         {engine.utilization.windowStart
           ? `from ${formatDate(engine.utilization.windowStart)} to ${formatDate(engine.utilization.windowEnd)}`
           : 'of the last 90 days'}{' '}
         ({engine.utilization.coveredDays} days covered).
-      </div>
-    </dl>
+      </p>
+    </>
   );
 }

@@ -1,0 +1,55 @@
+import AxeBuilder from '@axe-core/playwright';
+import type { Page } from '@playwright/test';
+import { expect, signIn, test } from './fixtures';
+
+// Accessibility reference check: axe-core's WCAG 2.0/2.1 A and AA rules (QUALITY §1), no serious or
+// critical violation on the screens each role works in.
+async function seriousViolations(page: Page) {
+  const results = await new AxeBuilder({ page })
+    .withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'])
+    .analyze();
+  return results.violations
+    .filter((violation) => violation.impact === 'serious' || violation.impact === 'critical')
+    .map(
+      (violation) =>
+        `${violation.id}: ${violation.nodes
+          .map((node) => node.target.join(' '))
+          .slice(0, 3)
+          .join(', ')}`,
+    );
+}
+
+test('the sign-in page has no serious accessibility violation', async ({ page }) => {
+  await page.goto('/sign-in');
+  await expect(page.getByRole('heading', { name: 'Sign in' })).toBeVisible();
+  expect(await seriousViolations(page)).toEqual([]);
+});
+
+test('the fleet, engine and inspection pages have no serious accessibility violation', async ({
+  page,
+}) => {
+  await signIn(page, 'inspector@demo.test');
+  await page.goto('/fleet');
+  await expect(page.getByTestId('engine-row').first()).toBeVisible();
+  expect(await seriousViolations(page), 'fleet').toEqual([]);
+  await page.goto('/fleet/engine-d0103');
+  await expect(page.getByText('Utilization history')).toBeVisible();
+  expect(await seriousViolations(page), 'engine').toEqual([]);
+  await page.goto('/inspections/inspection-d0103-demo');
+  await expect(page.getByTestId('image-strip')).toBeVisible();
+  expect(await seriousViolations(page), 'inspection').toEqual([]);
+});
+
+test('the admin pages have no serious accessibility violation', async ({ page }) => {
+  await signIn(page, 'admin@demo.test');
+  for (const path of [
+    '/admin/users',
+    '/admin/organisations',
+    '/admin/engine-models/model-vt300-v1',
+    '/admin/audit-log',
+  ]) {
+    await page.goto(path);
+    await page.waitForLoadState('networkidle');
+    expect(await seriousViolations(page), path).toEqual([]);
+  }
+});
