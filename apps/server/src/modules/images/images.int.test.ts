@@ -2,6 +2,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { deflateSync } from 'node:zlib';
 import exifReader from 'exif-reader';
+import { decode as decodeJpeg } from 'jpeg-js';
 import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -171,6 +172,19 @@ describe('image upload', () => {
       expect(metadata.width, rendition).toBeLessThan(metadata.height!);
       expect(metadata.exif, `${rendition} has no EXIF`).toBeUndefined();
       expect(metadata.orientation ?? 1).toBe(1);
+      if (metadata.format === 'jpeg') {
+        // Reference check: an independent decoder (jpeg-js, pure JavaScript) reads the same
+        // upright size, and the file holds no Exif segment.
+        const decoded = decodeJpeg(body, { useTArray: true, formatAsRGBA: false });
+        expect([decoded.width, decoded.height], rendition).toEqual([
+          metadata.width,
+          metadata.height,
+        ]);
+        expect(
+          body.includes(Buffer.from('Exif\0\0', 'latin1')),
+          `${rendition} carries no Exif segment`,
+        ).toBe(false);
+      }
     }
   });
 
