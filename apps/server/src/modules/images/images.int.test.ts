@@ -355,38 +355,12 @@ describe('inspections', () => {
   });
 
   it('refuses a row the engine model does not have, a future date, and an engine of nobody', async () => {
-    expect(
-      (
-        await request(t.app)
-          .post('/api/v1/inspections')
-          .set('Cookie', inspector)
-          .send({ ...inspection, rows: ['hpt9-blade'] })
-      ).status,
-    ).toBe(422);
-    expect(
-      (
-        await request(t.app)
-          .post('/api/v1/inspections')
-          .set('Cookie', inspector)
-          .send({ ...inspection, date: '2027-01-01' })
-      ).status,
-    ).toBe(422);
-    expect(
-      (
-        await request(t.app)
-          .post('/api/v1/inspections')
-          .set('Cookie', inspector)
-          .send({ ...inspection, engineId: 'engine-none' })
-      ).status,
-    ).toBe(404);
-    expect(
-      (
-        await request(t.app)
-          .post('/api/v1/inspections')
-          .set('Cookie', await t.signIn(demoAccounts.planner))
-          .send(inspection)
-      ).status,
-    ).toBe(403);
+    const open = async (body: object, cookie = inspector) =>
+      (await request(t.app).post('/api/v1/inspections').set('Cookie', cookie).send(body)).status;
+    expect(await open({ ...inspection, rows: ['hpt9-blade'] })).toBe(422);
+    expect(await open({ ...inspection, date: '2027-01-01' })).toBe(422);
+    expect(await open({ ...inspection, engineId: 'engine-none' })).toBe(404);
+    expect(await open(inspection, await t.signIn(demoAccounts.planner))).toBe(403);
   });
 });
 

@@ -48,3 +48,19 @@ export function Input(props: InputHTMLAttributes<HTMLInputElement>) {
 export function Select(props: SelectHTMLAttributes<HTMLSelectElement>) {
   return <select {...props} className={`${control} ${props.className ?? ''}`} />;
 }
+
+/** A number field for whole counts (cycles, positions) or hours to one decimal; never below `min` (0). */
+export function NumberInput({
+  kind = 'count',
+  ...props
+}: InputHTMLAttributes<HTMLInputElement> & { kind?: 'count' | 'hours' }) {
+  return (
+    <Input
+      type="number"
+      min="0"
+      step={kind === 'hours' ? '0.1' : '1'}
+      inputMode={kind === 'hours' ? 'decimal' : 'numeric'}
+      {...props}
+    />
+  );
+}

@@ -12,7 +12,7 @@ import { Trash2 } from 'lucide-react';
 import { useFieldArray } from 'react-hook-form';
 import { z } from 'zod';
 import { Button } from '../../../components/ui/button';
-import { Field, Input, Select } from '../../../components/ui/field';
+import { Field, Input, NumberInput, Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { applyServerErrors, useZodForm } from '../../../lib/form';
 import { useSaveEngineModel } from '../api/engine-models';
@@ -167,11 +167,9 @@ export function EngineModelForm({
                 </Field>
                 <Field label="Positions" error={rowErrors?.count}>
                   {(props) => (
-                    <Input
+                    <NumberInput
                       {...props}
-                      type="number"
                       min="1"
-                      step="1"
                       readOnly={locked}
                       {...form.register(`rows.${index}.count`, { valueAsNumber: true })}
                     />

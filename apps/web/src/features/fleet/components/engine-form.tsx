@@ -1,15 +1,11 @@
 import { useState } from 'react';
-import {
-  engineInputSchema,
-  engineStatuses,
-  engineStatusLabels,
-  type EngineDetail,
-} from '@emberline/contracts/fleet';
+import { engineInputSchema, type EngineDetail } from '@emberline/contracts/fleet';
 import type { EngineModelSummary } from '@emberline/contracts/fleet';
 import type { Organisation } from '@emberline/contracts/organisations';
 import { Button } from '../../../components/ui/button';
-import { Field, Input, Select } from '../../../components/ui/field';
+import { Field, Input, NumberInput, Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
+import { EngineStatusOptions } from './status-badge';
 import { applyServerErrors, emptyToNull, useZodForm } from '../../../lib/form';
 import { useCreateEngine } from '../api/engines';
 
@@ -88,11 +84,7 @@ export function EngineForm({
       <Field label="Status" error={errors.status}>
         {(props) => (
           <Select {...props} {...form.register('status')}>
-            {engineStatuses.map((status) => (
-              <option key={status} value={status}>
-                {engineStatusLabels[status]}
-              </option>
-            ))}
+            <EngineStatusOptions />
           </Select>
         )}
       </Field>
@@ -120,27 +112,11 @@ export function EngineForm({
       </Field>
       <Field label="TSN (hours)" error={errors.tsn}>
         {(props) => (
-          <Input
-            {...props}
-            type="number"
-            step="0.1"
-            min="0"
-            inputMode="decimal"
-            {...form.register('tsn', { valueAsNumber: true })}
-          />
+          <NumberInput {...props} kind="hours" {...form.register('tsn', { valueAsNumber: true })} />
         )}
       </Field>
       <Field label="CSN (cycles)" error={errors.csn}>
-        {(props) => (
-          <Input
-            {...props}
-            type="number"
-            step="1"
-            min="0"
-            inputMode="numeric"
-            {...form.register('csn', { valueAsNumber: true })}
-          />
-        )}
+        {(props) => <NumberInput {...props} {...form.register('csn', { valueAsNumber: true })} />}
       </Field>
       <Field
         label="TSN and CSN as of"

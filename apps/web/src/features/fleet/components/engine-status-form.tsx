@@ -1,13 +1,9 @@
 import { useState } from 'react';
-import {
-  engineStatuses,
-  engineStatusLabels,
-  engineUpdateSchema,
-  type EngineDetail,
-} from '@emberline/contracts/fleet';
+import { engineUpdateSchema, type EngineDetail } from '@emberline/contracts/fleet';
 import { Button } from '../../../components/ui/button';
 import { Field, Input, Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
+import { EngineStatusOptions } from './status-badge';
 import { applyServerErrors, emptyToNull, useZodForm } from '../../../lib/form';
 import { useUpdateEngine } from '../api/engines';
 
@@ -46,11 +42,7 @@ export function EngineStatusForm({ engine }: { engine: EngineDetail }) {
         <Field label="Status" error={errors.status}>
           {(props) => (
             <Select {...props} {...form.register('status')}>
-              {engineStatuses.map((status) => (
-                <option key={status} value={status}>
-                  {engineStatusLabels[status]}
-                </option>
-              ))}
+              <EngineStatusOptions />
             </Select>
           )}
         </Field>

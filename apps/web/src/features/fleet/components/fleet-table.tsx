@@ -1,11 +1,5 @@
 import { useEffect, useMemo, useState } from 'react';
-import {
-  engineStatuses,
-  engineStatusLabels,
-  type Engine,
-  type EngineListQuery,
-  type EngineSortKey,
-} from '@emberline/contracts/fleet';
+import { type Engine, type EngineListQuery, type EngineSortKey } from '@emberline/contracts/fleet';
 import type { EngineModelSummary } from '@emberline/contracts/fleet';
 import type { Organisation } from '@emberline/contracts/organisations';
 import {
@@ -25,7 +19,7 @@ import { Input, Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { formatCount, formatDate, formatHours } from '../../../lib/format';
 import { useEngines } from '../api/engines';
-import { StatusBadge } from './status-badge';
+import { EngineStatusOptions, StatusBadge } from './status-badge';
 
 const features = tableFeatures({ rowSortingFeature, columnVisibilityFeature });
 
@@ -220,11 +214,7 @@ export function FleetTable({ view, onChange, models, owners }: FleetTableProps) 
             }
           >
             <option value="">Any status</option>
-            {engineStatuses.map((status) => (
-              <option key={status} value={status}>
-                {engineStatusLabels[status]}
-              </option>
-            ))}
+            <EngineStatusOptions />
           </Select>
         </label>
         <details className="relative">

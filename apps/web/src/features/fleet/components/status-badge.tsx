@@ -1,4 +1,4 @@
-import { engineStatusLabels, type EngineStatus } from '@emberline/contracts/fleet';
+import { engineStatuses, engineStatusLabels, type EngineStatus } from '@emberline/contracts/fleet';
 
 const styles: Record<EngineStatus, string> = {
   installed: 'bg-emerald-100 text-emerald-900',
@@ -12,4 +12,13 @@ export function StatusBadge({ status }: { status: EngineStatus }) {
       {engineStatusLabels[status]}
     </span>
   );
+}
+
+/** The engine statuses as <option>s, for every select that chooses one. */
+export function EngineStatusOptions() {
+  return engineStatuses.map((status) => (
+    <option key={status} value={status}>
+      {engineStatusLabels[status]}
+    </option>
+  ));
 }

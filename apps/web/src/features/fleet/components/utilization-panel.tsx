@@ -5,7 +5,7 @@ import {
 } from '@emberline/contracts/fleet';
 import { useDropzone } from 'react-dropzone';
 import { Button } from '../../../components/ui/button';
-import { Field, Input } from '../../../components/ui/field';
+import { Field, Input, NumberInput } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { LoadingLine } from '../../../components/ui/page';
 import { applyServerErrors, useZodForm } from '../../../lib/form';
@@ -58,22 +58,14 @@ function RecordForm({ engineId }: { engineId: string }) {
         </Field>
         <Field label="Cycles" error={errors.cycles}>
           {(props) => (
-            <Input
-              {...props}
-              type="number"
-              min="0"
-              step="1"
-              {...form.register('cycles', { valueAsNumber: true })}
-            />
+            <NumberInput {...props} {...form.register('cycles', { valueAsNumber: true })} />
           )}
         </Field>
         <Field label="Hours" error={errors.hours}>
           {(props) => (
-            <Input
+            <NumberInput
               {...props}
-              type="number"
-              min="0"
-              step="0.1"
+              kind="hours"
               {...form.register('hours', { valueAsNumber: true })}
             />
           )}

@@ -7,7 +7,7 @@ import {
   type InspectionDetail,
 } from '@emberline/contracts/inspections';
 import { Button } from '../../../components/ui/button';
-import { Field, Input, Select } from '../../../components/ui/field';
+import { Field, Input, NumberInput, Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { applyServerErrors, useZodForm } from '../../../lib/form';
 import { useCreateInspection } from '../api/inspections';
@@ -79,23 +79,13 @@ export function InspectionForm({
           error={errors.csn}
           hint={`The engine had ${engine.csn.toLocaleString('en-GB')} as of ${engine.tsnCsnAsOf}.`}
         >
-          {(props) => (
-            <Input
-              {...props}
-              type="number"
-              step="1"
-              min="0"
-              {...form.register('csn', { valueAsNumber: true })}
-            />
-          )}
+          {(props) => <NumberInput {...props} {...form.register('csn', { valueAsNumber: true })} />}
         </Field>
         <Field label="TSN at inspection (hours)" error={errors.tsn}>
           {(props) => (
-            <Input
+            <NumberInput
               {...props}
-              type="number"
-              step="0.1"
-              min="0"
+              kind="hours"
               {...form.register('tsn', { valueAsNumber: true })}
             />
           )}
