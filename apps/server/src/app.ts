@@ -15,6 +15,8 @@ import { createAuthService } from './modules/auth/auth.service';
 import { calculationsRoutes } from './modules/calculations/calculations.routes';
 import { engineModelsRoutes } from './modules/engine-models/engine-models.routes';
 import { enginesRoutes } from './modules/engines/engines.routes';
+import { findingsRoutes } from './modules/findings/findings.routes';
+import { limitSetsRoutes } from './modules/limit-sets/limit-sets.routes';
 import { imagesRoutes } from './modules/images/images.routes';
 import { inspectionsRoutes } from './modules/inspections/inspections.routes';
 import { healthRoutes } from './modules/health/health.routes';
@@ -43,6 +45,8 @@ export function createApiRouter(ctx: AppContext): Router {
   api.use(utilizationRoutes(ctx));
   api.use(inspectionsRoutes(ctx));
   api.use(imagesRoutes(ctx));
+  api.use(findingsRoutes(ctx));
+  api.use(limitSetsRoutes(ctx));
   api.use(outboxRoutes(ctx));
   api.use(auditRoutes(ctx));
   api.use(calculationsRoutes());

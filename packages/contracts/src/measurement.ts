@@ -38,28 +38,14 @@ export type PlaneCalibration = z.infer<typeof planeCalibrationSchema>;
 export const shapeKindSchema = z.enum(['polyline', 'polygon', 'point']);
 export type ShapeKind = z.infer<typeof shapeKindSchema>;
 
-export const shapeSchema = z
-  .strictObject({
-    kind: shapeKindSchema,
-    points: z.array(imagePointSchema).min(1).max(2000),
-  })
-  .superRefine((shape, context) => {
-    const needed = { polyline: 2, polygon: 3, point: 1 }[shape.kind];
-    if (shape.points.length < needed) {
-      context.addIssue({
-        code: 'custom',
-        path: ['points'],
-        message: `a ${shape.kind} needs at least ${needed} point${needed === 1 ? '' : 's'}`,
-      });
-    }
-    if (shape.kind === 'point' && shape.points.length !== 1) {
-      context.addIssue({
-        code: 'custom',
-        path: ['points'],
-        message: 'a point has exactly one point',
-      });
-    }
-  });
+/**
+ * A drawn shape. How many points each kind needs (a polyline two, a polygon three, a point one) is
+ * a rule of the geometry, checked by the domain (422), not by the schema.
+ */
+export const shapeSchema = z.strictObject({
+  kind: shapeKindSchema,
+  points: z.array(imagePointSchema).min(1).max(2000),
+});
 export type Shape = z.infer<typeof shapeSchema>;
 
 /** Pick uncertainty u: how far, in pixels, a clicked point may be from where it was meant. */

@@ -32,7 +32,8 @@ const unitsOf: Record<Measure, readonly LimitUnit[]> = {
   count: ['count'],
 };
 
-function worse(a: Category, b: Category): Category {
+/** The worse of two categories (serviceable < repeat-inspection < review < beyond-limits). */
+export function worse(a: Category, b: Category): Category {
   return rank[a] >= rank[b] ? a : b;
 }
 
@@ -54,6 +55,31 @@ function describeLimit(value: number, unit: LimitUnit): string {
  * repeat limit below the serviceable one, a repeat band without an interval, a unit that does not
  * fit the measure, a row the engine does not have, a removal "within" no cycles or hours.
  */
+/**
+ * Refuses a rule whose zones the row does not have (`*` stands for any zone). Kept apart from
+ * validateRules because the evaluation contract gives rows without their zones.
+ */
+export function validateRuleZones(
+  rules: readonly Rule[],
+  zonesByRow: ReadonlyMap<string, readonly string[]>,
+): void {
+  rules.forEach((rule, index) => {
+    const zones = zonesByRow.get(rule.row);
+    if (!zones) return;
+    const unknown = rule.zones.filter((zone) => zone !== '*' && !zones.includes(zone));
+    if (unknown.length > 0)
+      throw new DomainError(
+        `rule ${rule.id} names the zone "${unknown[0]}", which ${rule.row} does not have (it has ${zones.join(', ')})`,
+        ['rules', index, 'zones'],
+      );
+    if (rule.zones.includes('*') && rule.zones.length > 1)
+      throw new DomainError(
+        `rule ${rule.id}: "*" already means every zone; list zones or give "*" alone`,
+        ['rules', index, 'zones'],
+      );
+  });
+}
+
 export function validateRules(rules: readonly Rule[], rowKeys: ReadonlySet<string> | null): void {
   const seen = new Set<string>();
   rules.forEach((rule, index) => {

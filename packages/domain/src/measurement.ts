@@ -35,6 +35,27 @@ const empty: MeasurementResult = {
 };
 
 /** Refuses repeated consecutive points (and, for a polygon, a last point equal to the first). */
+const pointsNeeded = { polyline: 2, polygon: 3, point: 1 } as const;
+
+/**
+ * Refuses a shape that cannot be measured or placed: too few points for its kind, more than one
+ * point for a point, or (for a line or an outline) the same point twice in a row.
+ */
+export function assertShape(shape: Shape): void {
+  const needed = pointsNeeded[shape.kind];
+  if (shape.points.length < needed)
+    throw new DomainError(
+      `a ${shape.kind} needs at least ${needed} point${needed === 1 ? '' : 's'}`,
+      ['shape', 'points'],
+    );
+  if (shape.kind === 'point') {
+    if (shape.points.length !== 1)
+      throw new DomainError('a point has exactly one point', ['shape', 'points']);
+    return;
+  }
+  assertDistinctPoints(shape);
+}
+
 function assertDistinctPoints(shape: Shape): void {
   const { points } = shape;
   const closing = shape.kind === 'polygon' ? points.length : points.length - 1;
@@ -215,7 +236,7 @@ export function measure(
 ): MeasurementResult {
   if (!(pickUncertaintyPx >= 0))
     throw new DomainError('the pick uncertainty cannot be negative', ['pickUncertaintyPx']);
-  if (shape.kind !== 'point') assertDistinctPoints(shape);
+  assertShape(shape);
   return calibration.kind === 'reference'
     ? measureReference(calibration, shape, pickUncertaintyPx)
     : measurePlane(calibration, shape, pickUncertaintyPx);

@@ -297,3 +297,153 @@ export const images = sqliteTable(
     index('images_sha_idx').on(table.sha256),
   ],
 );
+
+/**
+ * A revision of an engine model's damage limits. Published and superseded revisions are frozen by
+ * SQLite triggers (db/triggers.ts): only the step published → superseded is allowed.
+ */
+export const limitSets = sqliteTable(
+  'limit_sets',
+  {
+    id: text().primaryKey(),
+    modelId: text()
+      .notNull()
+      .references(() => engineModels.id),
+    revision: text().notNull(),
+    title: text().notNull(),
+    status: text({ enum: ['draft', 'published', 'superseded'] }).notNull(),
+    manualReference: text().notNull(),
+    effectiveDate: text(),
+    invented: integer({ mode: 'boolean' }).notNull().default(false),
+    basedOnId: text(),
+    publishedAt: integer({ mode: 'timestamp_ms' }),
+    publishedBy: text().references(() => users.id),
+    contentSha256: text(),
+    createdBy: text().references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (table) => [
+    uniqueIndex('limit_sets_model_revision_idx').on(table.modelId, table.revision),
+    // One revision in force per model.
+    uniqueIndex('limit_sets_model_published_idx')
+      .on(table.modelId)
+      .where(sql`status = 'published'`),
+  ],
+);
+
+/** The rules of a revision, in the §5.2 shape, each with the manual section it came from. */
+export const limitRules = sqliteTable(
+  'limit_rules',
+  {
+    limitSetId: text()
+      .notNull()
+      .references(() => limitSets.id),
+    ruleId: text().notNull(),
+    sequence: integer().notNull(),
+    rowKey: text().notNull(),
+    zones: text({ mode: 'json' }).notNull().$type<string[]>(),
+    damage: text().notNull(),
+    measure: text({ enum: ['length', 'width', 'depth', 'area', 'count'] }).notNull(),
+    unit: text({ enum: ['mm', 'in', 'mm2', 'in2', 'count'] }).notNull(),
+    serviceableMax: real(),
+    repeatMax: real(),
+    repeatInterval: text({ mode: 'json' }).$type<{
+      cycles: number | null;
+      hours: number | null;
+      days: number | null;
+    }>(),
+    beyondAction: text({ mode: 'json' }).$type<{
+      kind: 'remove-before-next-flight' | 'remove-within' | 'remove-at-next-shop-visit';
+      cycles: number | null;
+      hours: number | null;
+    }>(),
+    notPermitted: integer({ mode: 'boolean' }).notNull(),
+    maxPerAirfoil: integer(),
+    maxTotalPerAirfoil: real(),
+    maxAirfoilsPerRow: integer(),
+    maxAdjacentAirfoils: integer(),
+    reference: text().notNull(),
+  },
+  (table) => [primaryKey({ columns: [table.limitSetId, table.ruleId] })],
+);
+
+/** A finding: damage located on a row, position and zone of an image, measured and judged. Never deleted. */
+export const findings = sqliteTable(
+  'findings',
+  {
+    id: text().primaryKey(),
+    inspectionId: text()
+      .notNull()
+      .references(() => inspections.id),
+    number: integer().notNull(),
+    imageId: text()
+      .notNull()
+      .references(() => images.id),
+    shape: text({ mode: 'json' }).notNull().$type<{
+      kind: 'polyline' | 'polygon' | 'point';
+      points: [number, number][];
+    }>(),
+    calibration: text({ mode: 'json' }).$type<Record<string, unknown>>(),
+    pickUncertaintyPx: real().notNull(),
+    rowKey: text().notNull(),
+    position: integer().notNull(),
+    zone: text().notNull(),
+    damage: text().notNull(),
+    method: text({ enum: ['image', 'probe'] }).notNull(),
+    mmPerPx: real(),
+    lengthMm: real(),
+    areaMm2: real(),
+    perimeterMm: real(),
+    maxExtentMm: real(),
+    uncertaintyMm: real(),
+    uncertaintyMm2: real(),
+    widthMm: real(),
+    depthMm: real(),
+    count: integer(),
+    notes: text().notNull().default(''),
+    previousFindingId: text(),
+    seriesId: text().notNull(),
+    status: text({ enum: ['recorded', 'void'] }).notNull(),
+    voidReason: text(),
+    voidedAt: integer({ mode: 'timestamp_ms' }),
+    voidedBy: text().references(() => users.id),
+    /** The stored verdict (FindingEvaluation JSON) and its category, for lists and filters. */
+    evaluation: text({ mode: 'json' }).$type<Record<string, unknown>>(),
+    category: text({ enum: ['serviceable', 'repeat-inspection', 'review', 'beyond-limits'] }),
+    limitSetId: text().references(() => limitSets.id),
+    evaluatedAt: integer({ mode: 'timestamp_ms' }),
+    createdBy: text()
+      .notNull()
+      .references(() => users.id),
+    createdAt: createdAt(),
+    updatedAt: integer({ mode: 'timestamp_ms' }).notNull(),
+  },
+  (table) => [
+    uniqueIndex('findings_inspection_number_idx').on(table.inspectionId, table.number),
+    index('findings_inspection_row_idx').on(table.inspectionId, table.rowKey, table.position),
+    index('findings_series_idx').on(table.seriesId),
+    index('findings_previous_idx').on(table.previousFindingId),
+    index('findings_category_idx').on(table.category),
+    index('findings_row_idx').on(table.rowKey),
+  ],
+);
+
+/** Coverage of a listed row: fully, partly (which positions) or not viewed, and "no damage found". */
+export const rowCoverage = sqliteTable(
+  'row_coverage',
+  {
+    inspectionId: text()
+      .notNull()
+      .references(() => inspections.id),
+    rowKey: text().notNull(),
+    status: text({ enum: ['full', 'partial', 'none'] }).notNull(),
+    viewedPositions: text({ mode: 'json' }).notNull().$type<number[]>(),
+    noDamageFound: integer({ mode: 'boolean' }).notNull(),
+    reason: text().notNull(),
+    updatedBy: text()
+      .notNull()
+      .references(() => users.id),
+    updatedAt: integer({ mode: 'timestamp_ms' }).notNull(),
+  },
+  (table) => [primaryKey({ columns: [table.inspectionId, table.rowKey] })],
+);

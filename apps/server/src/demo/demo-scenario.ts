@@ -4,7 +4,9 @@ import { hashPassword } from '../modules/auth/passwords';
 import { appendAudit } from '../modules/audit/audit.repository';
 import { insertOrganisation } from '../modules/organisations/organisations.repository';
 import { insertUser } from '../modules/users/users.repository';
+import { addDays } from '@emberline/domain/dates';
 import { demoEngines, loadDemoFleet } from './demo-fleet';
+import { loadDemoLimits } from './demo-limits';
 
 /** The password of every demo account. */
 export const DEMO_PASSWORD = 'emberline-demo';
@@ -90,6 +92,7 @@ export async function loadDemoScenario(
       });
     });
     loadDemoFleet(tx, options.now);
+    loadDemoLimits(tx, options.now, addDays(options.now.toISOString().slice(0, 10), -720));
     appendAudit(tx, options.now, {
       actorUserId: null,
       action: 'demo.loaded',

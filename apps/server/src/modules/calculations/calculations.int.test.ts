@@ -100,14 +100,15 @@ describe('POST /measurements', () => {
         .status,
     ).toBe(400);
     expect((await post('/measurements', { ...measurement, extra: true })).status).toBe(400);
-    expect(
-      (
-        await post('/measurements', {
-          ...measurement,
-          shape: { kind: 'polyline', points: [[0, 0]] },
-        })
-      ).body.error.message,
-    ).toMatch(/at least 2 points/);
+  });
+
+  it('refuses a shape with too few points with 422 and says how many it needs', async () => {
+    const response = await post('/measurements', {
+      ...measurement,
+      shape: { kind: 'polyline', points: [[0, 0]] },
+    });
+    expect(response.status).toBe(422);
+    expect(response.body.error.message).toMatch(/at least 2 points/);
   });
 });
 

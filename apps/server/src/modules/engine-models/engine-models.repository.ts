@@ -1,7 +1,7 @@
 import { asc, count, eq, max } from 'drizzle-orm';
 import type { EngineModelRow } from '@emberline/contracts/fleet';
 import type { DbOrTx } from '../../db/client';
-import { engineModelRows, engineModels, engines } from '../../db/schema';
+import { engineModelRows, engineModels, engines, findings, inspections } from '../../db/schema';
 
 export type EngineModelRecord = typeof engineModels.$inferSelect;
 
@@ -85,10 +85,14 @@ export function replaceModelRows(
     .run();
 }
 
-/**
- * Keys of the rows that recorded findings refer to. Findings are recorded by the inspections
- * module, whose tables join this query when they exist; a model without findings has none.
- */
-export function rowKeysInUse(_db: DbOrTx, _modelId: string): Set<string> {
-  return new Set();
+/** Keys of the rows that findings (void ones too: they stay on record) of this model's engines refer to. */
+export function rowKeysInUse(db: DbOrTx, modelId: string): Set<string> {
+  const rows = db
+    .selectDistinct({ rowKey: findings.rowKey })
+    .from(findings)
+    .innerJoin(inspections, eq(inspections.id, findings.inspectionId))
+    .innerJoin(engines, eq(engines.id, inspections.engineId))
+    .where(eq(engines.modelId, modelId))
+    .all();
+  return new Set(rows.map((row) => row.rowKey));
 }

@@ -1,0 +1,73 @@
+import type Database from 'better-sqlite3';
+
+/**
+ * The rules SQLite itself enforces, whatever code runs. They are dropped before the migrations run
+ * and created again after them: drizzle-kit rebuilds a table to change a column (new table, copy,
+ * drop, rename), a dropped table takes its triggers with it, and a trigger that reads a table being
+ * rebuilt stops the rename. Defining them here, not in a migration, keeps them in place.
+ */
+const frozen = "SELECT RAISE(ABORT, 'a published or superseded limit-set revision cannot change')";
+
+/** Every column of limit_sets but status: none may change once a revision is published. */
+const limitSetContent = [
+  'id',
+  'model_id',
+  'revision',
+  'title',
+  'manual_reference',
+  'effective_date',
+  'invented',
+  'based_on_id',
+  'published_at',
+  'published_by',
+  'content_sha256',
+  'created_by',
+  'created_at',
+];
+
+export const triggers: Record<string, string> = {
+  audit_log_no_update: `BEFORE UPDATE ON audit_log BEGIN SELECT RAISE(ABORT, 'audit_log is append-only'); END`,
+  audit_log_no_delete: `BEFORE DELETE ON audit_log BEGIN SELECT RAISE(ABORT, 'audit_log is append-only'); END`,
+  limit_sets_frozen_update: `BEFORE UPDATE ON limit_sets
+    WHEN OLD.status <> 'draft' AND NOT (
+      OLD.status = 'published' AND NEW.status = 'superseded' AND
+      ${limitSetContent.map((column) => `NEW.${column} IS OLD.${column}`).join(' AND ')}
+    )
+    BEGIN ${frozen}; END`,
+  limit_sets_status_step: `BEFORE UPDATE OF status ON limit_sets
+    WHEN OLD.status = 'draft' AND NEW.status NOT IN ('draft', 'published')
+    BEGIN SELECT RAISE(ABORT, 'a draft limit-set revision can only be published'); END`,
+  limit_sets_frozen_delete: `BEFORE DELETE ON limit_sets WHEN OLD.status <> 'draft' BEGIN ${frozen}; END`,
+  limit_rules_frozen_insert: `BEFORE INSERT ON limit_rules
+    WHEN (SELECT status FROM limit_sets WHERE id = NEW.limit_set_id) <> 'draft'
+    BEGIN ${frozen}; END`,
+  limit_rules_frozen_update: `BEFORE UPDATE ON limit_rules
+    WHEN (SELECT status FROM limit_sets WHERE id = OLD.limit_set_id) <> 'draft'
+      OR (SELECT status FROM limit_sets WHERE id = NEW.limit_set_id) <> 'draft'
+    BEGIN ${frozen}; END`,
+  limit_rules_frozen_delete: `BEFORE DELETE ON limit_rules
+    WHEN (SELECT status FROM limit_sets WHERE id = OLD.limit_set_id) <> 'draft'
+    BEGIN ${frozen}; END`,
+  findings_no_delete: `BEFORE DELETE ON findings
+    BEGIN SELECT RAISE(ABORT, 'findings are voided with a reason, never deleted'); END`,
+};
+
+/**
+ * Drops every trigger above. Migrations run without them: a trigger on one table that reads
+ * another makes SQLite refuse to rename a rebuilt table ("error in trigger … no such table").
+ */
+export function dropTriggers(sqlite: Database.Database): void {
+  sqlite.transaction(() => {
+    for (const name of Object.keys(triggers)) sqlite.exec(`DROP TRIGGER IF EXISTS ${name}`);
+  })();
+}
+
+/** Drops and creates every trigger above, in one transaction, so that they match this code. */
+export function ensureTriggers(sqlite: Database.Database): void {
+  sqlite.transaction(() => {
+    for (const [name, body] of Object.entries(triggers)) {
+      sqlite.exec(`DROP TRIGGER IF EXISTS ${name}`);
+      sqlite.exec(`CREATE TRIGGER ${name} ${body}`);
+    }
+  })();
+}

@@ -1,0 +1,14 @@
+import { createHash } from 'node:crypto';
+import canonicalize from 'canonicalize';
+
+/** The RFC 8785 (JSON Canonicalization Scheme) form of a value: what is hashed is exactly this. */
+export function canonicalJson(value: unknown): string {
+  const text = canonicalize(value);
+  if (text === undefined) throw new Error('this value has no JSON form');
+  return text;
+}
+
+/** SHA-256 (hex) of the canonical JSON of a value. */
+export function canonicalSha256(value: unknown): string {
+  return createHash('sha256').update(canonicalJson(value), 'utf8').digest('hex');
+}

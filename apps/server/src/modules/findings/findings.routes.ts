@@ -1,0 +1,178 @@
+import { Router } from 'express';
+import {
+  coverageInputSchema,
+  coverageResponseSchema,
+  findingInputSchema,
+  findingListResponseSchema,
+  findingSchema,
+  seriesCandidatesQuerySchema,
+  seriesListResponseSchema,
+  voidInputSchema,
+} from '@emberline/contracts/findings';
+import { idParamsSchema } from '@emberline/contracts/users';
+import { z } from 'zod';
+import type { AppContext } from '../../context';
+import { principalOf } from '../../http/principal';
+import { requestMeta } from '../../http/request-meta';
+import { route } from '../../http/route';
+import { createFindingsService } from './findings.service';
+
+export function findingsRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const findings = createFindingsService(ctx);
+
+  route(
+    router,
+    'GET /inspections/:id/findings',
+    {
+      summary: 'The findings of an inspection with their stored verdicts, and its outcome',
+      params: idParamsSchema,
+      response: findingListResponseSchema,
+    },
+    (_req, res) => {
+      res.json(findings.list(principalOf(res), res.locals.params.id));
+    },
+  );
+
+  route(
+    router,
+    'POST /inspections/:id/findings',
+    {
+      summary:
+        'Record a finding; image measurements are computed by the server and the whole inspection is judged again',
+      params: idParamsSchema,
+      body: findingInputSchema,
+      response: findingSchema,
+      status: 201,
+    },
+    (req, res) => {
+      res
+        .status(201)
+        .json(
+          findings.record(
+            principalOf(res),
+            res.locals.params.id,
+            res.locals.body,
+            requestMeta(req),
+          ),
+        );
+    },
+  );
+
+  route(
+    router,
+    'GET /inspections/:id/series-candidates',
+    {
+      summary: 'Earlier findings of the same engine that may be the same damage seen again',
+      params: idParamsSchema,
+      query: seriesCandidatesQuerySchema,
+      response: seriesListResponseSchema,
+    },
+    (_req, res) => {
+      res.json({
+        items: findings.seriesCandidates(principalOf(res), res.locals.params.id, res.locals.query),
+      });
+    },
+  );
+
+  route(
+    router,
+    'GET /inspections/:id/coverage',
+    {
+      summary: 'Coverage of every listed row, and the inspection outcome',
+      params: idParamsSchema,
+      response: coverageResponseSchema,
+    },
+    (_req, res) => {
+      res.json(findings.coverage(principalOf(res), res.locals.params.id));
+    },
+  );
+
+  route(
+    router,
+    'PUT /inspections/:id/coverage/:row',
+    {
+      summary:
+        'Record how much of a row was viewed, and "no damage found" where that is the result',
+      params: z.strictObject({ id: z.string().min(1).max(64), row: z.string().min(1).max(100) }),
+      body: coverageInputSchema,
+      response: coverageResponseSchema,
+    },
+    (req, res) => {
+      res.json(
+        findings.recordCoverage(
+          principalOf(res),
+          res.locals.params.id,
+          res.locals.params.row,
+          res.locals.body,
+          requestMeta(req),
+        ),
+      );
+    },
+  );
+
+  route(
+    router,
+    'GET /findings/:id',
+    {
+      summary: 'A finding with its stored verdict',
+      params: idParamsSchema,
+      response: findingSchema,
+    },
+    (_req, res) => {
+      res.json(findings.detail(principalOf(res), res.locals.params.id));
+    },
+  );
+
+  route(
+    router,
+    'PUT /findings/:id',
+    {
+      summary: 'Change a finding of a draft inspection; the whole inspection is judged again',
+      params: idParamsSchema,
+      body: findingInputSchema,
+      response: findingSchema,
+    },
+    (req, res) => {
+      res.json(
+        findings.update(principalOf(res), res.locals.params.id, res.locals.body, requestMeta(req)),
+      );
+    },
+  );
+
+  route(
+    router,
+    'POST /findings/:id/void',
+    {
+      summary: 'Void a finding recorded by mistake, with a reason (findings are never deleted)',
+      params: idParamsSchema,
+      body: voidInputSchema,
+      response: findingSchema,
+    },
+    (req, res) => {
+      res.json(
+        findings.void(
+          principalOf(res),
+          res.locals.params.id,
+          res.locals.body.reason,
+          requestMeta(req),
+        ),
+      );
+    },
+  );
+
+  route(
+    router,
+    'GET /findings/:id/series',
+    {
+      summary: 'The damage series of a finding, oldest inspection first',
+      params: idParamsSchema,
+      response: seriesListResponseSchema,
+    },
+    (_req, res) => {
+      res.json({ items: findings.series(principalOf(res), res.locals.params.id) });
+    },
+  );
+
+  return router;
+}
