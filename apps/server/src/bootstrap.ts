@@ -5,7 +5,7 @@ import type { Config } from './config/env';
 import type { AppContext } from './context';
 import { openDatabase } from './db/client';
 import { runMigrations } from './db/migrate';
-import { loadDemoInspection } from './demo/demo-inspection';
+import { loadDemoHistory } from './demo/demo-history';
 import { loadDemoScenario } from './demo/demo-scenario';
 import { caughtMailStore } from './lib/email/caught-mail';
 import { createMailer } from './lib/email/mailer';
@@ -96,7 +96,7 @@ export async function prepareRuntime(
     storage,
     now,
   };
-  if (demoLoaded && config.demoImages) await loadDemoInspection(ctx);
+  if (demoLoaded && config.demoImages) await loadDemoHistory(ctx);
 
   return {
     ctx,

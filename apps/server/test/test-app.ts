@@ -48,6 +48,8 @@ export async function startTestApp(
     DATA_DIR: dataDir,
     LOG_LEVEL: 'silent',
     BCRYPT_COST: '10',
+    // The demo's stills take seconds to render; tests that need the demo history ask for it.
+    DEMO_IMAGES: '0',
     ...options.env,
   });
   const runtime = await prepareRuntime(config, createLogger('silent', false), clock.now);

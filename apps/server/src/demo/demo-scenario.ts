@@ -77,16 +77,16 @@ export async function loadDemoScenario(
   db: Db,
   options: { bcryptCost: number; now: Date },
 ): Promise<void> {
-  const hashes = await Promise.all(
-    demoUsers.map(() => hashPassword(DEMO_PASSWORD, options.bcryptCost)),
-  );
+  // Every demo account has the same password: one hash (with its own salt) serves them all, and
+  // the first start does not spend seconds hashing the same words six times.
+  const hash = await hashPassword(DEMO_PASSWORD, options.bcryptCost);
   inTransaction(db, (tx) => {
     for (const organisation of demoOrganisations)
       insertOrganisation(tx, { ...organisation, createdAt: options.now });
-    demoUsers.forEach((user, index) => {
+    demoUsers.forEach((user) => {
       insertUser(tx, {
         ...user,
-        passwordHash: hashes[index] ?? null,
+        passwordHash: hash,
         passwordChangedAt: options.now,
         createdAt: options.now,
       });

@@ -1,0 +1,97 @@
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Finding, FindingListResponse } from '@emberline/contracts/findings';
+import { categories } from '@emberline/contracts/limits';
+import { demoAccounts, startTestApp, type TestApp } from '../../test/test-app';
+import { DEMO_INSPECTION_ID } from './demo-history';
+import { DEMO_LIMIT_SET_ID } from './demo-limits';
+
+let t: TestApp;
+let engineer: string;
+
+const findingsOf = async (id: string): Promise<FindingListResponse> =>
+  (await request(t.app).get(`/api/v1/inspections/${id}/findings`).set('Cookie', engineer)).body;
+
+beforeAll(async () => {
+  t = await startTestApp({ env: { DEMO_IMAGES: '1' } });
+  engineer = await t.signIn(demoAccounts.engineer);
+});
+afterAll(() => t.close());
+
+describe('the demo history', () => {
+  it('shows VT3-D0103 three times while a linked blade crack grows towards its limit', async () => {
+    const list = await request(t.app)
+      .get('/api/v1/inspections')
+      .query({ engineId: 'engine-d0103' })
+      .set('Cookie', engineer);
+    const inspections = (list.body.items as { id: string; csn: number; state: string }[]).sort(
+      (a, b) => a.csn - b.csn,
+    );
+    expect(inspections.map((item) => item.state)).toEqual(['released', 'released', 'draft']);
+    const latest = (await findingsOf(DEMO_INSPECTION_ID)).items.find(
+      (item) => item.row === 'hpt1-blade' && item.damage === 'crack',
+    )!;
+    const series = await request(t.app)
+      .get(`/api/v1/findings/${latest.id}/series`)
+      .set('Cookie', engineer);
+    const entries = series.body.items as { csn: number; lengthMm: number; inspectionId: string }[];
+    expect(entries.map((entry) => entry.inspectionId)).toEqual(inspections.map((item) => item.id));
+    const lengths = entries.map((entry) => entry.lengthMm);
+    expect(lengths[0]).toBeLessThan(lengths[1]!);
+    expect(lengths[1]).toBeLessThan(lengths[2]!);
+    // Still within the invented repeat band (1.5 mm) with its uncertainty, but closing on it.
+    expect(latest.evaluation).toMatchObject({
+      category: 'repeat-inspection',
+      ruleId: 'hpt1-blade.crack.edges',
+    });
+    expect(latest.evaluation!.utilisation!).toBeGreaterThan(0.85);
+    expect(latest.evaluation!.utilisation!).toBeLessThan(1);
+  });
+
+  it('has findings in every verdict category, an indeterminate one among them', async () => {
+    const all: Finding[] = [];
+    for (const id of [
+      'inspection-d0103-h1',
+      'inspection-d0103-h2',
+      DEMO_INSPECTION_ID,
+      'inspection-d0201-demo',
+    ])
+      all.push(...(await findingsOf(id)).items);
+    expect(new Set(all.map((item) => item.evaluation?.category))).toEqual(new Set(categories));
+    expect(all.some((item) => item.evaluation?.indeterminate)).toBe(true);
+    expect(all.every((item) => item.limitSetId === DEMO_LIMIT_SET_ID)).toBe(true);
+  });
+
+  it('has one row partly viewed and one submitted inspection waiting for review', async () => {
+    const coverage = await request(t.app)
+      .get(`/api/v1/inspections/${DEMO_INSPECTION_ID}/coverage`)
+      .set('Cookie', engineer);
+    expect(coverage.body.rows[0]).toMatchObject({ row: 'hpt1-ngv', status: 'partial', gap: true });
+    expect(coverage.body.outcome.category).toBe('review');
+    const submitted = await request(t.app)
+      .get('/api/v1/inspections/inspection-d0201-demo')
+      .set('Cookie', engineer);
+    expect(submitted.body.state).toBe('submitted');
+    expect((await findingsOf('inspection-d0201-demo')).outcome).toMatchObject({
+      category: 'beyond-limits',
+      beyondActions: [{ kind: 'remove-before-next-flight', cycles: null, hours: null }],
+    });
+  });
+
+  it('shows the customer the released history of their own engine only', async () => {
+    const customer = await t.signIn(demoAccounts.customer);
+    const list = await request(t.app).get('/api/v1/inspections').set('Cookie', customer);
+    expect((list.body.items as { id: string }[]).map((item) => item.id).sort()).toEqual([
+      'inspection-d0103-h1',
+      'inspection-d0103-h2',
+    ]);
+    const other = await t.signIn(demoAccounts.customer2);
+    expect(
+      (
+        await request(t.app)
+          .get('/api/v1/inspections/inspection-d0201-demo/findings')
+          .set('Cookie', other)
+      ).status,
+    ).toBe(404);
+  });
+});
