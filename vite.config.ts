@@ -36,6 +36,16 @@ export default defineConfig({
       {
         extends: true,
         test: {
+          // The client's pure logic (state reducers, parsers); the screens are tested in Playwright.
+          name: 'web',
+          root: '.',
+          include: ['apps/web/src/**/*.test.ts'],
+          environment: 'node',
+        },
+      },
+      {
+        extends: true,
+        test: {
           name: 'server',
           root: '.',
           include: ['apps/server/src/**/*.test.ts', 'apps/server/test/**/*.test.ts'],

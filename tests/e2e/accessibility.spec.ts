@@ -37,6 +37,8 @@ test('the fleet, engine and inspection pages have no serious accessibility viola
   expect(await seriousViolations(page), 'engine').toEqual([]);
   await page.goto('/inspections/inspection-d0103-demo');
   await expect(page.getByTestId('image-strip')).toBeVisible();
+  await expect(page.getByTestId('inspection-outcome')).toBeVisible();
+  await expect(page.getByRole('toolbar', { name: 'Drawing tools' })).toBeVisible();
   expect(await seriousViolations(page), 'inspection').toEqual([]);
 });
 

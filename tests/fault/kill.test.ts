@@ -71,6 +71,8 @@ describe('uploads survive a killed server', () => {
           return data;
         }),
       );
+      let firstAcknowledged: () => void = () => {};
+      const acknowledgedOnce = new Promise<void>((resolve) => (firstAcknowledged = resolve));
       const inFlight = uploads.map(async (data, index) => {
         const form = new FormData();
         form.append(
@@ -87,12 +89,17 @@ describe('uploads survive a killed server', () => {
           if (response.status !== 201) return;
           const body = (await response.json()) as { images: { id: string; sha256: string }[] };
           for (const image of body.images) acknowledged.set(image.id, image.sha256);
+          firstAcknowledged();
           expect(body.images[0]!.sha256).toBe(sha256(data));
         } catch {
           killedDuringUpload += 1;
         }
       });
-      await new Promise((resolve) => setTimeout(resolve, 30 + Math.random() * 400));
+      // The kill falls at a random moment once the round is under way: after its first
+      // acknowledgement (or 3 s on a machine too busy to give one), so that some uploads are
+      // done and others are cut however loaded the machine is.
+      await Promise.race([acknowledgedOnce, new Promise((resolve) => setTimeout(resolve, 3000))]);
+      await new Promise((resolve) => setTimeout(resolve, Math.random() * 250));
       await kill(server);
       await Promise.all(inFlight);
       server = await startServerProcess(dataDir, port, { FROM_SOURCES: '1' });

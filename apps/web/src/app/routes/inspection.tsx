@@ -8,11 +8,13 @@ import { LoadingLine, PageHeader, Panel } from '../../components/ui/page';
 import { useSignedInUser } from '../../features/auth/hooks/use-signed-in-user';
 import { useEngineModel } from '../../features/engine-models/api/engine-models';
 import { useEngine } from '../../features/fleet/api/engines';
+import { useCoverage, useFindings, useLimitSetInForce } from '../../features/findings/api/findings';
+import { Annotator } from '../../features/findings/components/annotator';
+import { FindingsPanel, OutcomeSummary } from '../../features/findings/components/findings-panel';
 import { useInspection } from '../../features/inspections/api/inspections';
 import { FlagsPanel } from '../../features/inspections/components/flags-panel';
 import { ImageDrop } from '../../features/inspections/components/image-drop';
 import { ImageStrip } from '../../features/inspections/components/image-strip';
-import { ImageViewer } from '../../features/inspections/components/image-viewer';
 import { ReviewActions } from '../../features/inspections/components/review-actions';
 import { VideoFrames } from '../../features/inspections/components/video-frames';
 import { ApiError } from '../../lib/api-client';
@@ -25,6 +27,12 @@ export function InspectionRoute() {
   const engine = useEngine(inspection.data?.engineId ?? '');
   const model = useEngineModel(engine.data?.modelId ?? null);
   const [selected, setSelected] = useState(0);
+  const findings = useFindings(inspectionId);
+  const coverage = useCoverage(inspectionId);
+  const limitSet = useLimitSetInForce(
+    engine.data?.modelId ?? null,
+    can(user.role, 'read:limit-set'),
+  );
 
   if (inspection.isPending) return <LoadingLine />;
   if (inspection.error) {
@@ -84,6 +92,10 @@ export function InspectionRoute() {
             inspection={data}
             canSubmit={can(user.role, 'create:inspection')}
             canReturn={can(user.role, 'review:inspection')}
+            coverageGaps={coverage.data?.outcome.coverageGaps ?? []}
+            findingCount={
+              findings.data?.items.filter((item) => item.status === 'recorded').length ?? 0
+            }
           />
         </div>
       </Panel>
@@ -94,13 +106,37 @@ export function InspectionRoute() {
         {editable ? <ImageDrop inspectionId={data.id} /> : null}
         <ImageStrip images={data.images} selected={selected} onSelect={setSelected} />
         {data.images.length > 0 ? (
-          <ImageViewer
-            images={data.images}
-            index={Math.min(selected, data.images.length - 1)}
-            onIndex={setSelected}
-            rows={rows}
+          <div id="image-viewer">
+            <Annotator
+              inspection={data}
+              rows={rows}
+              index={selected}
+              onIndex={setSelected}
+              findings={findings.data?.items ?? []}
+              limitSet={limitSet.data}
+              editable={editable}
+            />
+          </div>
+        ) : null}
+      </Panel>
+      <Panel className="flex flex-col gap-4">
+        <h2 className="text-lg font-semibold">Findings and coverage</h2>
+        {findings.data ? <OutcomeSummary outcome={findings.data.outcome} /> : <LoadingLine />}
+        {findings.error ? <Notice tone="error">{findings.error.message}</Notice> : null}
+        {findings.data && coverage.data ? (
+          <FindingsPanel
             inspectionId={data.id}
+            rows={rows}
+            findings={findings.data.items}
+            coverage={coverage.data.rows}
             editable={editable}
+            onOpen={(finding) => {
+              const at = data.images.findIndex((image) => image.id === finding.imageId);
+              if (at >= 0) setSelected(at);
+              document
+                .getElementById('image-viewer')
+                ?.scrollIntoView({ behavior: 'smooth', block: 'start' });
+            }}
           />
         ) : null}
       </Panel>

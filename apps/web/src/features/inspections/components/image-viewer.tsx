@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import type { EngineModelRow } from '@emberline/contracts/fleet';
 import type { Image } from '@emberline/contracts/inspections';
 import { TransformComponent, TransformWrapper } from 'react-zoom-pan-pinch';
@@ -84,6 +84,9 @@ export function ImageViewer({
   rows,
   inspectionId,
   editable,
+  toolbar,
+  overlay,
+  leftButtonPans = true,
 }: {
   images: Image[];
   index: number;
@@ -91,6 +94,12 @@ export function ImageViewer({
   rows: EngineModelRow[];
   inspectionId: string;
   editable: boolean;
+  /** Tools shown above the image (the drawing tools). */
+  toolbar?: ReactNode;
+  /** Drawn over the image in its own frame (the annotation layer); it zooms and pans with it. */
+  overlay?: (image: Image) => ReactNode;
+  /** False while a drawing tool is in use: the left button then places points, the middle pans. */
+  leftButtonPans?: boolean;
 }) {
   const image = images[index];
   const [deep, setDeep] = useState<Record<string, boolean>>({});
@@ -143,13 +152,15 @@ export function ImageViewer({
         key={image.id}
         minScale={1}
         maxScale={16}
-        doubleClick={{ step: 1.5 }}
+        doubleClick={{ step: 1.5, disabled: !leftButtonPans }}
+        panning={{ allowLeftClickPan: leftButtonPans, allowMiddleClickPan: true }}
         onTransform={(_ref, state) => {
           if (state.scale >= FULL_AT_SCALE && !full) setDeep({ ...deep, [image.id]: true });
         }}
       >
         {({ zoomIn, zoomOut, resetTransform }) => (
           <>
+            {toolbar}
             <div className="flex gap-2 text-xs">
               <button
                 type="button"
@@ -180,12 +191,21 @@ export function ImageViewer({
               wrapperClass="!w-full !h-[60vh] bg-black rounded"
               contentClass="!w-full !h-full flex items-center justify-center"
             >
-              <img
-                src={imageUrl(image.id, full ? 'full' : 'preview')}
-                alt={`${image.originalName}${image.rowKey ? `, ${image.rowKey} position ${image.position}` : ''}`}
-                className="max-h-[60vh] max-w-full object-contain"
-                draggable={false}
-              />
+              <div
+                className="relative"
+                style={{
+                  aspectRatio: `${image.width} / ${image.height}`,
+                  width: `min(100%, calc(60vh * ${image.width / image.height}))`,
+                }}
+              >
+                <img
+                  src={imageUrl(image.id, full ? 'full' : 'preview')}
+                  alt={`${image.originalName}${image.rowKey ? `, ${image.rowKey} position ${image.position}` : ''}`}
+                  className="absolute inset-0 h-full w-full"
+                  draggable={false}
+                />
+                {overlay?.(image)}
+              </div>
             </TransformComponent>
           </>
         )}

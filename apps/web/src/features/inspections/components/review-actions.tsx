@@ -10,10 +10,15 @@ export function ReviewActions({
   inspection,
   canSubmit,
   canReturn,
+  coverageGaps = [],
+  findingCount = 0,
 }: {
   inspection: InspectionDetail;
   canSubmit: boolean;
   canReturn: boolean;
+  /** Rows listed but not fully viewed without a reason: shown before the inspection goes. */
+  coverageGaps?: string[];
+  findingCount?: number;
 }) {
   const submit = useSubmitInspection(inspection.id);
   const sendBack = useReturnInspection(inspection.id);
@@ -34,6 +39,20 @@ export function ReviewActions({
             go for review.
           </p>
         ) : null}
+        <ul className="list-inside list-disc text-sm text-soot-700" aria-label="Before it goes">
+          <li>
+            {findingCount} finding{findingCount === 1 ? '' : 's'} recorded on{' '}
+            {inspection.images.length} image{inspection.images.length === 1 ? '' : 's'}.
+          </li>
+          {coverageGaps.length > 0 ? (
+            <li>
+              Not fully viewed without a reason: {coverageGaps.join(', ')} (the outcome stays at
+              review).
+            </li>
+          ) : (
+            <li>Every listed row is fully viewed or its gap explained.</li>
+          )}
+        </ul>
         {submit.error ? <Notice tone="error">{submit.error.message}</Notice> : null}
         <Button
           className="self-start"
@@ -50,8 +69,8 @@ export function ReviewActions({
     return (
       <div className="flex flex-col gap-3">
         <p className="text-sm">
-          Submitted for review: images and flags are locked until an engineer dispositions it or
-          sends it back.
+          Submitted for review: images, findings, coverage and flags are locked until an engineer
+          dispositions it or sends it back.
         </p>
         {canReturn ? (
           <form

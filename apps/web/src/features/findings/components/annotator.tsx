@@ -1,0 +1,688 @@
+import { useReducer, useState, type ReactNode } from 'react';
+import { cautions } from '@emberline/contracts/cautions';
+import type { Finding, FindingInput } from '@emberline/contracts/findings';
+import type { EngineModelRow } from '@emberline/contracts/fleet';
+import type { InspectionDetail } from '@emberline/contracts/inspections';
+import type { LimitSet } from '@emberline/contracts/limit-sets';
+import { damageTypes, type Category, type DamageType } from '@emberline/contracts/limits';
+import type { Calibration } from '@emberline/contracts/measurement';
+import { verdictStyles } from '@emberline/drawings/verdict-style';
+import { Button } from '../../../components/ui/button';
+import { Input, Select } from '../../../components/ui/field';
+import { Notice } from '../../../components/ui/notice';
+import { ImageViewer } from '../../inspections/components/image-viewer';
+import { useRecordFinding, useSeriesCandidates } from '../api/findings';
+import {
+  annotationReducer,
+  calibrationFrom,
+  initialAnnotation,
+  MM_PER_INCH,
+  shapeOf,
+  toolList,
+} from '../lib/annotation';
+import { liveMeasurement, liveVerdict } from '../lib/live';
+import { DrawingLayer } from './drawing-layer';
+import { reasonLabels } from '../lib/reason-labels';
+import { VerdictBadge } from './verdict';
+
+const damageLabel = (damage: string) => damage.replace(/-/g, ' ');
+const mm = (value: number | null | undefined, digits = 3) =>
+  value === null || value === undefined ? '—' : value.toFixed(digits);
+const numberOrNull = (text: string) => (text.trim() === '' ? null : Number(text));
+
+interface CalibrationChoice {
+  calibration: Calibration;
+  sourceImageId: string;
+}
+
+function Figure({ label, value, testId }: { label: string; value: ReactNode; testId?: string }) {
+  return (
+    <div>
+      <dt className="text-xs uppercase tracking-wide text-soot-600">{label}</dt>
+      <dd className="font-mono text-sm" data-testid={testId}>
+        {value}
+      </dd>
+    </div>
+  );
+}
+
+/**
+ * The inspector's bench: the viewer with the drawing tools over the image, the calibration, the
+ * live measurement and verdict (the shared domain code, as the server will compute them), and the
+ * form that records the finding.
+ */
+export function Annotator({
+  inspection,
+  rows,
+  index,
+  onIndex,
+  findings,
+  limitSet,
+  editable,
+}: {
+  inspection: InspectionDetail;
+  rows: EngineModelRow[];
+  index: number;
+  onIndex: (index: number) => void;
+  findings: Finding[];
+  limitSet: LimitSet | null | undefined;
+  editable: boolean;
+}) {
+  const images = inspection.images;
+  const image = images[Math.min(index, images.length - 1)]!;
+  const [state, dispatch] = useReducer(annotationReducer, initialAnnotation);
+  const [chosen, setChosen] = useState<Record<string, CalibrationChoice>>({});
+  const [pickUncertainty, setPickUncertainty] = useState('1');
+  const [trueSize, setTrueSize] = useState({
+    length: '',
+    width: '',
+    height: '',
+    unit: 'mm' as 'mm' | 'in',
+  });
+  const recorded = findings.filter((finding) => finding.status === 'recorded');
+
+  // A calibration chosen here, else the one the last finding on this image used.
+  const fromFindings = recorded.findLast(
+    (finding) => finding.imageId === image.id && finding.calibration,
+  );
+  const calibration: CalibrationChoice | null =
+    chosen[image.id] ??
+    (fromFindings?.calibration
+      ? {
+          calibration: fromFindings.calibration.calibration,
+          sourceImageId: fromFindings.calibration.imageId,
+        }
+      : null);
+  const reusable = images.filter(
+    (other) =>
+      other.id !== image.id &&
+      other.width === image.width &&
+      other.height === image.height &&
+      chosen[other.id],
+  );
+
+  const u = Math.max(0, Number(pickUncertainty) || 0);
+  const kind = shapeOf(state.tool);
+  const shape = kind && state.points.length > 0 ? { kind, points: state.points } : null;
+  const measurement = liveMeasurement(calibration?.calibration ?? null, shape, u);
+
+  const [form, setForm] = useState(() => ({
+    row: image.rowKey ?? inspection.rows[0] ?? '',
+    position: image.position ? String(image.position) : '',
+    zone: '',
+    damage: 'crack' as DamageType,
+    method: 'image' as 'image' | 'probe',
+    depthMm: '',
+    widthMm: '',
+    count: '',
+    probeLength: '',
+    probeArea: '',
+    probeUncertainty: '',
+    probeUncertaintyArea: '',
+    notes: '',
+    previousFindingId: '',
+  }));
+  const set = (changes: Partial<typeof form>) => setForm((current) => ({ ...current, ...changes }));
+  const row = rows.find((candidate) => candidate.key === form.row);
+  const zone = row?.zones.includes(form.zone) ? form.zone : (row?.zones[0] ?? '');
+  const position = Number(form.position);
+  const located = row && Number.isInteger(position) && position >= 1 && position <= row.count;
+
+  const values =
+    form.method === 'probe'
+      ? {
+          lengthMm: numberOrNull(form.probeLength),
+          areaMm2: numberOrNull(form.probeArea),
+          uncertaintyMm: numberOrNull(form.probeUncertainty),
+          uncertaintyMm2: numberOrNull(form.probeUncertaintyArea),
+        }
+      : {
+          lengthMm: measurement?.value?.lengthMm ?? null,
+          areaMm2: measurement?.value?.areaMm2 ?? null,
+          uncertaintyMm: measurement?.value?.uncertaintyMm ?? null,
+          uncertaintyMm2: measurement?.value?.uncertaintyMm2 ?? null,
+        };
+  // The whole inspection judged with the new finding, as the server will judge it: fast enough
+  // to run on every change of the drawing or the form.
+  const verdict =
+    located && limitSet && state.complete && kind
+      ? liveVerdict(rows, limitSet.rules, recorded, {
+          id: 'new',
+          row: form.row,
+          position,
+          zone,
+          damage: form.damage,
+          widthMm: numberOrNull(form.widthMm),
+          depthMm: numberOrNull(form.depthMm),
+          count: numberOrNull(form.count),
+          ...values,
+        })
+      : null;
+
+  const candidates = useSeriesCandidates(
+    inspection.id,
+    editable && located ? { row: form.row, position, damage: form.damage } : null,
+  );
+  const record = useRecordFinding(inspection.id);
+  const [announcement, setAnnouncement] = useState('');
+
+  const shapesOnImage = recorded
+    .filter((finding) => finding.imageId === image.id)
+    .map((finding) => ({
+      id: finding.id,
+      label: `F${finding.number}`,
+      detail:
+        finding.lengthMm !== null
+          ? `${finding.lengthMm.toFixed(2)} mm`
+          : finding.areaMm2 !== null
+            ? `${finding.areaMm2.toFixed(1)} mm²`
+            : undefined,
+      kind: finding.shape.kind,
+      points: finding.shape.points,
+      category: (finding.evaluation?.category ?? null) as Category | null,
+    }));
+
+  const toSize = (text: string) => {
+    const value = Number(text);
+    if (!(value > 0)) return undefined;
+    return trueSize.unit === 'in' ? value * MM_PER_INCH : value;
+  };
+  const calibrating = (state.tool === 'reference' || state.tool === 'plane') && state.complete;
+  const madeCalibration = calibrationFrom(state.tool, state.points, {
+    lengthMm: toSize(trueSize.length),
+    widthMm: toSize(trueSize.width),
+    heightMm: toSize(trueSize.height),
+  });
+
+  const submit = () => {
+    if (!shape) return;
+    const input: FindingInput = {
+      imageId: image.id,
+      shape,
+      calibration: calibration?.calibration ?? null,
+      calibrationImageId: calibration?.sourceImageId ?? null,
+      pickUncertaintyPx: u,
+      row: form.row,
+      position,
+      zone,
+      damage: form.damage,
+      method: form.method,
+      ...(form.method === 'probe' ? values : {}),
+      widthMm: numberOrNull(form.widthMm),
+      depthMm: numberOrNull(form.depthMm),
+      count: numberOrNull(form.count),
+      notes: form.notes,
+      previousFindingId: form.previousFindingId || null,
+    };
+    record.mutate(input, {
+      onSuccess: (finding) => {
+        dispatch({ type: 'clear' });
+        set({ depthMm: '', widthMm: '', count: '', notes: '', previousFindingId: '' });
+        setAnnouncement(
+          `F${finding.number} recorded: ${finding.evaluation ? verdictStyles[finding.evaluation.category].label : 'not judged'}`,
+        );
+      },
+    });
+  };
+
+  const toolbar = editable ? (
+    <div role="toolbar" aria-label="Drawing tools" className="flex flex-wrap gap-1 text-xs">
+      {toolList.map((tool) => (
+        <button
+          key={tool.tool}
+          type="button"
+          title={`${tool.label} (${tool.key}): ${tool.hint}`}
+          aria-keyshortcuts={tool.key}
+          aria-pressed={state.tool === tool.tool}
+          onClick={() => dispatch({ type: 'choose', tool: tool.tool })}
+          className={`rounded border px-2 py-1 ${state.tool === tool.tool ? 'border-ember-400 bg-ember-700 text-white' : 'border-soot-600 hover:bg-soot-800'}`}
+        >
+          {tool.label} <kbd className="opacity-70">{tool.key}</kbd>
+        </button>
+      ))}
+      <button
+        type="button"
+        title="Undo (Ctrl+Z)"
+        aria-keyshortcuts="Control+Z"
+        className="rounded border border-soot-600 px-2 py-1 hover:bg-soot-800 disabled:opacity-40"
+        disabled={state.past.length === 0}
+        onClick={() => dispatch({ type: 'undo' })}
+      >
+        Undo
+      </button>
+      <button
+        type="button"
+        title="Redo (Ctrl+Y)"
+        aria-keyshortcuts="Control+Y"
+        className="rounded border border-soot-600 px-2 py-1 hover:bg-soot-800 disabled:opacity-40"
+        disabled={state.future.length === 0}
+        onClick={() => dispatch({ type: 'redo' })}
+      >
+        Redo
+      </button>
+      {(state.tool === 'polyline' || state.tool === 'polygon') && !state.complete ? (
+        <button
+          type="button"
+          title="Finish the shape (Enter)"
+          className="rounded border border-soot-600 px-2 py-1 hover:bg-soot-800"
+          onClick={() => dispatch({ type: 'finish' })}
+        >
+          Finish shape
+        </button>
+      ) : null}
+    </div>
+  ) : null;
+
+  return (
+    <div className="flex flex-col gap-3">
+      <ImageViewer
+        images={images}
+        index={Math.min(index, images.length - 1)}
+        onIndex={(next) => {
+          dispatch({ type: 'clear' });
+          onIndex(next);
+        }}
+        rows={rows}
+        inspectionId={inspection.id}
+        editable={editable}
+        toolbar={toolbar}
+        leftButtonPans={state.tool === 'pan'}
+        overlay={(shown) => (
+          <DrawingLayer
+            image={shown}
+            state={state}
+            dispatch={dispatch}
+            shapes={shown.id === image.id ? shapesOnImage : []}
+            calibration={calibration?.calibration ?? null}
+            draftCategory={verdict?.value?.category ?? null}
+          />
+        )}
+      />
+      {editable ? (
+        <div className="grid gap-4 rounded-lg border border-soot-200 bg-white p-4 lg:grid-cols-3">
+          <section aria-labelledby="calibration-heading" className="flex flex-col gap-2 text-sm">
+            <h3 id="calibration-heading" className="font-semibold">
+              Scale
+            </h3>
+            <p data-testid="calibration-state">
+              {calibration
+                ? calibration.calibration.kind === 'reference'
+                  ? `Reference of ${calibration.calibration.lengthMm} mm${calibration.sourceImageId !== image.id ? ' (from another image of this size)' : ''}`
+                  : `Plane ${calibration.calibration.widthMm} × ${calibration.calibration.heightMm} mm`
+                : 'Not calibrated: pick a reference (R) or a plane (C).'}
+            </p>
+            {calibrating ? (
+              <form
+                className="flex flex-wrap items-end gap-2"
+                aria-label="True size of the reference"
+                onSubmit={(event) => {
+                  event.preventDefault();
+                  if (!madeCalibration) return;
+                  setChosen({
+                    ...chosen,
+                    [image.id]: { calibration: madeCalibration, sourceImageId: image.id },
+                  });
+                  dispatch({ type: 'choose', tool: 'polyline' });
+                }}
+              >
+                {state.tool === 'reference' ? (
+                  <label className="flex flex-col gap-1">
+                    True distance
+                    <Input
+                      type="number"
+                      step="any"
+                      min="0"
+                      value={trueSize.length}
+                      onChange={(event) => setTrueSize({ ...trueSize, length: event.target.value })}
+                      className="w-28"
+                      autoFocus
+                    />
+                  </label>
+                ) : (
+                  <>
+                    <label className="flex flex-col gap-1">
+                      Width (corner 1 to 2)
+                      <Input
+                        type="number"
+                        step="any"
+                        min="0"
+                        value={trueSize.width}
+                        onChange={(event) =>
+                          setTrueSize({ ...trueSize, width: event.target.value })
+                        }
+                        className="w-24"
+                        autoFocus
+                      />
+                    </label>
+                    <label className="flex flex-col gap-1">
+                      Height (2 to 3)
+                      <Input
+                        type="number"
+                        step="any"
+                        min="0"
+                        value={trueSize.height}
+                        onChange={(event) =>
+                          setTrueSize({ ...trueSize, height: event.target.value })
+                        }
+                        className="w-24"
+                      />
+                    </label>
+                  </>
+                )}
+                <label className="flex flex-col gap-1">
+                  Unit
+                  <Select
+                    value={trueSize.unit}
+                    onChange={(event) =>
+                      setTrueSize({ ...trueSize, unit: event.target.value as 'mm' | 'in' })
+                    }
+                  >
+                    <option value="mm">mm</option>
+                    <option value="in">in</option>
+                  </Select>
+                </label>
+                <Button type="submit" variant="secondary" disabled={!madeCalibration}>
+                  Use this scale
+                </Button>
+              </form>
+            ) : null}
+            {reusable.length > 0 ? (
+              <label className="flex flex-col gap-1">
+                Reuse the scale of an image of the same size
+                <Select
+                  value=""
+                  onChange={(event) => {
+                    const source = chosen[event.target.value];
+                    if (source) setChosen({ ...chosen, [image.id]: source });
+                  }}
+                >
+                  <option value="">Choose an image…</option>
+                  {reusable.map((other) => (
+                    <option key={other.id} value={other.id}>
+                      {other.originalName}
+                    </option>
+                  ))}
+                </Select>
+              </label>
+            ) : null}
+            <label className="flex flex-col gap-1">
+              Pick uncertainty (px a point)
+              <Input
+                type="number"
+                min="0"
+                max="50"
+                step="0.5"
+                value={pickUncertainty}
+                onChange={(event) => setPickUncertainty(event.target.value)}
+                className="w-24"
+              />
+            </label>
+          </section>
+
+          <section
+            aria-labelledby="measurement-heading"
+            className="flex flex-col gap-2 text-sm"
+            aria-live="polite"
+          >
+            <h3 id="measurement-heading" className="font-semibold">
+              Measurement and verdict
+            </h3>
+            {measurement?.error ? <Notice tone="error">{measurement.error}</Notice> : null}
+            {measurement?.value ? (
+              <dl className="grid grid-cols-2 gap-2">
+                {measurement.value.lengthMm !== null ? (
+                  <Figure
+                    label="Length"
+                    testId="live-length"
+                    value={`${mm(measurement.value.lengthMm)} mm ± ${mm(measurement.value.uncertaintyMm)} (${mm(measurement.value.lengthMm / MM_PER_INCH, 4)} in)`}
+                  />
+                ) : null}
+                {measurement.value.areaMm2 !== null ? (
+                  <>
+                    <Figure
+                      label="Area"
+                      testId="live-area"
+                      value={`${mm(measurement.value.areaMm2, 2)} mm² ± ${mm(measurement.value.uncertaintyMm2, 2)} (${mm(measurement.value.areaMm2 / 645.16, 5)} in²)`}
+                    />
+                    <Figure
+                      label="Perimeter"
+                      value={`${mm(measurement.value.perimeterMm, 2)} mm`}
+                    />
+                    <Figure
+                      label="Largest extent"
+                      value={`${mm(measurement.value.maxExtentMm, 2)} mm`}
+                    />
+                  </>
+                ) : null}
+              </dl>
+            ) : shape && shape.kind !== 'point' && !calibration ? (
+              <p className="text-soot-600">Calibrate the image to measure on it.</p>
+            ) : !shape ? (
+              <p className="text-soot-600">
+                Choose Line (L), Outline (O) or Point (P) and draw the damage.
+              </p>
+            ) : null}
+            {verdict?.value ? (
+              <div className="flex flex-col gap-1" data-testid="live-verdict">
+                <VerdictBadge category={verdict.value.category} />
+                <p>
+                  {verdict.value.ruleId ? `Rule ${verdict.value.ruleId}` : 'No rule matches'} ·{' '}
+                  {verdict.value.reasons.map((reason) => reasonLabels[reason]).join('; ')}
+                </p>
+                {verdict.value.indeterminate ? (
+                  <Notice tone="caution">
+                    Indeterminate: the value is{' '}
+                    {verdictStyles[verdict.value.measuredCategory].label.toLowerCase()} but the
+                    uncertainty reaches {verdictStyles[verdict.value.category].label.toLowerCase()}.
+                    A re-measurement or a better view could settle it.
+                  </Notice>
+                ) : null}
+              </div>
+            ) : verdict?.error ? (
+              <Notice tone="error">{verdict.error}</Notice>
+            ) : limitSet === null ? (
+              <Notice tone="caution">
+                No limit-set revision is in force for this engine model: every finding goes to
+                review.
+              </Notice>
+            ) : null}
+            <p className="text-xs text-soot-600">
+              {limitSet ? `Judged against ${limitSet.title} (revision ${limitSet.revision}). ` : ''}
+              {cautions.limits}
+            </p>
+          </section>
+
+          <form
+            aria-labelledby="finding-heading"
+            className="flex flex-col gap-2 text-sm"
+            onSubmit={(event) => {
+              event.preventDefault();
+              submit();
+            }}
+          >
+            <h3 id="finding-heading" className="font-semibold">
+              Record the finding
+            </h3>
+            <div className="grid grid-cols-2 gap-2">
+              <label className="flex flex-col gap-1">
+                Row
+                <Select
+                  value={form.row}
+                  onChange={(event) => set({ row: event.target.value, zone: '' })}
+                >
+                  {rows.map((candidate) => (
+                    <option key={candidate.key} value={candidate.key}>
+                      {candidate.label}
+                    </option>
+                  ))}
+                </Select>
+              </label>
+              <label className="flex flex-col gap-1">
+                Position {row ? `(1–${row.count})` : ''}
+                <Input
+                  type="number"
+                  min={1}
+                  max={row?.count}
+                  value={form.position}
+                  onChange={(event) => set({ position: event.target.value })}
+                />
+              </label>
+              <label className="flex flex-col gap-1">
+                Zone
+                <Select value={zone} onChange={(event) => set({ zone: event.target.value })}>
+                  {(row?.zones ?? []).map((candidate) => (
+                    <option key={candidate} value={candidate}>
+                      {damageLabel(candidate)}
+                    </option>
+                  ))}
+                </Select>
+              </label>
+              <label className="flex flex-col gap-1">
+                Damage
+                <Select
+                  value={form.damage}
+                  onChange={(event) => set({ damage: event.target.value as DamageType })}
+                >
+                  {damageTypes.map((damage) => (
+                    <option key={damage} value={damage}>
+                      {damageLabel(damage)}
+                    </option>
+                  ))}
+                </Select>
+              </label>
+            </div>
+            <fieldset className="flex gap-3">
+              <legend className="sr-only">Measured by</legend>
+              {(['image', 'probe'] as const).map((method) => (
+                <label key={method} className="flex items-center gap-1">
+                  <input
+                    type="radio"
+                    name="method"
+                    checked={form.method === method}
+                    onChange={() => set({ method })}
+                  />
+                  {method === 'image' ? 'On the image' : 'With the probe'}
+                </label>
+              ))}
+            </fieldset>
+            {form.method === 'probe' ? (
+              <div className="grid grid-cols-2 gap-2">
+                <label className="flex flex-col gap-1">
+                  Length (mm)
+                  <Input
+                    type="number"
+                    step="any"
+                    min="0"
+                    value={form.probeLength}
+                    onChange={(event) => set({ probeLength: event.target.value })}
+                  />
+                </label>
+                <label className="flex flex-col gap-1">
+                  ± (mm)
+                  <Input
+                    type="number"
+                    step="any"
+                    min="0"
+                    value={form.probeUncertainty}
+                    onChange={(event) => set({ probeUncertainty: event.target.value })}
+                  />
+                </label>
+                <label className="flex flex-col gap-1">
+                  Area (mm²)
+                  <Input
+                    type="number"
+                    step="any"
+                    min="0"
+                    value={form.probeArea}
+                    onChange={(event) => set({ probeArea: event.target.value })}
+                  />
+                </label>
+                <label className="flex flex-col gap-1">
+                  ± (mm²)
+                  <Input
+                    type="number"
+                    step="any"
+                    min="0"
+                    value={form.probeUncertaintyArea}
+                    onChange={(event) => set({ probeUncertaintyArea: event.target.value })}
+                  />
+                </label>
+              </div>
+            ) : null}
+            <div className="grid grid-cols-3 gap-2">
+              <label className="flex flex-col gap-1">
+                Depth (mm)
+                <Input
+                  type="number"
+                  step="any"
+                  min="0"
+                  value={form.depthMm}
+                  onChange={(event) => set({ depthMm: event.target.value })}
+                />
+              </label>
+              <label className="flex flex-col gap-1">
+                Width (mm)
+                <Input
+                  type="number"
+                  step="any"
+                  min="0"
+                  value={form.widthMm}
+                  onChange={(event) => set({ widthMm: event.target.value })}
+                />
+              </label>
+              <label className="flex flex-col gap-1">
+                Count
+                <Input
+                  type="number"
+                  step="1"
+                  min="0"
+                  value={form.count}
+                  onChange={(event) => set({ count: event.target.value })}
+                />
+              </label>
+            </div>
+            {candidates.data && candidates.data.length > 0 ? (
+              <label className="flex flex-col gap-1">
+                Same damage as an earlier finding?
+                <Select
+                  value={form.previousFindingId}
+                  onChange={(event) => set({ previousFindingId: event.target.value })}
+                >
+                  <option value="">No: new damage</option>
+                  {candidates.data.map((candidate) => (
+                    <option key={candidate.findingId} value={candidate.findingId}>
+                      {candidate.inspectionDate} (CSN {candidate.csn}): F{candidate.number}{' '}
+                      {damageLabel(candidate.zone)}
+                      {candidate.lengthMm !== null ? `, ${candidate.lengthMm.toFixed(2)} mm` : ''}
+                      {candidate.areaMm2 !== null ? `, ${candidate.areaMm2.toFixed(1)} mm²` : ''}
+                    </option>
+                  ))}
+                </Select>
+              </label>
+            ) : null}
+            <label className="flex flex-col gap-1">
+              Notes
+              <textarea
+                value={form.notes}
+                onChange={(event) => set({ notes: event.target.value })}
+                rows={2}
+                className="rounded-md border border-soot-300 px-3 py-2"
+              />
+            </label>
+            {record.error ? <Notice tone="error">{record.error.message}</Notice> : null}
+            <p role="status" className="text-sm text-soot-700">
+              {announcement}
+            </p>
+            <Button
+              type="submit"
+              busy={record.isPending}
+              disabled={!state.complete || !shape || !located}
+            >
+              Record finding
+            </Button>
+          </form>
+        </div>
+      ) : null}
+    </div>
+  );
+}
