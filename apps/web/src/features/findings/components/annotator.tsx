@@ -1,4 +1,4 @@
-import { useReducer, useState, type ReactNode } from 'react';
+import { useReducer, useState, type ButtonHTMLAttributes, type ReactNode } from 'react';
 import { cautions } from '@emberline/contracts/cautions';
 import type { Finding, FindingInput } from '@emberline/contracts/findings';
 import type { EngineModelRow } from '@emberline/contracts/fleet';
@@ -29,6 +29,40 @@ const damageLabel = (damage: string) => damage.replace(/-/g, ' ');
 const mm = (value: number | null | undefined, digits = 3) =>
   value === null || value === undefined ? '—' : value.toFixed(digits);
 const numberOrNull = (text: string) => (text.trim() === '' ? null : Number(text));
+
+/** A decimal entry (mm, mm², counts) with its label. */
+function DecimalField({
+  label,
+  value,
+  onChange,
+}: {
+  label: string;
+  value: string;
+  onChange: (value: string) => void;
+}) {
+  return (
+    <label className="flex flex-col gap-1">
+      {label}
+      <Input
+        type="number"
+        step="any"
+        min="0"
+        value={value}
+        onChange={(event) => onChange(event.target.value)}
+      />
+    </label>
+  );
+}
+
+function ToolButton(props: ButtonHTMLAttributes<HTMLButtonElement>) {
+  return (
+    <button
+      type="button"
+      className="rounded border border-soot-600 px-2 py-1 hover:bg-soot-800 disabled:opacity-40"
+      {...props}
+    />
+  );
+}
 
 interface CalibrationChoice {
   calibration: Calibration;
@@ -240,26 +274,22 @@ export function Annotator({
           {tool.label} <kbd className="opacity-70">{tool.key}</kbd>
         </button>
       ))}
-      <button
-        type="button"
+      <ToolButton
         title="Undo (Ctrl+Z)"
         aria-keyshortcuts="Control+Z"
-        className="rounded border border-soot-600 px-2 py-1 hover:bg-soot-800 disabled:opacity-40"
         disabled={state.past.length === 0}
         onClick={() => dispatch({ type: 'undo' })}
       >
         Undo
-      </button>
-      <button
-        type="button"
+      </ToolButton>
+      <ToolButton
         title="Redo (Ctrl+Y)"
         aria-keyshortcuts="Control+Y"
-        className="rounded border border-soot-600 px-2 py-1 hover:bg-soot-800 disabled:opacity-40"
         disabled={state.future.length === 0}
         onClick={() => dispatch({ type: 'redo' })}
       >
         Redo
-      </button>
+      </ToolButton>
       {(state.tool === 'polyline' || state.tool === 'polygon') && !state.complete ? (
         <button
           type="button"
@@ -567,69 +597,39 @@ export function Annotator({
             </fieldset>
             {form.method === 'probe' ? (
               <div className="grid grid-cols-2 gap-2">
-                <label className="flex flex-col gap-1">
-                  Length (mm)
-                  <Input
-                    type="number"
-                    step="any"
-                    min="0"
-                    value={form.probeLength}
-                    onChange={(event) => set({ probeLength: event.target.value })}
-                  />
-                </label>
-                <label className="flex flex-col gap-1">
-                  ± (mm)
-                  <Input
-                    type="number"
-                    step="any"
-                    min="0"
-                    value={form.probeUncertainty}
-                    onChange={(event) => set({ probeUncertainty: event.target.value })}
-                  />
-                </label>
-                <label className="flex flex-col gap-1">
-                  Area (mm²)
-                  <Input
-                    type="number"
-                    step="any"
-                    min="0"
-                    value={form.probeArea}
-                    onChange={(event) => set({ probeArea: event.target.value })}
-                  />
-                </label>
-                <label className="flex flex-col gap-1">
-                  ± (mm²)
-                  <Input
-                    type="number"
-                    step="any"
-                    min="0"
-                    value={form.probeUncertaintyArea}
-                    onChange={(event) => set({ probeUncertaintyArea: event.target.value })}
-                  />
-                </label>
+                <DecimalField
+                  label="Length (mm)"
+                  value={form.probeLength}
+                  onChange={(value) => set({ probeLength: value })}
+                />
+                <DecimalField
+                  label="± (mm)"
+                  value={form.probeUncertainty}
+                  onChange={(value) => set({ probeUncertainty: value })}
+                />
+                <DecimalField
+                  label="Area (mm²)"
+                  value={form.probeArea}
+                  onChange={(value) => set({ probeArea: value })}
+                />
+                <DecimalField
+                  label="± (mm²)"
+                  value={form.probeUncertaintyArea}
+                  onChange={(value) => set({ probeUncertaintyArea: value })}
+                />
               </div>
             ) : null}
             <div className="grid grid-cols-3 gap-2">
-              <label className="flex flex-col gap-1">
-                Depth (mm)
-                <Input
-                  type="number"
-                  step="any"
-                  min="0"
-                  value={form.depthMm}
-                  onChange={(event) => set({ depthMm: event.target.value })}
-                />
-              </label>
-              <label className="flex flex-col gap-1">
-                Width (mm)
-                <Input
-                  type="number"
-                  step="any"
-                  min="0"
-                  value={form.widthMm}
-                  onChange={(event) => set({ widthMm: event.target.value })}
-                />
-              </label>
+              <DecimalField
+                label="Depth (mm)"
+                value={form.depthMm}
+                onChange={(value) => set({ depthMm: value })}
+              />
+              <DecimalField
+                label="Width (mm)"
+                value={form.widthMm}
+                onChange={(value) => set({ widthMm: value })}
+              />
               <label className="flex flex-col gap-1">
                 Count
                 <Input

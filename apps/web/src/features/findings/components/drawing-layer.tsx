@@ -137,6 +137,8 @@ export function DrawingLayer({
     >
       <svg
         ref={svg}
+        // The shapes are listed in words under the image; the drawing itself is not read out.
+        aria-hidden="true"
         viewBox={`0 0 ${image.width} ${image.height}`}
         className={`absolute inset-0 h-full w-full ${drawing ? 'cursor-crosshair' : ''}`}
         onClick={(event) => {
