@@ -1,5 +1,6 @@
 // Performance benchmarks (QUALITY §4). Each figure is printed beside its ceiling, measured in the
 // same run where the ceiling is a measurement. Run after `pnpm build`.
+import { benchAnnotation } from './annotation';
 import { benchEngineList } from './engine-list';
 import { benchEvaluation } from './evaluation';
 import { benchIngest } from './ingest';
@@ -12,6 +13,7 @@ const results = [
   await benchSessionCheck(),
   await benchEngineList(),
   ...(await benchIngest()),
+  ...(await benchAnnotation()),
 ];
 
 console.log(`\n${'benchmark'.padEnd(50)}${'figure'.padEnd(16)}${'ceiling'.padEnd(22)}within`);

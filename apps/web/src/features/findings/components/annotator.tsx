@@ -1,4 +1,4 @@
-import { useReducer, useState, type ButtonHTMLAttributes, type ReactNode } from 'react';
+import { useMemo, useReducer, useState, type ButtonHTMLAttributes, type ReactNode } from 'react';
 import { cautions } from '@emberline/contracts/cautions';
 import type { Finding, FindingInput } from '@emberline/contracts/findings';
 import type { EngineModelRow } from '@emberline/contracts/fleet';
@@ -200,21 +200,25 @@ export function Annotator({
   const record = useRecordFinding(inspection.id);
   const [announcement, setAnnouncement] = useState('');
 
-  const shapesOnImage = recorded
-    .filter((finding) => finding.imageId === image.id)
-    .map((finding) => ({
-      id: finding.id,
-      label: `F${finding.number}`,
-      detail:
-        finding.lengthMm !== null
-          ? `${finding.lengthMm.toFixed(2)} mm`
-          : finding.areaMm2 !== null
-            ? `${finding.areaMm2.toFixed(1)} mm²`
-            : undefined,
-      kind: finding.shape.kind,
-      points: finding.shape.points,
-      category: (finding.evaluation?.category ?? null) as Category | null,
-    }));
+  const shapesOnImage = useMemo(
+    () =>
+      findings
+        .filter((finding) => finding.status === 'recorded' && finding.imageId === image.id)
+        .map((finding) => ({
+          id: finding.id,
+          label: `F${finding.number}`,
+          detail:
+            finding.lengthMm !== null
+              ? `${finding.lengthMm.toFixed(2)} mm`
+              : finding.areaMm2 !== null
+                ? `${finding.areaMm2.toFixed(1)} mm²`
+                : undefined,
+          kind: finding.shape.kind,
+          points: finding.shape.points,
+          category: (finding.evaluation?.category ?? null) as Category | null,
+        })),
+    [findings, image.id],
+  );
 
   const toSize = (text: string) => {
     const value = Number(text);

@@ -1,10 +1,21 @@
-import { useRef, useState, type Dispatch, type KeyboardEvent, type PointerEvent } from 'react';
+import {
+  memo,
+  useMemo,
+  useRef,
+  useState,
+  type Dispatch,
+  type KeyboardEvent,
+  type PointerEvent,
+} from 'react';
 import type { Image } from '@emberline/contracts/inspections';
 import type { Category } from '@emberline/contracts/limits';
 import type { Calibration, ImagePoint } from '@emberline/contracts/measurement';
 import { annotationOverlay, overlayScale, type OverlayShape } from '@emberline/drawings/overlay';
 import { SvgDrawing } from '../../../components/ui/svg-drawing';
 import { shapeOf, toolList, type AnnotationAction, type AnnotationState } from '../lib/annotation';
+
+const MemoSvgDrawing = memo(SvgDrawing, (before, after) => before.drawing === after.drawing);
+const frame = (image: Image) => ({ x: 0, y: 0, width: image.width, height: image.height });
 
 /** The image point under a pointer, through the SVG's own transform (zoom and pan included). */
 function imagePoint(
@@ -63,11 +74,16 @@ export function DrawingLayer({
           },
         ]
       : [];
-  const overlay = annotationOverlay({
+  // The recorded shapes are drawn once per change of the findings, not on every click or key:
+  // with hundreds of findings on an image that is most of the work of a frame.
+  const recordedOverlay = useMemo(
+    () => annotationOverlay({ width: image.width, height: image.height, shapes, calibration }),
+    [image.width, image.height, shapes, calibration],
+  );
+  const draftOverlay = annotationOverlay({
     width: image.width,
     height: image.height,
-    shapes: [...shapes, ...draftShape],
-    calibration,
+    shapes: draftShape,
   });
 
   const onKeyDown = (event: KeyboardEvent) => {
@@ -153,10 +169,8 @@ export function DrawingLayer({
           setTimeout(() => (dragging.current = null), 0);
         }}
       >
-        <SvgDrawing
-          drawing={overlay}
-          svgProps={{ x: 0, y: 0, width: image.width, height: image.height }}
-        />
+        <MemoSvgDrawing drawing={recordedOverlay} svgProps={frame(image)} />
+        <SvgDrawing drawing={draftOverlay} svgProps={frame(image)} />
         {state.points.map(([x, y], index) => (
           <circle
             key={index}
