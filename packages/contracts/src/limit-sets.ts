@@ -37,3 +37,26 @@ export const limitSetSchema = limitSetSummarySchema.extend({ rules: z.array(rule
 export type LimitSet = z.infer<typeof limitSetSchema>;
 
 export const limitSetListResponseSchema = z.object({ items: z.array(limitSetSummarySchema) });
+
+const revisionText = z.string().trim().min(1, { message: 'Give the revision' }).max(40);
+
+/** A new draft made from an existing revision: the engineer's starting point for the next one. */
+export const limitSetCopyInputSchema = z.strictObject({
+  revision: revisionText,
+  title: z.string().trim().min(1).max(200),
+  manualReference: z
+    .string()
+    .trim()
+    .min(1, { message: 'Name the manual and its revision' })
+    .max(300),
+  effectiveDate: isoDateSchema.nullable().default(null),
+});
+export type LimitSetCopyInput = z.input<typeof limitSetCopyInputSchema>;
+
+export const limitRulesInputSchema = z.strictObject({ rules: z.array(ruleSchema).max(5000) });
+export type LimitRulesInput = z.input<typeof limitRulesInputSchema>;
+
+/** Publishing asks for the engineer's password again. */
+export const publishInputSchema = z.strictObject({
+  password: z.string().min(1, { message: 'Enter your password to publish' }).max(200),
+});

@@ -8,6 +8,7 @@ import {
   publishLimitSet,
 } from '../modules/limit-sets/limit-sets.repository';
 import { canonicalSha256 } from '../lib/canonical';
+import { limitSetContent } from '../modules/limit-sets/limit-sets.service';
 import { DEMO_MODEL_ID, demoModelRows } from './demo-fleet';
 
 // Every limit here is INVENTED for the demo scenario. None is taken from, or resembles on purpose,
@@ -364,7 +365,7 @@ export function loadDemoLimits(tx: DbOrTx, now: Date, effectiveDate: string): vo
   publishLimitSet(tx, DEMO_LIMIT_SET_ID, DEMO_MODEL_ID, {
     at: now,
     by: 'user-engineer',
-    contentSha256: canonicalSha256({ ...demoLimitSet, effectiveDate, rules: demoRules }),
+    contentSha256: canonicalSha256(limitSetContent({ ...demoLimitSet, effectiveDate }, demoRules)),
   });
   appendAudit(tx, now, {
     actorUserId: null,

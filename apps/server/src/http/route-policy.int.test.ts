@@ -36,6 +36,19 @@ const accountOf: Record<Role, string> = {
   customer: demoAccounts.customer,
 };
 
+// One sign-in per role (bcrypt makes each one slow), taken again after a route that may end it.
+const cookies = new Map<Role, string>();
+const endsSessions = new Set([
+  'POST /auth/logout',
+  'POST /auth/password',
+  'PATCH /users/:id',
+  'DELETE /users/:id/sessions',
+]);
+async function cookieOf(role: Role): Promise<string> {
+  if (!cookies.has(role)) cookies.set(role, await t.signIn(accountOf[role]));
+  return cookies.get(role)!;
+}
+
 let t: TestApp;
 beforeAll(async () => {
   t = await startTestApp();
@@ -63,8 +76,9 @@ describe('the route policy', () => {
           path,
         );
         // A fresh session per call: some routes (sign-out, end sessions) end the caller's session.
-        if (role) call = call.set('Cookie', await t.signIn(accountOf[role]));
+        if (role) call = call.set('Cookie', await cookieOf(role));
         const response = method === 'GET' ? await call : await call.send({});
+        if (endsSessions.has(key)) cookies.clear();
         const label = `${key} as ${role ?? 'anonymous'}`;
         if (allows(access, role)) {
           expect([401, 403], label).not.toContain(response.status);

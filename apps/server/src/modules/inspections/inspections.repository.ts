@@ -1,4 +1,4 @@
-import { and, count, desc, eq, type SQL } from 'drizzle-orm';
+import { and, count, desc, eq, ne, type SQL } from 'drizzle-orm';
 import type { DbOrTx } from '../../db/client';
 import { engines, images, inspections } from '../../db/schema';
 
@@ -70,4 +70,15 @@ export function updateInspectionFlags(
   flags: InspectionRecord['flags'],
 ): void {
   db.update(inspections).set({ flags }).where(eq(inspections.id, id)).run();
+}
+
+/** Inspections of a model's engines that are not released: their findings are still open. */
+export function openInspectionIds(db: DbOrTx, modelId: string): string[] {
+  return db
+    .select({ id: inspections.id })
+    .from(inspections)
+    .innerJoin(engines, eq(engines.id, inspections.engineId))
+    .where(and(eq(engines.modelId, modelId), ne(inspections.state, 'released')))
+    .all()
+    .map((row) => row.id);
 }

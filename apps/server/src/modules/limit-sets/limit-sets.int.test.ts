@@ -1,6 +1,8 @@
+import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { limitSetSchema } from '@emberline/contracts/limit-sets';
+import type { Rule } from '@emberline/contracts/limits';
 import { validateRuleZones, validateRules } from '@emberline/domain/limits';
 import { demoAccounts, startTestApp, type TestApp } from '../../../test/test-app';
 import { DEMO_MODEL_ID, demoModelRows } from '../../demo/demo-fleet';
@@ -81,5 +83,151 @@ describe('the limit library, read side', () => {
       (await request(t.app).get('/api/v1/engine-models/none/limit-sets').set('Cookie', cookie))
         .status,
     ).toBe(404);
+  });
+});
+
+describe('the limit library, write side', () => {
+  it('copies the demo revision, tightens a crack limit, publishes, and judges open findings again', async () => {
+    const engineer = await t.signIn(demoAccounts.engineer);
+    const inspector = await t.signIn(demoAccounts.inspector);
+    // An open inspection with a blade edge crack of 1.25 mm: repeat inspection under D-1.
+    const created = await request(t.app)
+      .post('/api/v1/inspections')
+      .set('Cookie', inspector)
+      .send({
+        engineId: 'engine-d0101',
+        date: '2026-05-20',
+        reason: 'scheduled',
+        csn: 14_125,
+        tsn: 22_600,
+        inspectorName: 'Tobias Rennick',
+        qualificationRef: 'BSI-L2-0457',
+        qualificationExpiresOn: '2027-03-31',
+        probe: 'Demo probe VX-6 s/n 118',
+        probeCalibrationDueOn: '2026-09-30',
+        rows: ['hpt1-blade'],
+      });
+    const jpeg = await sharp({
+      create: { width: 800, height: 600, channels: 3, background: '#553311' },
+    })
+      .jpeg()
+      .toBuffer();
+    const uploaded = await request(t.app)
+      .post(`/api/v1/inspections/${created.body.id}/images`)
+      .set('Cookie', inspector)
+      .attach('files', jpeg, { filename: 'blade.jpg', contentType: 'image/jpeg' });
+    const finding = await request(t.app)
+      .post(`/api/v1/inspections/${created.body.id}/findings`)
+      .set('Cookie', inspector)
+      .send({
+        imageId: uploaded.body.images[0].id,
+        shape: {
+          kind: 'polyline',
+          points: [
+            [300, 300],
+            [350, 300],
+          ],
+        },
+        calibration: { kind: 'reference', p1: [100, 100], p2: [500, 100], lengthMm: 10 },
+        row: 'hpt1-blade',
+        position: 9,
+        zone: 'leading-edge',
+        damage: 'crack',
+        method: 'image',
+      });
+    expect(finding.body.evaluation.category).toBe('repeat-inspection');
+
+    const copy = await request(t.app)
+      .post(`/api/v1/limit-sets/${DEMO_LIMIT_SET_ID}/copies`)
+      .set('Cookie', engineer)
+      .send({
+        revision: 'D-2',
+        title: 'Invented demo limits, tightened',
+        manualReference: 'VT-300 Demo Engine Manual (invented), rev. 2',
+      });
+    expect(copy.status).toBe(201);
+    expect(copy.body).toMatchObject({
+      status: 'draft',
+      basedOnId: DEMO_LIMIT_SET_ID,
+      invented: true,
+    });
+    const rules = (copy.body.rules as Rule[]).map((rule) =>
+      rule.id === 'hpt1-blade.crack.edges' ? { ...rule, repeatMax: 1 } : rule,
+    );
+
+    const bad = await request(t.app)
+      .put(`/api/v1/limit-sets/${copy.body.id}/rules`)
+      .set('Cookie', engineer)
+      .send({
+        rules: rules.map((rule) =>
+          rule.id === 'hpt1-ngv.burn' ? { ...rule, zones: ['tip'] } : rule,
+        ),
+      });
+    expect(bad.status).toBe(422);
+    expect(bad.body.error.message).toMatch(
+      /hpt1-ngv\.burn names the zone "tip", which hpt1-ngv does not have/,
+    );
+
+    const saved = await request(t.app)
+      .put(`/api/v1/limit-sets/${copy.body.id}/rules`)
+      .set('Cookie', engineer)
+      .send({ rules });
+    expect(saved.status).toBe(200);
+    expect(
+      (
+        await request(t.app)
+          .put(`/api/v1/limit-sets/${DEMO_LIMIT_SET_ID}/rules`)
+          .set('Cookie', engineer)
+          .send({ rules })
+      ).status,
+    ).toBe(409);
+    expect(
+      (
+        await request(t.app)
+          .post(`/api/v1/limit-sets/${copy.body.id}/publication`)
+          .set('Cookie', engineer)
+          .send({ password: 'wrong' })
+      ).status,
+    ).toBe(422);
+    expect(
+      (
+        await request(t.app)
+          .post(`/api/v1/limit-sets/${copy.body.id}/copies`)
+          .set('Cookie', inspector)
+          .send({ revision: 'X', title: 'X', manualReference: 'X' })
+      ).status,
+    ).toBe(403);
+
+    const published = await request(t.app)
+      .post(`/api/v1/limit-sets/${copy.body.id}/publication`)
+      .set('Cookie', engineer)
+      .send({ password: 'emberline-demo' });
+    expect(published.status).toBe(200);
+    expect(published.body).toMatchObject({
+      status: 'published',
+      publishedByName: 'Priya Castellane',
+    });
+    expect(published.body.contentSha256).toMatch(/^[0-9a-f]{64}$/);
+    const list = await request(t.app)
+      .get(`/api/v1/engine-models/${DEMO_MODEL_ID}/limit-sets`)
+      .set('Cookie', engineer);
+    expect(
+      Object.fromEntries(
+        list.body.items.map((item: { revision: string; status: string }) => [
+          item.revision,
+          item.status,
+        ]),
+      ),
+    ).toEqual({
+      'D-1': 'superseded',
+      'D-2': 'published',
+    });
+
+    // The open finding is judged again against D-2: 1.25 mm is now beyond the 1.0 mm repeat limit.
+    const after = await request(t.app)
+      .get(`/api/v1/findings/${finding.body.id}`)
+      .set('Cookie', inspector);
+    expect(after.body).toMatchObject({ limitSetId: copy.body.id, limitSetRevision: 'D-2' });
+    expect(after.body.evaluation.category).toBe('beyond-limits');
   });
 });

@@ -136,3 +136,9 @@ export function publishLimitSet(
     .where(eq(limitSets.id, id))
     .run();
 }
+
+/** Replaces the rules of a draft (SQLite refuses it for a published or superseded revision). */
+export function replaceRules(db: DbOrTx, limitSetId: string, rules: readonly Rule[]): void {
+  db.delete(limitRules).where(eq(limitRules.limitSetId, limitSetId)).run();
+  insertRules(db, limitSetId, rules);
+}

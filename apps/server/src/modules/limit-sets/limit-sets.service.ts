@@ -1,8 +1,30 @@
-import type { LimitSet, LimitSetSummary } from '@emberline/contracts/limit-sets';
-import type { AppContext } from '../../context';
+import type { LimitSet, LimitSetCopyInput, LimitSetSummary } from '@emberline/contracts/limit-sets';
+import { limitSetCopyInputSchema } from '@emberline/contracts/limit-sets';
+import type { Rule } from '@emberline/contracts/limits';
+import { DomainError } from '@emberline/domain/errors';
+import { validateRuleZones, validateRules } from '@emberline/domain/limits';
+import type { AppContext, RequestMeta } from '../../context';
+import { inTransaction } from '../../db/client';
 import { AppError } from '../../http/app-error';
-import { findEngineModel } from '../engine-models/engine-models.repository';
-import { findLimitSet, listLimitSets, listRules, type LimitSetRow } from './limit-sets.repository';
+import type { Principal } from '../../http/principal';
+import { canonicalSha256 } from '../../lib/canonical';
+import { newId } from '../../lib/ids';
+import { appendAudit } from '../audit/audit.repository';
+import { verifyPassword } from '../auth/passwords';
+import { findEngineModel, listModelRows } from '../engine-models/engine-models.repository';
+import { evaluateInspection } from '../findings/inspection-evaluation';
+import { openInspectionIds } from '../inspections/inspections.repository';
+import { findUserById } from '../users/users.repository';
+import {
+  findLimitSet,
+  insertLimitSet,
+  insertRules,
+  listLimitSets,
+  listRules,
+  publishLimitSet,
+  replaceRules,
+  type LimitSetRow,
+} from './limit-sets.repository';
 
 export function toLimitSetSummary(row: LimitSetRow): LimitSetSummary {
   return {
@@ -23,9 +45,52 @@ export function toLimitSetSummary(row: LimitSetRow): LimitSetSummary {
   };
 }
 
-/** The limit library, read side: staff only (the route policy keeps customers out). */
+/** The content a publication signs: the revision and its rules, hashed as RFC 8785 JSON. */
+export function limitSetContent(
+  row: Pick<
+    LimitSetRow,
+    'modelId' | 'revision' | 'title' | 'manualReference' | 'effectiveDate' | 'invented'
+  >,
+  rules: readonly Rule[],
+) {
+  return {
+    modelId: row.modelId,
+    revision: row.revision,
+    title: row.title,
+    manualReference: row.manualReference,
+    effectiveDate: row.effectiveDate,
+    invented: row.invented,
+    rules,
+  };
+}
+
+/** The limit library: staff read it (the route policy keeps customers out); engineers change drafts. */
 export function createLimitSetsService(ctx: AppContext) {
   const { db } = ctx;
+
+  function draft(id: string): LimitSetRow {
+    const row = findLimitSet(db, id);
+    if (!row) throw AppError.notFound('There is no such limit-set revision');
+    if (row.status !== 'draft')
+      throw AppError.conflict(
+        'This revision is published or superseded and cannot change: copy it into a new draft instead.',
+      );
+    return row;
+  }
+
+  /** Rules checked against the model: a limit for every rule, units that fit, rows and zones it has. */
+  function checkRules(modelId: string, rules: readonly Rule[]): void {
+    const rows = listModelRows(db, modelId);
+    try {
+      validateRules(rules, new Set(rows.map((row) => row.key)));
+      validateRuleZones(rules, new Map(rows.map((row) => [row.key, row.zones])));
+    } catch (error) {
+      if (error instanceof DomainError)
+        throw AppError.unprocessable(error.message, { path: error.path });
+      throw error;
+    }
+  }
+
   return {
     list(modelId: string): LimitSetSummary[] {
       if (!findEngineModel(db, modelId)) throw AppError.notFound('There is no such engine model');
@@ -36,6 +101,116 @@ export function createLimitSetsService(ctx: AppContext) {
       const row = findLimitSet(db, id);
       if (!row) throw AppError.notFound('There is no such limit-set revision');
       return { ...toLimitSetSummary(row), rules: listRules(db, id) };
+    },
+
+    /** A new draft with the rules of an existing revision. */
+    copy(
+      principal: Principal,
+      sourceId: string,
+      body: LimitSetCopyInput,
+      meta: RequestMeta,
+    ): LimitSet {
+      const input = limitSetCopyInputSchema.parse(body);
+      const source = findLimitSet(db, sourceId);
+      if (!source) throw AppError.notFound('There is no such limit-set revision');
+      if (listLimitSets(db, source.modelId).some((row) => row.revision === input.revision))
+        throw AppError.unprocessable(
+          `Revision ${input.revision} already exists for this engine model`,
+          {
+            fields: { revision: ['This revision already exists'] },
+            form: [],
+          },
+        );
+      const id = newId();
+      const now = ctx.now();
+      const rules = listRules(db, sourceId);
+      inTransaction(db, (tx) => {
+        insertLimitSet(tx, {
+          id,
+          modelId: source.modelId,
+          ...input,
+          status: 'draft',
+          // Copied limits stay marked as invented until an engineer replaces them.
+          invented: source.invented,
+          basedOnId: source.id,
+          createdBy: principal.user.id,
+          createdAt: now,
+        });
+        insertRules(tx, id, rules);
+        appendAudit(tx, now, {
+          actorUserId: principal.user.id,
+          action: 'limit-set.copied',
+          entityType: 'limit-set',
+          entityId: id,
+          after: { from: source.id, revision: input.revision, rules: rules.length },
+          requestId: meta.requestId,
+          ip: meta.ip,
+        });
+      });
+      return this.detail(id);
+    },
+
+    /** Replaces the rules of a draft, checked against the engine model first. */
+    replaceRules(principal: Principal, id: string, rules: Rule[], meta: RequestMeta): LimitSet {
+      const row = draft(id);
+      checkRules(row.modelId, rules);
+      const before = listRules(db, id);
+      const now = ctx.now();
+      inTransaction(db, (tx) => {
+        replaceRules(tx, id, rules);
+        appendAudit(tx, now, {
+          actorUserId: principal.user.id,
+          action: 'limit-set.rules-replaced',
+          entityType: 'limit-set',
+          entityId: id,
+          before: { rules: before },
+          after: { rules },
+          requestId: meta.requestId,
+          ip: meta.ip,
+        });
+      });
+      return this.detail(id);
+    },
+
+    /**
+     * Puts a draft in force: the engineer's password again, the SHA-256 of the canonical JSON of
+     * the revision recorded, the revision in force superseded, and every open inspection of the
+     * model's engines judged again against the new one.
+     */
+    async publish(
+      principal: Principal,
+      id: string,
+      password: string,
+      meta: RequestMeta,
+    ): Promise<LimitSet> {
+      const row = draft(id);
+      const user = findUserById(db, principal.user.id);
+      if (!(await verifyPassword(password, user?.passwordHash ?? null)))
+        throw AppError.unprocessable('That is not your password: publishing needs it again', {
+          fields: { password: ['Not your password'] },
+          form: [],
+        });
+      const rules = listRules(db, id);
+      if (rules.length === 0)
+        throw AppError.unprocessable('A revision without rules cannot be published');
+      checkRules(row.modelId, rules);
+      const contentSha256 = canonicalSha256(limitSetContent(row, rules));
+      const now = ctx.now();
+      const reopened = openInspectionIds(db, row.modelId);
+      inTransaction(db, (tx) => {
+        publishLimitSet(tx, id, row.modelId, { at: now, by: principal.user.id, contentSha256 });
+        for (const inspectionId of reopened) evaluateInspection(tx, inspectionId, now);
+        appendAudit(tx, now, {
+          actorUserId: principal.user.id,
+          action: 'limit-set.published',
+          entityType: 'limit-set',
+          entityId: id,
+          after: { revision: row.revision, contentSha256, reevaluatedInspections: reopened.length },
+          requestId: meta.requestId,
+          ip: meta.ip,
+        });
+      });
+      return this.detail(id);
     },
   };
 }
