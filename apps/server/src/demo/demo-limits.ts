@@ -15,6 +15,7 @@ import { DEMO_MODEL_ID, demoModelRows } from './demo-fleet';
 // any real engine manual; an approved manual's limits are transcribed by engineers in the limit library.
 
 export const DEMO_LIMIT_SET_ID = 'limits-vt300-demo-r1';
+export const DEMO_DRAFT_LIMIT_SET_ID = 'limits-vt300-demo-r2';
 const MANUAL = 'VT-300 Demo Engine Manual 72-00-00 (invented)';
 
 /** The rule fields a demo rule may leave out: no zone list means any zone, no limit means none. */
@@ -367,6 +368,28 @@ export function loadDemoLimits(tx: DbOrTx, now: Date, effectiveDate: string): vo
     by: 'user-engineer',
     contentSha256: canonicalSha256(limitSetContent({ ...demoLimitSet, effectiveDate }, demoRules)),
   });
+  // A draft of the next revision with a tighter blade-edge crack limit, so that the impact preview
+  // has demo findings to show (the growing crack on VT3-D0103 would no longer be in repeat).
+  insertLimitSet(tx, {
+    id: DEMO_DRAFT_LIMIT_SET_ID,
+    modelId: DEMO_MODEL_ID,
+    revision: 'D-2',
+    title: 'Invented demo limits, draft: tighter blade-edge cracks',
+    manualReference: 'VT-300 Demo Engine Manual 72-00-00 (invented), draft of revision 2',
+    invented: true,
+    status: 'draft',
+    effectiveDate: null,
+    basedOnId: DEMO_LIMIT_SET_ID,
+    createdBy: 'user-engineer',
+    createdAt: now,
+  });
+  insertRules(
+    tx,
+    DEMO_DRAFT_LIMIT_SET_ID,
+    demoRules.map((rule) =>
+      rule.id === 'hpt1-blade.crack.edges' ? { ...rule, repeatMax: 1.2 } : rule,
+    ),
+  );
   appendAudit(tx, now, {
     actorUserId: null,
     action: 'demo.limit-set-published',

@@ -22,15 +22,20 @@ describe('the limit library, read side', () => {
       .get(`/api/v1/engine-models/${DEMO_MODEL_ID}/limit-sets`)
       .set('Cookie', cookie);
     expect(response.status).toBe(200);
-    expect(response.body.items).toHaveLength(1);
-    expect(response.body.items[0]).toMatchObject({
+    const byStatus = (status: string) =>
+      response.body.items.filter((item: { status: string }) => item.status === status);
+    expect(byStatus('published')).toHaveLength(1);
+    expect(byStatus('draft')).toMatchObject([
+      { revision: 'D-2', invented: true, basedOnId: DEMO_LIMIT_SET_ID },
+    ]);
+    expect(byStatus('published')[0]).toMatchObject({
       id: DEMO_LIMIT_SET_ID,
       status: 'published',
       invented: true,
       publishedByName: 'Priya Castellane',
     });
-    expect(response.body.items[0].title).toMatch(/invented/i);
-    expect(response.body.items[0].contentSha256).toMatch(/^[0-9a-f]{64}$/);
+    expect(byStatus('published')[0].title).toMatch(/invented/i);
+    expect(byStatus('published')[0].contentSha256).toMatch(/^[0-9a-f]{64}$/);
   });
 
   it('gives the rules in the contract shape, covering every row of the demo model', async () => {
@@ -137,11 +142,22 @@ describe('the limit library, write side', () => {
       });
     expect(finding.body.evaluation.category).toBe('repeat-inspection');
 
-    const copy = await request(t.app)
+    const taken = await request(t.app)
       .post(`/api/v1/limit-sets/${DEMO_LIMIT_SET_ID}/copies`)
       .set('Cookie', engineer)
       .send({
         revision: 'D-2',
+        title: 'Again',
+        manualReference: 'VT-300 Demo Engine Manual (invented)',
+      });
+    expect(taken.status).toBe(422);
+    expect(taken.body.error.message).toMatch(/Revision D-2 already exists/);
+
+    const copy = await request(t.app)
+      .post(`/api/v1/limit-sets/${DEMO_LIMIT_SET_ID}/copies`)
+      .set('Cookie', engineer)
+      .send({
+        revision: 'D-3',
         title: 'Invented demo limits, tightened',
         manualReference: 'VT-300 Demo Engine Manual (invented), rev. 2',
       });
@@ -220,14 +236,15 @@ describe('the limit library, write side', () => {
       ),
     ).toEqual({
       'D-1': 'superseded',
-      'D-2': 'published',
+      'D-2': 'draft',
+      'D-3': 'published',
     });
 
-    // The open finding is judged again against D-2: 1.25 mm is now beyond the 1.0 mm repeat limit.
+    // The open finding is judged again against D-3: 1.25 mm is now beyond the 1.0 mm repeat limit.
     const after = await request(t.app)
       .get(`/api/v1/findings/${finding.body.id}`)
       .set('Cookie', inspector);
-    expect(after.body).toMatchObject({ limitSetId: copy.body.id, limitSetRevision: 'D-2' });
+    expect(after.body).toMatchObject({ limitSetId: copy.body.id, limitSetRevision: 'D-3' });
     expect(after.body.evaluation.category).toBe('beyond-limits');
   });
 });
