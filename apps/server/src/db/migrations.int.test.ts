@@ -1,10 +1,15 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import type Database from 'better-sqlite3';
-import sharp from 'sharp';
 import request from 'supertest';
 import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
 import { describe, expect, it } from 'vitest';
+import {
+  openInspection,
+  still,
+  tenMillimetreReference,
+  uploadImages,
+} from '../../test/inspection-fixtures';
 import { demoAccounts, makeDataDir, startTestApp } from '../../test/test-app';
 import { paths } from '../config/paths';
 import { DEMO_LIMIT_SET_ID } from '../demo/demo-limits';
@@ -19,37 +24,19 @@ async function populatedDatabase(): Promise<string> {
   const dataDir = makeDataDir();
   const t = await startTestApp({ dataDir, env: { DEMO_IMAGES: '0' } });
   const inspector = await t.signIn(demoAccounts.inspector);
-  const created = await request(t.app)
-    .post('/api/v1/inspections')
-    .set('Cookie', inspector)
-    .send({
-      engineId: 'engine-d0101',
-      date: '2026-05-20',
-      reason: 'scheduled',
-      csn: 14_125,
-      tsn: 22_600,
-      inspectorName: 'Tobias Rennick',
-      qualificationRef: 'BSI-L2-0457',
-      qualificationExpiresOn: '2027-03-31',
-      probe: 'Demo probe VX-6 s/n 118',
-      probeCalibrationDueOn: '2026-09-30',
-      rows: ['hpt1-ngv'],
-    });
-  const jpeg = await sharp({
-    create: { width: 800, height: 600, channels: 3, background: '#664422' },
-  })
-    .jpeg()
-    .toBuffer();
-  const uploaded = await request(t.app)
-    .post(`/api/v1/inspections/${created.body.id}/images`)
-    .set('Cookie', inspector)
-    .attach('files', jpeg, { filename: 'still.jpg', contentType: 'image/jpeg' });
+  const inspectionId = await openInspection(t.app, inspector, {
+    engineId: 'engine-d0101',
+    date: '2026-05-20',
+    csn: 14_125,
+    rows: ['hpt1-ngv'],
+  });
+  const [imageId] = await uploadImages(t.app, inspector, inspectionId, [await still(800, 600)]);
   for (const position of [1, 2, 3]) {
     const response = await request(t.app)
-      .post(`/api/v1/inspections/${created.body.id}/findings`)
+      .post(`/api/v1/inspections/${inspectionId}/findings`)
       .set('Cookie', inspector)
       .send({
-        imageId: uploaded.body.images[0].id,
+        imageId,
         shape: {
           kind: 'polyline',
           points: [
@@ -57,7 +44,7 @@ async function populatedDatabase(): Promise<string> {
             [340, 330],
           ],
         },
-        calibration: { kind: 'reference', p1: [100, 100], p2: [500, 100], lengthMm: 10 },
+        calibration: tenMillimetreReference,
         row: 'hpt1-ngv',
         position,
         zone: 'leading-edge',

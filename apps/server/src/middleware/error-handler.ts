@@ -35,13 +35,26 @@ function fromMiddleware(error: HttpishError): AppError | null {
   }
 }
 
+/**
+ * A domain rule broken: the path of the item at fault, and the message under the field the path
+ * starts with, so that a form shows it where the user entered the value.
+ */
+function domainDetails(error: DomainError) {
+  const field = error.path[0];
+  return {
+    path: error.path,
+    fields: field === undefined ? {} : { [String(field)]: [error.message] },
+    form: field === undefined ? [error.message] : [],
+  };
+}
+
 /** The one error middleware: the contract's error shape with a request id, never a stack, SQL or path. */
 export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
   const known =
     error instanceof AppError
       ? error
       : error instanceof DomainError
-        ? AppError.unprocessable(error.message, { path: error.path })
+        ? AppError.unprocessable(error.message, domainDetails(error))
         : fromMiddleware(error as HttpishError);
   const requestId = String(req.id ?? '');
   if (!known) {

@@ -1,8 +1,13 @@
-import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Finding, FindingListResponse } from '@emberline/contracts/findings';
 import { demoAccounts, startTestApp, type TestApp } from '../../../test/test-app';
+import {
+  openInspection,
+  still,
+  tenMillimetreReference,
+  uploadImages,
+} from '../../../test/inspection-fixtures';
 import { DEMO_LIMIT_SET_ID } from '../../demo/demo-limits';
 
 let t: TestApp;
@@ -14,13 +19,7 @@ let image: string;
 let otherImage: string;
 let smallImage: string;
 
-const still = (width: number, height: number, shade: number) =>
-  sharp({ create: { width, height, channels: 3, background: { r: shade, g: 90, b: 40 } } })
-    .jpeg()
-    .toBuffer();
-
-// 400 px between the two reference points, 10 mm apart: 0.025 mm a pixel.
-const calibration = { kind: 'reference', p1: [100, 100], p2: [500, 100], lengthMm: 10 } as const;
+const calibration = tenMillimetreReference;
 
 /** A crack line of `px` pixels (two segments of px/2), starting at (x, y). */
 const crackLine = (x: number, y: number, px: number) => ({
@@ -50,45 +49,9 @@ const post = (body: object, cookie = inspector, id = inspectionId) =>
 const list = async (id = inspectionId): Promise<FindingListResponse> =>
   (await request(t.app).get(`/api/v1/inspections/${id}/findings`).set('Cookie', inspector)).body;
 
-async function openInspection(engineId: string, date: string, csn: number): Promise<string> {
-  const response = await request(t.app)
-    .post('/api/v1/inspections')
-    .set('Cookie', inspector)
-    .send({
-      engineId,
-      date,
-      reason: 'scheduled',
-      csn,
-      tsn: csn * 1.6,
-      inspectorName: 'Tobias Rennick',
-      qualificationRef: 'BSI-L2-0457',
-      qualificationExpiresOn: '2027-03-31',
-      probe: 'Demo probe VX-6 s/n 118',
-      probeCalibrationDueOn: '2026-09-30',
-      rows: ['hpt1-ngv', 'hpt1-blade'],
-    });
-  expect(response.status).toBe(201);
-  return response.body.id;
-}
-
-async function uploadImages(id: string, files: Buffer[]): Promise<string[]> {
-  let call = request(t.app).post(`/api/v1/inspections/${id}/images`).set('Cookie', inspector);
-  files.forEach((data, index) => {
-    call = call.attach('files', data, {
-      filename: `still-${index}.jpg`,
-      contentType: 'image/jpeg',
-    });
-  });
-  const response = await call;
-  expect(response.status).toBe(201);
-  // Uploads run two at a time: match the answers back to the files by name.
-  return files.map(
-    (_, index) =>
-      (response.body.images as { id: string; originalName: string }[]).find(
-        (item) => item.originalName === `still-${index}.jpg`,
-      )!.id,
-  );
-}
+const open = (engineId: string, date: string, csn: number) =>
+  openInspection(t.app, inspector, { engineId, date, csn });
+const upload = (id: string, files: Buffer[]) => uploadImages(t.app, inspector, id, files);
 
 /** Acknowledges whatever the inspection was flagged for, then submits it. */
 async function submit(id: string): Promise<void> {
@@ -110,8 +73,8 @@ beforeAll(async () => {
   inspector = await t.signIn(demoAccounts.inspector);
   engineer = await t.signIn(demoAccounts.engineer);
   customer = await t.signIn(demoAccounts.customer);
-  inspectionId = await openInspection('engine-d0101', '2026-05-20', 14_125);
-  [image = '', otherImage = '', smallImage = ''] = await uploadImages(inspectionId, [
+  inspectionId = await open('engine-d0101', '2026-05-20', 14_125);
+  [image = '', otherImage = '', smallImage = ''] = await upload(inspectionId, [
     await still(1600, 1200, 120),
     await still(1600, 1200, 140),
     await still(800, 600, 160),
@@ -300,8 +263,8 @@ describe('judging the whole inspection', () => {
 
 describe('coverage and outcome', () => {
   it('keeps the outcome at best review while a listed row is not fully viewed without a reason', async () => {
-    const id = await openInspection('engine-d0102', '2026-05-21', 13_900);
-    const [only] = await uploadImages(id, [await still(1600, 1200, 90)]);
+    const id = await open('engine-d0102', '2026-05-21', 13_900);
+    const [only] = await upload(id, [await still(1600, 1200, 90)]);
     const small = await post(finding({ imageId: only, position: 3 }), inspector, id);
     expect(small.body.evaluation.category).toBe('serviceable');
     const coverage = (row: string, body: object) =>
@@ -344,13 +307,13 @@ describe('coverage and outcome', () => {
 
 describe('damage series', () => {
   it('offers the same damage from an earlier inspection and links it on confirmation', async () => {
-    const first = await openInspection('engine-d0104', '2026-01-10', 10_500);
-    const [firstImage] = await uploadImages(first, [await still(1600, 1200, 70)]);
+    const first = await open('engine-d0104', '2026-01-10', 10_500);
+    const [firstImage] = await upload(first, [await still(1600, 1200, 70)]);
     const earlier = (
       await post(finding({ imageId: firstImage, row: 'hpt1-blade', position: 7 }), inspector, first)
     ).body as Finding;
-    const later = await openInspection('engine-d0104', '2026-04-10', 11_000);
-    const [laterImage] = await uploadImages(later, [await still(1600, 1200, 75)]);
+    const later = await open('engine-d0104', '2026-04-10', 11_000);
+    const [laterImage] = await upload(later, [await still(1600, 1200, 75)]);
 
     const candidates = await request(t.app)
       .get(`/api/v1/inspections/${later}/series-candidates`)
@@ -424,8 +387,8 @@ describe('who may see and change findings', () => {
   });
 
   it('locks findings and coverage once the inspection is submitted, until it is sent back', async () => {
-    const id = await openInspection('engine-d0105', '2026-05-22', 9_000);
-    const [only] = await uploadImages(id, [await still(1600, 1200, 60)]);
+    const id = await open('engine-d0105', '2026-05-22', 9_000);
+    const [only] = await upload(id, [await still(1600, 1200, 60)]);
     const recorded = (await post(finding({ imageId: only }), inspector, id)).body as Finding;
     await submit(id);
 

@@ -13,7 +13,6 @@ import type { EngineModelRow } from '@emberline/contracts/fleet';
 import type { Category, FindingEvaluation } from '@emberline/contracts/limits';
 import type { ImagePoint } from '@emberline/contracts/measurement';
 import { isCoverageGap, normaliseCoverage } from '@emberline/domain/coverage';
-import { DomainError } from '@emberline/domain/errors';
 import { assertShape, measure } from '@emberline/domain/measurement';
 import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction, type DbOrTx } from '../../db/client';
@@ -117,12 +116,7 @@ function assertInside(points: readonly ImagePoint[], image: ImageMeta, field: st
  * uncertainty. The calibration is kept as a snapshot with the size of the image it was made on.
  */
 function measureFinding(db: DbOrTx, input: ParsedFindingInput, image: ImageMeta): Measured {
-  try {
-    assertShape(input.shape);
-  } catch (error) {
-    if (error instanceof DomainError) throw invalid('shape', error.message);
-    throw error;
-  }
+  assertShape(input.shape);
   assertInside(input.shape.points, image, 'shape');
   let snapshot: CalibrationSnapshot | null = null;
   if (input.calibration) {
@@ -188,16 +182,10 @@ function measureFinding(db: DbOrTx, input: ParsedFindingInput, image: ImageMeta)
       'calibration',
       `Calibrate the image first: a ${input.shape.kind} measured on the image needs a calibration`,
     );
-  try {
-    return {
-      ...measure(input.calibration, input.shape, input.pickUncertaintyPx),
-      calibration: snapshot,
-    };
-  } catch (error) {
-    if (error instanceof DomainError)
-      throw invalid(error.path[0] === 'shape' ? 'shape' : 'calibration', error.message);
-    throw error;
-  }
+  return {
+    ...measure(input.calibration, input.shape, input.pickUncertaintyPx),
+    calibration: snapshot,
+  };
 }
 
 function coverageOf(
@@ -546,14 +534,7 @@ export function createFindingsService(ctx: AppContext) {
       const onRow = listFindings(db, inspectionId).filter(
         (finding) => finding.status === 'recorded' && finding.rowKey === rowKey,
       ).length;
-      let normal;
-      try {
-        normal = normaliseCoverage(input, row, onRow);
-      } catch (error) {
-        if (error instanceof DomainError)
-          throw invalid(String(error.path[0] ?? 'status'), error.message);
-        throw error;
-      }
+      const normal = normaliseCoverage(input, row, onRow);
       const before = listCoverage(db, inspectionId).find((item) => item.rowKey === rowKey) ?? null;
       const now = ctx.now();
       inTransaction(db, (tx) => {

@@ -1,9 +1,14 @@
-import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { limitSetSchema } from '@emberline/contracts/limit-sets';
 import type { Rule } from '@emberline/contracts/limits';
 import { validateRuleZones, validateRules } from '@emberline/domain/limits';
+import {
+  openInspection,
+  still,
+  tenMillimetreReference,
+  uploadImages,
+} from '../../../test/inspection-fixtures';
 import { demoAccounts, startTestApp, type TestApp } from '../../../test/test-app';
 import { DEMO_MODEL_ID, demoModelRows } from '../../demo/demo-fleet';
 import { DEMO_LIMIT_SET_ID } from '../../demo/demo-limits';
@@ -96,36 +101,18 @@ describe('the limit library, write side', () => {
     const engineer = await t.signIn(demoAccounts.engineer);
     const inspector = await t.signIn(demoAccounts.inspector);
     // An open inspection with a blade edge crack of 1.25 mm: repeat inspection under D-1.
-    const created = await request(t.app)
-      .post('/api/v1/inspections')
-      .set('Cookie', inspector)
-      .send({
-        engineId: 'engine-d0101',
-        date: '2026-05-20',
-        reason: 'scheduled',
-        csn: 14_125,
-        tsn: 22_600,
-        inspectorName: 'Tobias Rennick',
-        qualificationRef: 'BSI-L2-0457',
-        qualificationExpiresOn: '2027-03-31',
-        probe: 'Demo probe VX-6 s/n 118',
-        probeCalibrationDueOn: '2026-09-30',
-        rows: ['hpt1-blade'],
-      });
-    const jpeg = await sharp({
-      create: { width: 800, height: 600, channels: 3, background: '#553311' },
-    })
-      .jpeg()
-      .toBuffer();
-    const uploaded = await request(t.app)
-      .post(`/api/v1/inspections/${created.body.id}/images`)
-      .set('Cookie', inspector)
-      .attach('files', jpeg, { filename: 'blade.jpg', contentType: 'image/jpeg' });
+    const inspectionId = await openInspection(t.app, inspector, {
+      engineId: 'engine-d0101',
+      date: '2026-05-20',
+      csn: 14_125,
+      rows: ['hpt1-blade'],
+    });
+    const [imageId] = await uploadImages(t.app, inspector, inspectionId, [await still(800, 600)]);
     const finding = await request(t.app)
-      .post(`/api/v1/inspections/${created.body.id}/findings`)
+      .post(`/api/v1/inspections/${inspectionId}/findings`)
       .set('Cookie', inspector)
       .send({
-        imageId: uploaded.body.images[0].id,
+        imageId,
         shape: {
           kind: 'polyline',
           points: [
@@ -133,7 +120,7 @@ describe('the limit library, write side', () => {
             [350, 300],
           ],
         },
-        calibration: { kind: 'reference', p1: [100, 100], p2: [500, 100], lengthMm: 10 },
+        calibration: tenMillimetreReference,
         row: 'hpt1-blade',
         position: 9,
         zone: 'leading-edge',

@@ -1,7 +1,6 @@
 import type { LimitSet, LimitSetCopyInput, LimitSetSummary } from '@emberline/contracts/limit-sets';
 import { limitSetCopyInputSchema } from '@emberline/contracts/limit-sets';
 import type { Rule } from '@emberline/contracts/limits';
-import { DomainError } from '@emberline/domain/errors';
 import { validateRuleZones, validateRules } from '@emberline/domain/limits';
 import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction } from '../../db/client';
@@ -81,14 +80,8 @@ export function createLimitSetsService(ctx: AppContext) {
   /** Rules checked against the model: a limit for every rule, units that fit, rows and zones it has. */
   function checkRules(modelId: string, rules: readonly Rule[]): void {
     const rows = listModelRows(db, modelId);
-    try {
-      validateRules(rules, new Set(rows.map((row) => row.key)));
-      validateRuleZones(rules, new Map(rows.map((row) => [row.key, row.zones])));
-    } catch (error) {
-      if (error instanceof DomainError)
-        throw AppError.unprocessable(error.message, { path: error.path });
-      throw error;
-    }
+    validateRules(rules, new Set(rows.map((row) => row.key)));
+    validateRuleZones(rules, new Map(rows.map((row) => [row.key, row.zones])));
   }
 
   return {
