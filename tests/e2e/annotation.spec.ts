@@ -143,6 +143,25 @@ test('the inspector calibrates, draws a burn outline and a crack line, records b
   await bladeRow.locator('[data-position="12"] path').click();
   await expect(bladeRow.getByTestId('finding-item')).toHaveCount(1);
 
+  // A wrong position is corrected in place: the drawing stays, the ring and the store follow.
+  await bladeRow.getByRole('button', { name: 'Correct F2…' }).click();
+  const correction = page.getByRole('form', { name: 'Correct F2' });
+  await correction.getByLabel(/^Position/).fill('');
+  await correction.getByRole('button', { name: 'Save F2' }).click();
+  await expect(correction.getByText('enter the position number')).toBeVisible();
+  await correction.getByLabel(/^Position/).fill('13');
+  await correction.screenshot({ path: 'test-results/annotation-correct.png' });
+  await correction.getByRole('button', { name: 'Save F2' }).click();
+  await expect(correction).toHaveCount(0);
+  await expect(bladeRow.locator('[data-position="13"]')).toHaveAttribute(
+    'data-category',
+    crack.evaluation.category,
+  );
+  await expect(bladeRow.locator('[data-position="12"]')).toHaveAttribute('data-category', 'none');
+  const corrected = await (await page.request.get(`/api/v1/findings/${crack.id}`)).json();
+  expect(corrected.position).toBe(13);
+  expect(corrected.lengthMm).toBe(crack.lengthMm);
+
   // Coverage: both rows fully viewed; the outcome loses its gaps.
   await expect(page.getByTestId('inspection-outcome')).toContainText('Not fully viewed');
   for (const row of ['HPT stage 1 nozzle guide vanes', 'HPT stage 1 blades']) {

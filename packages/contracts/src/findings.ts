@@ -36,7 +36,11 @@ export const findingInputSchema = z.strictObject({
   calibrationImageId: id.nullable().default(null),
   pickUncertaintyPx: pickUncertaintySchema.default(1),
   row: key,
-  position: z.number().int({ message: 'positions are whole numbers' }).min(1).max(2000),
+  position: z
+    .number({ error: 'enter the position number' })
+    .int({ message: 'positions are whole numbers' })
+    .min(1)
+    .max(2000),
   zone: key,
   damage: damageTypeSchema,
   method: measurementMethodSchema,
@@ -61,6 +65,29 @@ export const findingInputSchema = z.strictObject({
 });
 export type FindingInput = z.input<typeof findingInputSchema>;
 export type ParsedFindingInput = z.output<typeof findingInputSchema>;
+
+/**
+ * What the inspector enters about a finding beside its drawing: where it is, what it is, the
+ * entered values and, for the probe, the measured ones. The form for a new finding and the form
+ * that corrects a recorded one both validate with it.
+ */
+export const findingDetailsSchema = findingInputSchema.pick({
+  row: true,
+  position: true,
+  zone: true,
+  damage: true,
+  method: true,
+  lengthMm: true,
+  areaMm2: true,
+  uncertaintyMm: true,
+  uncertaintyMm2: true,
+  widthMm: true,
+  depthMm: true,
+  count: true,
+  notes: true,
+  previousFindingId: true,
+});
+export type FindingDetails = z.input<typeof findingDetailsSchema>;
 
 export const voidInputSchema = z.strictObject({
   reason: z

@@ -46,3 +46,7 @@ export function applyServerErrors<T extends FieldValues>(
 
 /** For an optional text input whose contract value is null when left empty. */
 export const emptyToNull = (value: unknown) => (value === '' ? null : value);
+
+/** For an optional number input whose contract value is null when left empty. */
+export const emptyToNullNumber = (value: unknown) =>
+  value === '' || value === null || value === undefined ? null : Number(value);

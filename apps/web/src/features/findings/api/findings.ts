@@ -91,6 +91,16 @@ export function useRecordFinding(inspectionId: string) {
   });
 }
 
+/** A recorded finding corrected: the whole inspection is judged again on the server. */
+export function useUpdateFinding(inspectionId: string) {
+  const invalidate = useInvalidateFindings(inspectionId);
+  return useMutation({
+    mutationFn: ({ id, input }: { id: string; input: FindingInput }) =>
+      api.put<Finding>(`/findings/${encodeURIComponent(id)}`, input),
+    onSuccess: () => invalidate(),
+  });
+}
+
 export function useVoidFinding(inspectionId: string) {
   const invalidate = useInvalidateFindings(inspectionId);
   return useMutation({

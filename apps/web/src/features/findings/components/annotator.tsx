@@ -1,15 +1,20 @@
 import { useMemo, useReducer, useState, type ButtonHTMLAttributes, type ReactNode } from 'react';
 import { cautions } from '@emberline/contracts/cautions';
-import type { Finding, FindingInput } from '@emberline/contracts/findings';
+import {
+  findingDetailsSchema,
+  type Finding,
+  type FindingInput,
+} from '@emberline/contracts/findings';
 import type { EngineModelRow } from '@emberline/contracts/fleet';
 import type { InspectionDetail } from '@emberline/contracts/inspections';
 import type { LimitSet } from '@emberline/contracts/limit-sets';
-import { damageTypes, type Category, type DamageType } from '@emberline/contracts/limits';
+import type { Category } from '@emberline/contracts/limits';
 import type { Calibration } from '@emberline/contracts/measurement';
 import { verdictStyles } from '@emberline/drawings/verdict-style';
 import { Button } from '../../../components/ui/button';
 import { Input, Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
+import { applyServerErrors, useZodForm } from '../../../lib/form';
 import { ImageViewer } from '../../inspections/components/image-viewer';
 import { useRecordFinding, useSeriesCandidates } from '../api/findings';
 import {
@@ -22,37 +27,13 @@ import {
 } from '../lib/annotation';
 import { liveMeasurement, liveVerdict } from '../lib/live';
 import { DrawingLayer } from './drawing-layer';
+import { FindingFields } from './finding-fields';
+import { blankDetails } from '../lib/finding-details';
 import { reasonLabels } from '../lib/reason-labels';
 import { VerdictBadge } from './verdict';
 
-const damageLabel = (damage: string) => damage.replace(/-/g, ' ');
 const mm = (value: number | null | undefined, digits = 3) =>
   value === null || value === undefined ? '—' : value.toFixed(digits);
-const numberOrNull = (text: string) => (text.trim() === '' ? null : Number(text));
-
-/** A decimal entry (mm, mm², counts) with its label. */
-function DecimalField({
-  label,
-  value,
-  onChange,
-}: {
-  label: string;
-  value: string;
-  onChange: (value: string) => void;
-}) {
-  return (
-    <label className="flex flex-col gap-1">
-      {label}
-      <Input
-        type="number"
-        step="any"
-        min="0"
-        value={value}
-        onChange={(event) => onChange(event.target.value)}
-      />
-    </label>
-  );
-}
 
 function ToolButton(props: ButtonHTMLAttributes<HTMLButtonElement>) {
   return (
@@ -140,35 +121,25 @@ export function Annotator({
   const shape = kind && state.points.length > 0 ? { kind, points: state.points } : null;
   const measurement = liveMeasurement(calibration?.calibration ?? null, shape, u);
 
-  const [form, setForm] = useState(() => ({
-    row: image.rowKey ?? inspection.rows[0] ?? '',
-    position: image.position ? String(image.position) : '',
-    zone: '',
-    damage: 'crack' as DamageType,
-    method: 'image' as 'image' | 'probe',
-    depthMm: '',
-    widthMm: '',
-    count: '',
-    probeLength: '',
-    probeArea: '',
-    probeUncertainty: '',
-    probeUncertaintyArea: '',
-    notes: '',
-    previousFindingId: '',
-  }));
-  const set = (changes: Partial<typeof form>) => setForm((current) => ({ ...current, ...changes }));
-  const row = rows.find((candidate) => candidate.key === form.row);
-  const zone = row?.zones.includes(form.zone) ? form.zone : (row?.zones[0] ?? '');
-  const position = Number(form.position);
+  const form = useZodForm(findingDetailsSchema, {
+    defaultValues: blankDetails(
+      rows.find((candidate) => candidate.key === (image.rowKey ?? inspection.rows[0])),
+      image.position,
+    ),
+  });
+  const details = form.watch();
+  const row = rows.find((candidate) => candidate.key === details.row);
+  const zone = row?.zones.includes(details.zone) ? details.zone : (row?.zones[0] ?? '');
+  const position = details.position;
   const located = row && Number.isInteger(position) && position >= 1 && position <= row.count;
 
   const values =
-    form.method === 'probe'
+    details.method === 'probe'
       ? {
-          lengthMm: numberOrNull(form.probeLength),
-          areaMm2: numberOrNull(form.probeArea),
-          uncertaintyMm: numberOrNull(form.probeUncertainty),
-          uncertaintyMm2: numberOrNull(form.probeUncertaintyArea),
+          lengthMm: details.lengthMm ?? null,
+          areaMm2: details.areaMm2 ?? null,
+          uncertaintyMm: details.uncertaintyMm ?? null,
+          uncertaintyMm2: details.uncertaintyMm2 ?? null,
         }
       : {
           lengthMm: measurement?.value?.lengthMm ?? null,
@@ -182,20 +153,20 @@ export function Annotator({
     located && limitSet && state.complete && kind
       ? liveVerdict(rows, limitSet.rules, recorded, {
           id: 'new',
-          row: form.row,
+          row: details.row,
           position,
           zone,
-          damage: form.damage,
-          widthMm: numberOrNull(form.widthMm),
-          depthMm: numberOrNull(form.depthMm),
-          count: numberOrNull(form.count),
+          damage: details.damage,
+          widthMm: details.widthMm ?? null,
+          depthMm: details.depthMm ?? null,
+          count: details.count ?? null,
           ...values,
         })
       : null;
 
   const candidates = useSeriesCandidates(
     inspection.id,
-    editable && located ? { row: form.row, position, damage: form.damage } : null,
+    editable && located ? { row: details.row, position, damage: details.damage } : null,
   );
   const record = useRecordFinding(inspection.id);
   const [announcement, setAnnouncement] = useState('');
@@ -232,36 +203,35 @@ export function Annotator({
     heightMm: toSize(trueSize.height),
   });
 
-  const submit = () => {
+  const [formError, setFormError] = useState('');
+  const submit = form.handleSubmit((entered) => {
     if (!shape) return;
+    setFormError('');
     const input: FindingInput = {
+      ...entered,
       imageId: image.id,
       shape,
       calibration: calibration?.calibration ?? null,
       calibrationImageId: calibration?.sourceImageId ?? null,
       pickUncertaintyPx: u,
-      row: form.row,
-      position,
-      zone,
-      damage: form.damage,
-      method: form.method,
-      ...(form.method === 'probe' ? values : {}),
-      widthMm: numberOrNull(form.widthMm),
-      depthMm: numberOrNull(form.depthMm),
-      count: numberOrNull(form.count),
-      notes: form.notes,
-      previousFindingId: form.previousFindingId || null,
     };
     record.mutate(input, {
       onSuccess: (finding) => {
         dispatch({ type: 'clear' });
-        set({ depthMm: '', widthMm: '', count: '', notes: '', previousFindingId: '' });
+        form.reset({
+          ...blankDetails(row, entered.position),
+          row: entered.row,
+          zone: entered.zone,
+          damage: entered.damage,
+          method: entered.method,
+        });
         setAnnouncement(
           `F${finding.number} recorded: ${finding.evaluation ? verdictStyles[finding.evaluation.category].label : 'not judged'}`,
         );
       },
+      onError: (error) => setFormError(applyServerErrors(form, error)),
     });
-  };
+  });
 
   const toolbar = editable ? (
     <div role="toolbar" aria-label="Drawing tools" className="flex flex-wrap gap-1 text-xs">
@@ -314,6 +284,14 @@ export function Annotator({
         index={Math.min(index, images.length - 1)}
         onIndex={(next) => {
           dispatch({ type: 'clear' });
+          // A still taken at a known row and position places the next finding there.
+          const shown = images[next];
+          const placed = rows.find((candidate) => candidate.key === shown?.rowKey);
+          if (placed && shown?.position) {
+            form.setValue('row', placed.key);
+            form.setValue('zone', placed.zones[0] ?? '');
+            form.setValue('position', shown.position);
+          }
           onIndex(next);
         }}
         rows={rows}
@@ -529,151 +507,14 @@ export function Annotator({
           <form
             aria-labelledby="finding-heading"
             className="flex flex-col gap-2 text-sm"
-            onSubmit={(event) => {
-              event.preventDefault();
-              submit();
-            }}
+            noValidate
+            onSubmit={(event) => void submit(event)}
           >
             <h3 id="finding-heading" className="font-semibold">
               Record the finding
             </h3>
-            <div className="grid grid-cols-2 gap-2">
-              <label className="flex flex-col gap-1">
-                Row
-                <Select
-                  value={form.row}
-                  onChange={(event) => set({ row: event.target.value, zone: '' })}
-                >
-                  {rows.map((candidate) => (
-                    <option key={candidate.key} value={candidate.key}>
-                      {candidate.label}
-                    </option>
-                  ))}
-                </Select>
-              </label>
-              <label className="flex flex-col gap-1">
-                Position {row ? `(1–${row.count})` : ''}
-                <Input
-                  type="number"
-                  min={1}
-                  max={row?.count}
-                  value={form.position}
-                  onChange={(event) => set({ position: event.target.value })}
-                />
-              </label>
-              <label className="flex flex-col gap-1">
-                Zone
-                <Select value={zone} onChange={(event) => set({ zone: event.target.value })}>
-                  {(row?.zones ?? []).map((candidate) => (
-                    <option key={candidate} value={candidate}>
-                      {damageLabel(candidate)}
-                    </option>
-                  ))}
-                </Select>
-              </label>
-              <label className="flex flex-col gap-1">
-                Damage
-                <Select
-                  value={form.damage}
-                  onChange={(event) => set({ damage: event.target.value as DamageType })}
-                >
-                  {damageTypes.map((damage) => (
-                    <option key={damage} value={damage}>
-                      {damageLabel(damage)}
-                    </option>
-                  ))}
-                </Select>
-              </label>
-            </div>
-            <fieldset className="flex gap-3">
-              <legend className="sr-only">Measured by</legend>
-              {(['image', 'probe'] as const).map((method) => (
-                <label key={method} className="flex items-center gap-1">
-                  <input
-                    type="radio"
-                    name="method"
-                    checked={form.method === method}
-                    onChange={() => set({ method })}
-                  />
-                  {method === 'image' ? 'On the image' : 'With the probe'}
-                </label>
-              ))}
-            </fieldset>
-            {form.method === 'probe' ? (
-              <div className="grid grid-cols-2 gap-2">
-                <DecimalField
-                  label="Length (mm)"
-                  value={form.probeLength}
-                  onChange={(value) => set({ probeLength: value })}
-                />
-                <DecimalField
-                  label="± (mm)"
-                  value={form.probeUncertainty}
-                  onChange={(value) => set({ probeUncertainty: value })}
-                />
-                <DecimalField
-                  label="Area (mm²)"
-                  value={form.probeArea}
-                  onChange={(value) => set({ probeArea: value })}
-                />
-                <DecimalField
-                  label="± (mm²)"
-                  value={form.probeUncertaintyArea}
-                  onChange={(value) => set({ probeUncertaintyArea: value })}
-                />
-              </div>
-            ) : null}
-            <div className="grid grid-cols-3 gap-2">
-              <DecimalField
-                label="Depth (mm)"
-                value={form.depthMm}
-                onChange={(value) => set({ depthMm: value })}
-              />
-              <DecimalField
-                label="Width (mm)"
-                value={form.widthMm}
-                onChange={(value) => set({ widthMm: value })}
-              />
-              <label className="flex flex-col gap-1">
-                Count
-                <Input
-                  type="number"
-                  step="1"
-                  min="0"
-                  value={form.count}
-                  onChange={(event) => set({ count: event.target.value })}
-                />
-              </label>
-            </div>
-            {candidates.data && candidates.data.length > 0 ? (
-              <label className="flex flex-col gap-1">
-                Same damage as an earlier finding?
-                <Select
-                  value={form.previousFindingId}
-                  onChange={(event) => set({ previousFindingId: event.target.value })}
-                >
-                  <option value="">No: new damage</option>
-                  {candidates.data.map((candidate) => (
-                    <option key={candidate.findingId} value={candidate.findingId}>
-                      {candidate.inspectionDate} (CSN {candidate.csn}): F{candidate.number}{' '}
-                      {damageLabel(candidate.zone)}
-                      {candidate.lengthMm !== null ? `, ${candidate.lengthMm.toFixed(2)} mm` : ''}
-                      {candidate.areaMm2 !== null ? `, ${candidate.areaMm2.toFixed(1)} mm²` : ''}
-                    </option>
-                  ))}
-                </Select>
-              </label>
-            ) : null}
-            <label className="flex flex-col gap-1">
-              Notes
-              <textarea
-                value={form.notes}
-                onChange={(event) => set({ notes: event.target.value })}
-                rows={2}
-                className="rounded-md border border-soot-300 px-3 py-2"
-              />
-            </label>
-            {record.error ? <Notice tone="error">{record.error.message}</Notice> : null}
+            <FindingFields form={form} rows={rows} candidates={candidates.data} />
+            {formError ? <Notice tone="error">{formError}</Notice> : null}
             <p role="status" className="text-sm text-soot-700">
               {announcement}
             </p>

@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { cautions } from '@emberline/contracts/cautions';
 import {
   coverageStatusLabels,
+  findingDetailsSchema,
   type CoverageStatus,
   type Finding,
   type InspectionOutcome,
@@ -14,7 +15,14 @@ import { Button } from '../../../components/ui/button';
 import { Input } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { SvgDrawing } from '../../../components/ui/svg-drawing';
-import { useRecordCoverage, useVoidFinding } from '../api/findings';
+import {
+  useRecordCoverage,
+  useSeriesCandidates,
+  useUpdateFinding,
+  useVoidFinding,
+} from '../api/findings';
+import { applyServerErrors, useZodForm } from '../../../lib/form';
+import { FindingFields } from './finding-fields';
 import { formatPositions, parsePositions } from '../lib/live';
 import { reasonLabels } from '../lib/reason-labels';
 import { VerdictBadge } from './verdict';
@@ -167,13 +175,92 @@ function CoverageForm({
   );
 }
 
+/** Corrects what was entered about a recorded finding; its drawing and scale stay as recorded. */
+function FindingEditForm({
+  finding,
+  rows,
+  onDone,
+}: {
+  finding: Finding;
+  rows: EngineModelRow[];
+  onDone: () => void;
+}) {
+  const update = useUpdateFinding(finding.inspectionId);
+  const [formError, setFormError] = useState('');
+  const form = useZodForm(findingDetailsSchema, {
+    defaultValues: {
+      row: finding.row,
+      position: finding.position,
+      zone: finding.zone,
+      damage: finding.damage,
+      method: finding.method,
+      lengthMm: finding.method === 'probe' ? finding.lengthMm : null,
+      areaMm2: finding.method === 'probe' ? finding.areaMm2 : null,
+      uncertaintyMm: finding.method === 'probe' ? finding.uncertaintyMm : null,
+      uncertaintyMm2: finding.method === 'probe' ? finding.uncertaintyMm2 : null,
+      widthMm: finding.widthMm,
+      depthMm: finding.depthMm,
+      count: finding.count,
+      notes: finding.notes,
+      previousFindingId: finding.previousFindingId,
+    },
+  });
+  const [row, position, damage] = form.watch(['row', 'position', 'damage']);
+  const candidates = useSeriesCandidates(
+    finding.inspectionId,
+    Number.isInteger(position) && position >= 1 ? { row, position, damage } : null,
+  );
+  const onSubmit = form.handleSubmit((details) => {
+    setFormError('');
+    update.mutate(
+      {
+        id: finding.id,
+        input: {
+          ...details,
+          imageId: finding.imageId,
+          shape: finding.shape,
+          calibration: finding.calibration?.calibration ?? null,
+          calibrationImageId: finding.calibration?.imageId ?? null,
+          pickUncertaintyPx: finding.pickUncertaintyPx,
+        },
+      },
+      { onSuccess: onDone, onError: (error) => setFormError(applyServerErrors(form, error)) },
+    );
+  });
+  return (
+    <form
+      className="flex flex-col gap-2 rounded border border-soot-200 bg-soot-50 p-2"
+      aria-label={`Correct F${finding.number}`}
+      noValidate
+      onSubmit={(event) => void onSubmit(event)}
+    >
+      <FindingFields form={form} rows={rows} candidates={candidates.data} />
+      {formError ? <Notice tone="error">{formError}</Notice> : null}
+      <p className="text-xs text-soot-600">
+        The drawing and its scale stay as recorded; to redraw, void this finding and record it
+        again. The whole inspection is judged again when you save.
+      </p>
+      <div className="flex gap-2">
+        <Button type="submit" variant="secondary" busy={update.isPending}>
+          Save F{finding.number}
+        </Button>
+        <Button type="button" variant="ghost" onClick={onDone}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}
+
 function FindingItem({
   finding,
+  rows,
   editable,
   inspectionId,
   onOpen,
 }: {
   finding: Finding;
+  rows: EngineModelRow[];
   editable: boolean;
   inspectionId: string;
   onOpen: (finding: Finding) => void;
@@ -181,6 +268,7 @@ function FindingItem({
   const voiding = useVoidFinding(inspectionId);
   const [reason, setReason] = useState('');
   const [asking, setAsking] = useState(false);
+  const [correcting, setCorrecting] = useState(false);
   const evaluation = finding.evaluation;
   return (
     <li
@@ -226,7 +314,10 @@ function FindingItem({
           {finding.previousFindingId ? ' · continues an earlier finding' : ''}
         </p>
       ) : null}
-      {editable && finding.status === 'recorded' ? (
+      {editable && finding.status === 'recorded' && correcting ? (
+        <FindingEditForm finding={finding} rows={rows} onDone={() => setCorrecting(false)} />
+      ) : null}
+      {editable && finding.status === 'recorded' && !correcting ? (
         asking ? (
           <form
             className="flex flex-wrap items-end gap-2"
@@ -245,13 +336,22 @@ function FindingItem({
             {voiding.error ? <Notice tone="error">{voiding.error.message}</Notice> : null}
           </form>
         ) : (
-          <button
-            type="button"
-            className="w-fit text-xs text-red-800 hover:underline"
-            onClick={() => setAsking(true)}
-          >
-            Void (recorded by mistake)…
-          </button>
+          <div className="flex gap-4 text-xs">
+            <button
+              type="button"
+              className="text-ember-800 hover:underline"
+              onClick={() => setCorrecting(true)}
+            >
+              Correct F{finding.number}…
+            </button>
+            <button
+              type="button"
+              className="text-red-800 hover:underline"
+              onClick={() => setAsking(true)}
+            >
+              Void (recorded by mistake)…
+            </button>
+          </div>
         )
       ) : null}
     </li>
@@ -374,6 +474,7 @@ export function FindingsPanel({
                     <FindingItem
                       key={finding.id}
                       finding={finding}
+                      rows={rows}
                       editable={editable}
                       inspectionId={inspectionId}
                       onOpen={onOpen}

@@ -1,0 +1,170 @@
+import type { UseFormReturn } from 'react-hook-form';
+import type { FindingDetails, SeriesEntry } from '@emberline/contracts/findings';
+import type { EngineModelRow } from '@emberline/contracts/fleet';
+import { damageTypes } from '@emberline/contracts/limits';
+import { Field, Input, Select } from '../../../components/ui/field';
+import { emptyToNull, emptyToNullNumber } from '../../../lib/form';
+import { damageLabel } from '../lib/finding-details';
+
+export type FindingDetailsForm = UseFormReturn<FindingDetails, unknown, FindingDetails>;
+
+function DecimalField({
+  form,
+  name,
+  label,
+  step = 'any',
+}: {
+  form: FindingDetailsForm;
+  name:
+    'lengthMm' | 'areaMm2' | 'uncertaintyMm' | 'uncertaintyMm2' | 'widthMm' | 'depthMm' | 'count';
+  label: string;
+  step?: string;
+}) {
+  return (
+    <Field label={label} error={form.formState.errors[name]}>
+      {(props) => (
+        <Input
+          {...props}
+          type="number"
+          step={step}
+          min="0"
+          inputMode={step === '1' ? 'numeric' : 'decimal'}
+          {...form.register(name, { setValueAs: emptyToNullNumber })}
+        />
+      )}
+    </Field>
+  );
+}
+
+/**
+ * Row, position, zone, damage, how it was measured and the entered values of one finding: the
+ * fields the recording form and the correcting form share. The zone list follows the row.
+ */
+export function FindingFields({
+  form,
+  rows,
+  candidates,
+}: {
+  form: FindingDetailsForm;
+  rows: EngineModelRow[];
+  candidates: SeriesEntry[] | undefined;
+}) {
+  const { errors } = form.formState;
+  const [rowKey, method, previous] = form.watch(['row', 'method', 'previousFindingId']);
+  const row = rows.find((candidate) => candidate.key === rowKey);
+  const zones = row?.zones ?? [];
+  return (
+    <>
+      <div className="grid grid-cols-2 gap-2">
+        <Field label="Row" error={errors.row}>
+          {(props) => (
+            <Select
+              {...props}
+              {...form.register('row', {
+                onChange: (event: { target: { value: string } }) => {
+                  const next = rows.find((candidate) => candidate.key === event.target.value);
+                  form.setValue('zone', next?.zones[0] ?? '');
+                },
+              })}
+            >
+              {rows.map((candidate) => (
+                <option key={candidate.key} value={candidate.key}>
+                  {candidate.label}
+                </option>
+              ))}
+            </Select>
+          )}
+        </Field>
+        <Field label={`Position${row ? ` (1–${row.count})` : ''}`} error={errors.position}>
+          {(props) => (
+            <Input
+              {...props}
+              type="number"
+              min={1}
+              max={row?.count}
+              step="1"
+              inputMode="numeric"
+              {...form.register('position', { valueAsNumber: true })}
+            />
+          )}
+        </Field>
+        <Field label="Zone" error={errors.zone}>
+          {(props) => (
+            <Select {...props} {...form.register('zone')}>
+              {zones.map((zone) => (
+                <option key={zone} value={zone}>
+                  {damageLabel(zone)}
+                </option>
+              ))}
+            </Select>
+          )}
+        </Field>
+        <Field label="Damage" error={errors.damage}>
+          {(props) => (
+            <Select {...props} {...form.register('damage')}>
+              {damageTypes.map((damage) => (
+                <option key={damage} value={damage}>
+                  {damageLabel(damage)}
+                </option>
+              ))}
+            </Select>
+          )}
+        </Field>
+      </div>
+      <fieldset className="flex gap-3 text-sm">
+        <legend className="sr-only">Measured by</legend>
+        <label className="flex items-center gap-1">
+          <input type="radio" value="image" {...form.register('method')} />
+          On the image
+        </label>
+        <label className="flex items-center gap-1">
+          <input type="radio" value="probe" {...form.register('method')} />
+          With the probe
+        </label>
+      </fieldset>
+      {method === 'probe' ? (
+        <div className="grid grid-cols-2 gap-2">
+          <DecimalField form={form} name="lengthMm" label="Length (mm)" />
+          <DecimalField form={form} name="uncertaintyMm" label="± (mm)" />
+          <DecimalField form={form} name="areaMm2" label="Area (mm²)" />
+          <DecimalField form={form} name="uncertaintyMm2" label="± (mm²)" />
+        </div>
+      ) : null}
+      <div className="grid grid-cols-3 gap-2">
+        <DecimalField form={form} name="depthMm" label="Depth (mm)" />
+        <DecimalField form={form} name="widthMm" label="Width (mm)" />
+        <DecimalField form={form} name="count" label="Count" step="1" />
+      </div>
+      {(candidates && candidates.length > 0) || previous ? (
+        <Field label="Same damage as an earlier finding?" error={errors.previousFindingId}>
+          {(props) => (
+            <Select {...props} {...form.register('previousFindingId', { setValueAs: emptyToNull })}>
+              <option value="">No: new damage</option>
+              {previous && !candidates?.some((candidate) => candidate.findingId === previous) ? (
+                <option value={previous}>The finding linked before</option>
+              ) : null}
+              {(candidates ?? []).map((candidate) => (
+                <option key={candidate.findingId} value={candidate.findingId}>
+                  {candidate.inspectionDate} (CSN {candidate.csn}): F{candidate.number}{' '}
+                  {damageLabel(candidate.zone)}
+                  {candidate.lengthMm !== null ? `, ${candidate.lengthMm.toFixed(2)} mm` : ''}
+                  {candidate.areaMm2 !== null ? `, ${candidate.areaMm2.toFixed(1)} mm²` : ''}
+                </option>
+              ))}
+            </Select>
+          )}
+        </Field>
+      ) : null}
+      <Field label="Notes" error={errors.notes}>
+        {(props) => (
+          <textarea
+            {...props}
+            rows={2}
+            className="rounded-md border border-soot-300 px-3 py-2 text-sm"
+            {...form.register('notes')}
+          />
+        )}
+      </Field>
+    </>
+  );
+}
