@@ -3,6 +3,7 @@
 import { benchAnnotation } from './annotation';
 import { benchEngineList } from './engine-list';
 import { benchEvaluation } from './evaluation';
+import { benchImpact } from './impact';
 import { benchIngest } from './ingest';
 import { benchInitialJavaScript } from './initial-javascript';
 import { benchSessionCheck } from './session-check';
@@ -12,6 +13,7 @@ const results = [
   ...(await benchEvaluation()),
   await benchSessionCheck(),
   await benchEngineList(),
+  await benchImpact(),
   ...(await benchIngest()),
   ...(await benchAnnotation()),
 ];

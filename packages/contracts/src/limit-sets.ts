@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { isoDateSchema } from './forecast';
-import { ruleSchema } from './limits';
+import { categorySchema, intervalSchema, ruleSchema } from './limits';
 
 export const limitSetStatuses = ['draft', 'published', 'superseded'] as const;
 export const limitSetStatusSchema = z.enum(limitSetStatuses);
@@ -60,3 +60,86 @@ export type LimitRulesInput = z.input<typeof limitRulesInputSchema>;
 export const publishInputSchema = z.strictObject({
   password: z.string().min(1, { message: 'Enter your password to publish' }).max(200),
 });
+
+const verdictAt = z.object({
+  category: categorySchema.nullable(),
+  ruleId: z.string().nullable(),
+  repeatInterval: intervalSchema.nullable(),
+});
+
+/** A finding whose verdict or repeat interval would change if the draft were put in force. */
+export const impactChangeSchema = z.object({
+  findingId: z.string(),
+  number: z.number().int(),
+  inspectionId: z.string(),
+  inspectionDate: z.string(),
+  released: z.boolean(),
+  engineId: z.string(),
+  engineSerial: z.string(),
+  row: z.string(),
+  position: z.number().int(),
+  zone: z.string(),
+  damage: z.string(),
+  /** As stored now (judged against `revision`); null category: never judged. */
+  before: verdictAt.extend({ revision: z.string().nullable() }),
+  after: verdictAt,
+  /** The draft judges it less severely, or with a longer interval: the change to look at first. */
+  relaxed: z.boolean(),
+});
+export type ImpactChange = z.infer<typeof impactChangeSchema>;
+
+export const impactEngineSchema = z.object({
+  engineId: z.string(),
+  engineSerial: z.string(),
+  changedFindings: z.number().int(),
+  before: categorySchema.nullable(),
+  after: categorySchema.nullable(),
+});
+
+/**
+ * What a draft would change: the current findings of the model's engines (every finding of
+ * inspections not yet released, and of each engine's latest released inspection) judged against
+ * the draft, beside their stored verdicts.
+ */
+export const limitSetImpactSchema = z.object({
+  limitSetId: z.string(),
+  inspections: z.number().int(),
+  findings: z.number().int(),
+  before: z.record(categorySchema, z.number().int()),
+  after: z.record(categorySchema, z.number().int()),
+  changedCount: z.number().int(),
+  /** The changed findings, relaxed first; at most `impactListLimit` of them. */
+  changes: z.array(impactChangeSchema),
+  engines: z.array(impactEngineSchema),
+});
+export type LimitSetImpact = z.infer<typeof limitSetImpactSchema>;
+export const impactListLimit = 500;
+
+export const limitFileFormats = ['csv', 'json'] as const;
+export const limitFileFormatSchema = z.enum(limitFileFormats);
+export type LimitFileFormat = z.infer<typeof limitFileFormatSchema>;
+export const limitFileQuerySchema = z.strictObject({ format: limitFileFormatSchema });
+
+/** A revision as a file: the JSON export and import shape (the rules in the contract's shape). */
+export const limitSetFileSchema = z.object({
+  revision: z.string(),
+  title: z.string(),
+  manualReference: z.string(),
+  effectiveDate: isoDateSchema.nullable(),
+  invented: z.boolean(),
+  rules: z.array(z.unknown()),
+});
+
+/**
+ * What an import would take and refuse, before anything is saved. `line` is the file line for
+ * CSV and the rule's place in the list (from 1) for JSON. A file with a refused line is not
+ * imported at all.
+ */
+export const limitImportPreviewSchema = z.object({
+  format: limitFileFormatSchema,
+  accepted: z.array(z.object({ line: z.number().int(), rule: ruleSchema })),
+  refused: z.array(z.object({ line: z.number().int(), text: z.string(), reason: z.string() })),
+  /** The rules the draft has now, which an import replaces. */
+  currentRuleCount: z.number().int(),
+});
+export type LimitImportPreview = z.infer<typeof limitImportPreviewSchema>;

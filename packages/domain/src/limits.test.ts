@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { EvaluationFinding, EvaluationRequest, Rule } from '@emberline/contracts/limits';
-import { circularRuns, compareActions, evaluate } from './limits';
+import { circularRuns, compareActions, evaluate, ruleProblems } from './limits';
 
 // Rules and findings for these tests are invented; nothing here comes from an engine manual.
 function rule(overrides: Partial<Rule> = {}): Rule {
@@ -461,5 +461,29 @@ describe('input the evaluation refuses', () => {
       [],
       /needs a number of cycles or hours/,
     );
+  });
+});
+
+describe('ruleProblems', () => {
+  const modelRows = [{ key: 'hpt1-blade', zones: ['leading-edge', 'tip'] }];
+
+  it('names every bad rule at once and passes the good ones', () => {
+    const problems = ruleProblems(
+      [
+        rule({ id: 'ok' }),
+        rule({ id: 'units', measure: 'area', unit: 'mm' }),
+        rule({ id: 'zone', zones: ['platform'] }),
+        rule({ id: 'bands', serviceableMax: 2, repeatMax: 1 }),
+        rule({ id: 'ok' }),
+        rule({ id: 'row', row: 'lpt1-blade' }),
+      ],
+      modelRows,
+    );
+    expect(problems[0]).toBeNull();
+    expect(problems[1]).toMatch(/measures area in "mm": use mm2 or in2/);
+    expect(problems[2]).toMatch(/zone "platform", which hpt1-blade does not have/);
+    expect(problems[3]).toMatch(/repeat limit \(1 mm\) is below the serviceable limit \(2 mm\)/);
+    expect(problems[4]).toMatch(/appears twice/);
+    expect(problems[5]).toMatch(/row "lpt1-blade", which this engine model does not have/);
   });
 });

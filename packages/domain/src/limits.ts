@@ -32,6 +32,9 @@ const unitsOf: Record<Measure, readonly LimitUnit[]> = {
   count: ['count'],
 };
 
+/** A category's severity: 0 serviceable, 1 repeat inspection, 2 review, 3 beyond limits. */
+export const severity = (category: Category): number => rank[category];
+
 /** The worse of two categories (serviceable < repeat-inspection < review < beyond-limits). */
 export function worse(a: Category, b: Category): Category {
   return rank[a] >= rank[b] ? a : b;
@@ -139,6 +142,31 @@ export function validateRules(rules: readonly Rule[], rowKeys: ReadonlySet<strin
         `${name}: "remove within" needs a number of cycles or hours`,
         at('beyondAction'),
       );
+    }
+  });
+}
+
+/**
+ * Each rule's first problem, or null when it has none: the checks of validateRules and
+ * validateRuleZones, rule by rule, so that an editor or an import can name every bad rule at once.
+ */
+export function ruleProblems(
+  rules: readonly Rule[],
+  modelRows: readonly { key: string; zones: readonly string[] }[],
+): (string | null)[] {
+  const rowKeys = new Set(modelRows.map((row) => row.key));
+  const zonesByRow = new Map(modelRows.map((row) => [row.key, row.zones]));
+  const seen = new Set<string>();
+  return rules.map((rule) => {
+    if (seen.has(rule.id)) return `rule ${rule.id} appears twice: every rule needs its own id`;
+    seen.add(rule.id);
+    try {
+      validateRules([rule], rowKeys);
+      validateRuleZones([rule], zonesByRow);
+      return null;
+    } catch (error) {
+      if (error instanceof DomainError) return error.message;
+      throw error;
     }
   });
 }
@@ -549,22 +577,21 @@ export function engineVerdict(evaluations: readonly FindingEvaluation[]): Engine
 }
 
 /**
- * Evaluates every finding of an inspection against a rule set (DESIGN §5.2): each matching rule,
- * the worst governing, then the count, total, row and adjacency limits per row, then the engine
- * verdict. Throws a DomainError naming the item for inconsistent input. With `explain: false` the
- * per-rule working (`judgements`) is left out, for evaluating many findings at once.
+ * A rule set checked and indexed once, to judge many inspections with: the rules are validated
+ * against the rows here, and each `judge` call validates only its findings. Every finding of one
+ * inspection goes to one call, since count, row and adjacency limits look at its neighbours.
  */
-export function evaluate(
-  input: EvaluationRequest,
-  options: { explain?: boolean } = {},
-): EvaluationResult {
-  const explain = options.explain ?? true;
-  validateRules(input.rules, new Set(Object.keys(input.rows)));
-  validateFindings(input.findings, input.rows);
-
+export function prepareRules(
+  rows: EvaluationRequest['rows'],
+  rules: readonly Rule[],
+): (
+  findings: readonly EvaluationFinding[],
+  options?: { explain?: boolean },
+) => FindingEvaluation[] {
+  validateRules(rules, new Set(Object.keys(rows)));
   // Candidate rules by row, then damage; zones as sets. Built once, then each finding is a lookup.
   const candidates = new Map<string, Map<string, Candidate[]>>();
-  for (const rule of input.rules) {
+  for (const rule of rules) {
     let byDamage = candidates.get(rule.row);
     if (!byDamage) candidates.set(rule.row, (byDamage = new Map()));
     let list = byDamage.get(rule.damage);
@@ -576,27 +603,44 @@ export function evaluate(
       counts: hasCountLimit(rule),
     });
   }
-  const matchedByRule = new Map<Rule, number[]>();
   const none: Candidate[] = [];
 
-  const evaluations: FindingEvaluation[] = new Array(input.findings.length);
-  let current = 0;
-  const countMatch = (candidate: Candidate) => {
-    const matched = matchedByRule.get(candidate.rule);
-    if (matched) matched.push(current);
-    else matchedByRule.set(candidate.rule, [current]);
+  return (findings, options = {}) => {
+    const explain = options.explain ?? true;
+    validateFindings(findings, rows);
+    const matchedByRule = new Map<Rule, number[]>();
+    const evaluations: FindingEvaluation[] = new Array(findings.length);
+    let current = 0;
+    const countMatch = (candidate: Candidate) => {
+      const matched = matchedByRule.get(candidate.rule);
+      if (matched) matched.push(current);
+      else matchedByRule.set(candidate.rule, [current]);
+    };
+    for (current = 0; current < findings.length; current += 1) {
+      const finding = findings[current]!;
+      evaluations[current] = judgeFinding(
+        finding,
+        candidates.get(finding.row)?.get(finding.damage) ?? none,
+        explain,
+        countMatch,
+      );
+    }
+    for (const [rule, matched] of matchedByRule)
+      applyCountRule(rule, matched, findings, evaluations, rows[rule.row]!.count);
+    return evaluations;
   };
-  for (current = 0; current < input.findings.length; current += 1) {
-    const finding = input.findings[current]!;
-    evaluations[current] = judgeFinding(
-      finding,
-      candidates.get(finding.row)?.get(finding.damage) ?? none,
-      explain,
-      countMatch,
-    );
-  }
+}
 
-  for (const [rule, matched] of matchedByRule)
-    applyCountRule(rule, matched, input.findings, evaluations, input.rows[rule.row]!.count);
+/**
+ * Evaluates every finding of an inspection against a rule set (DESIGN §5.2): each matching rule,
+ * the worst governing, then the count, total, row and adjacency limits per row, then the engine
+ * verdict. Throws a DomainError naming the item for inconsistent input. With `explain: false` the
+ * per-rule working (`judgements`) is left out, for evaluating many findings at once.
+ */
+export function evaluate(
+  input: EvaluationRequest,
+  options: { explain?: boolean } = {},
+): EvaluationResult {
+  const evaluations = prepareRules(input.rows, input.rules)(input.findings, options);
   return { findings: evaluations, engine: engineVerdict(evaluations) };
 }

@@ -1,17 +1,39 @@
-import { Router } from 'express';
+import express, { Router } from 'express';
 import {
+  limitFileQuerySchema,
+  limitImportPreviewSchema,
   limitRulesInputSchema,
   limitSetCopyInputSchema,
+  limitSetImpactSchema,
   limitSetListResponseSchema,
   limitSetSchema,
   publishInputSchema,
 } from '@emberline/contracts/limit-sets';
 import { idParamsSchema } from '@emberline/contracts/users';
 import type { AppContext } from '../../context';
+import { AppError } from '../../http/app-error';
 import { principalOf } from '../../http/principal';
 import { requestMeta } from '../../http/request-meta';
 import { route } from '../../http/route';
 import { createLimitSetsService } from './limit-sets.service';
+
+// The file itself is the body (CSV or JSON), so that the server reads its bytes and can tell a
+// wrong encoding; `?format=` says which it is. A JSON file goes as application/octet-stream or
+// text/plain: application/json bodies are parsed by the API's JSON reader before they get here.
+const fileBody = express.raw({
+  type: ['text/csv', 'text/plain', 'application/vnd.ms-excel', 'application/octet-stream'],
+  limit: '2mb',
+});
+
+function bytesOf(body: unknown): Buffer {
+  if (!Buffer.isBuffer(body))
+    throw new AppError(
+      415,
+      'unsupported_media_type',
+      'Send the file itself, as text/csv, text/plain or application/octet-stream',
+    );
+  return body;
+}
 
 export function limitSetsRoutes(ctx: AppContext): Router {
   const router = Router();
@@ -77,6 +99,78 @@ export function limitSetsRoutes(ctx: AppContext): Router {
           principalOf(res),
           res.locals.params.id,
           res.locals.body.rules,
+          requestMeta(req),
+        ),
+      );
+    },
+  );
+
+  route(
+    router,
+    'GET /limit-sets/:id/impact',
+    {
+      summary:
+        'What publishing a draft would change: current findings of the model judged against it, beside their stored verdicts',
+      params: idParamsSchema,
+      response: limitSetImpactSchema,
+    },
+    (_req, res) => {
+      res.json(limitSets.impact(res.locals.params.id));
+    },
+  );
+
+  route(
+    router,
+    'GET /limit-sets/:id/export',
+    {
+      summary: 'A revision as a file: JSON (the contract shape) or CSV (one rule a line)',
+      params: idParamsSchema,
+      query: limitFileQuerySchema,
+    },
+    (_req, res) => {
+      const file = limitSets.exportFile(res.locals.params.id, res.locals.query.format);
+      res.setHeader('Content-Type', file.type);
+      res.setHeader('Content-Disposition', `attachment; filename="${file.name}"`);
+      res.send(file.body);
+    },
+  );
+
+  route(
+    router,
+    'POST /limit-sets/:id/import-preview',
+    {
+      summary:
+        'Read a rules file (CSV or JSON body) and say which rules would be taken and refused',
+      params: idParamsSchema,
+      query: limitFileQuerySchema,
+      response: limitImportPreviewSchema,
+    },
+    fileBody,
+    (req, res) => {
+      res.json(
+        limitSets.previewImport(res.locals.params.id, res.locals.query.format, bytesOf(req.body)),
+      );
+    },
+  );
+
+  route(
+    router,
+    'POST /limit-sets/:id/import',
+    {
+      summary:
+        "Replace a draft's rules with a file's (all or nothing; a refused line names itself)",
+      params: idParamsSchema,
+      query: limitFileQuerySchema,
+      response: limitSetSchema,
+    },
+    fileBody,
+    (req, res) => {
+      res.json(
+        limitSets.importRules(
+          principalOf(res),
+          res.locals.params.id,
+          res.locals.query.format,
+          bytesOf(req.body),
           requestMeta(req),
         ),
       );

@@ -1,7 +1,14 @@
-import type { LimitSet, LimitSetCopyInput, LimitSetSummary } from '@emberline/contracts/limit-sets';
+import type {
+  LimitFileFormat,
+  LimitImportPreview,
+  LimitSet,
+  LimitSetCopyInput,
+  LimitSetImpact,
+  LimitSetSummary,
+} from '@emberline/contracts/limit-sets';
 import { limitSetCopyInputSchema } from '@emberline/contracts/limit-sets';
 import type { Rule } from '@emberline/contracts/limits';
-import { validateRuleZones, validateRules } from '@emberline/domain/limits';
+import { ruleProblems, validateRuleZones, validateRules } from '@emberline/domain/limits';
 import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction } from '../../db/client';
 import { AppError } from '../../http/app-error';
@@ -11,6 +18,11 @@ import { newId } from '../../lib/ids';
 import { appendAudit } from '../audit/audit.repository';
 import { verifyPassword } from '../auth/passwords';
 import { findEngineModel, listModelRows } from '../engine-models/engine-models.repository';
+import {
+  currentFindings,
+  findingRefs,
+  listCurrentInspections,
+} from '../findings/findings.repository';
 import { evaluateInspection } from '../findings/inspection-evaluation';
 import { openInspectionIds } from '../inspections/inspections.repository';
 import { findUserById } from '../users/users.repository';
@@ -24,6 +36,8 @@ import {
   replaceRules,
   type LimitSetRow,
 } from './limit-sets.repository';
+import { findingKey, limitSetImpact } from './limit-set-impact';
+import { parseRulesFile, rulesToCsv } from './limit-set-file';
 
 export function toLimitSetSummary(row: LimitSetRow): LimitSetSummary {
   return {
@@ -163,6 +177,117 @@ export function createLimitSetsService(ctx: AppContext) {
         });
       });
       return this.detail(id);
+    },
+
+    /** What publishing the draft would change on the current findings of the model's engines. */
+    impact(id: string): LimitSetImpact {
+      const row = draft(id);
+      const rules = listRules(db, id);
+      checkRules(row.modelId, rules);
+      const impact = limitSetImpact({
+        limitSetId: id,
+        modelRows: listModelRows(db, row.modelId),
+        rules,
+        inspections: new Map(
+          listCurrentInspections(db, row.modelId).map((inspection) => [inspection.id, inspection]),
+        ),
+        revisions: new Map(listLimitSets(db, row.modelId).map((set) => [set.id, set.revision])),
+        findings: currentFindings(db, row.modelId),
+      });
+      const refs = findingRefs(db, impact.changes);
+      return {
+        ...impact,
+        changes: impact.changes.map((change) => {
+          const ref = refs.get(findingKey(change));
+          return {
+            ...change,
+            findingId: ref?.id ?? '',
+            before: { ...change.before, ruleId: ref?.ruleId ?? null },
+          };
+        }),
+      };
+    },
+
+    /** The revision as a file: JSON in the contract's shape, or CSV one rule a line. */
+    exportFile(id: string, format: LimitFileFormat): { name: string; type: string; body: string } {
+      const set = this.detail(id);
+      const base = `limits-${set.modelId}-${set.revision}`.replace(/[^A-Za-z0-9._-]+/g, '-');
+      if (format === 'csv')
+        return {
+          name: `${base}.csv`,
+          type: 'text/csv; charset=utf-8',
+          body: rulesToCsv(set.rules),
+        };
+      const file = {
+        revision: set.revision,
+        title: set.title,
+        manualReference: set.manualReference,
+        effectiveDate: set.effectiveDate,
+        invented: set.invented,
+        rules: set.rules,
+      };
+      return {
+        name: `${base}.json`,
+        type: 'application/json; charset=utf-8',
+        body: `${JSON.stringify(file, null, 2)}\n`,
+      };
+    },
+
+    /**
+     * Reads an import file against the draft's model: each rule taken, or refused with its line and
+     * reason (the schema, then the model's rows, zones and units). Saves nothing.
+     */
+    previewImport(id: string, format: LimitFileFormat, bytes: Buffer): LimitImportPreview {
+      const row = draft(id);
+      const lines = parseRulesFile(format, bytes);
+      const parsed = lines.filter((line) => line.rule);
+      const problems = ruleProblems(
+        parsed.map((line) => line.rule!),
+        listModelRows(db, row.modelId),
+      );
+      const refusedByModel = new Map(
+        parsed.flatMap((line, index) =>
+          problems[index] ? [[line.line, problems[index]] as const] : [],
+        ),
+      );
+      const accepted: LimitImportPreview['accepted'] = [];
+      const refused: LimitImportPreview['refused'] = [];
+      for (const line of lines) {
+        const reason = line.reason ?? refusedByModel.get(line.line) ?? null;
+        if (reason || !line.rule)
+          refused.push({ line: line.line, text: line.text, reason: reason! });
+        else accepted.push({ line: line.line, rule: line.rule });
+      }
+      if (lines.length === 0) refused.push({ line: 0, text: '', reason: 'the file has no rules' });
+      return { format, accepted, refused, currentRuleCount: row.ruleCount };
+    },
+
+    /** Replaces the draft's rules with the file's, all or nothing: one refused line and none is taken. */
+    importRules(
+      principal: Principal,
+      id: string,
+      format: LimitFileFormat,
+      bytes: Buffer,
+      meta: RequestMeta,
+    ): LimitSet {
+      const preview = this.previewImport(id, format, bytes);
+      if (preview.refused.length > 0) {
+        const lines = preview.refused.map((line) =>
+          line.line === 0
+            ? line.reason
+            : `${format === 'csv' ? 'line' : 'rule'} ${line.line}: ${line.reason}`,
+        );
+        throw AppError.unprocessable(
+          `Nothing was imported: ${preview.refused.length} ${preview.refused.length === 1 ? 'entry is' : 'entries are'} refused (${lines.slice(0, 5).join('; ')}${lines.length > 5 ? '; …' : ''})`,
+          { fields: {}, form: lines },
+        );
+      }
+      return this.replaceRules(
+        principal,
+        id,
+        preview.accepted.map((line) => line.rule),
+        meta,
+      );
     },
 
     /**
