@@ -55,3 +55,18 @@ test('the admin pages have no serious accessibility violation', async ({ page })
     expect(await seriousViolations(page), path).toEqual([]);
   }
 });
+
+test('the limit library, a draft with its impact and the rule editor have no serious accessibility violation', async ({
+  page,
+}) => {
+  await signIn(page, 'engineer@demo.test');
+  await page.goto('/limits');
+  await expect(page.getByRole('row', { name: /D-1/ })).toBeVisible();
+  expect(await seriousViolations(page), 'library').toEqual([]);
+  await page.goto('/limits/limits-vt300-demo-r2');
+  await page.getByRole('button', { name: 'Show the impact' }).click();
+  await expect(page.getByTestId('impact-preview')).toBeVisible();
+  await page.getByRole('button', { name: 'Change rule hpt1-blade.crack.edges' }).click();
+  await expect(page.getByRole('form', { name: 'Rule hpt1-blade.crack.edges' })).toBeVisible();
+  expect(await seriousViolations(page), 'draft').toEqual([]);
+});

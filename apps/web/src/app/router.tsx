@@ -66,13 +66,11 @@ const router = createBrowserRouter([
       },
       {
         path: 'limits',
-        element: (
-          <NotBuiltYet
-            title="Limit library"
-            permission="read:limit-set"
-            purpose="Damage-limit revisions per engine model, transcribed from the approved engine manual."
-          />
-        ),
+        lazy: async () => ({ Component: (await import('./routes/limits')).LimitLibraryRoute }),
+      },
+      {
+        path: 'limits/:limitSetId',
+        lazy: async () => ({ Component: (await import('./routes/limit-set')).LimitSetRoute }),
       },
       {
         path: 'planning',

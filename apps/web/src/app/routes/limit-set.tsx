@@ -1,0 +1,263 @@
+import { useState } from 'react';
+import { ArrowLeft } from 'lucide-react';
+import { Link, useNavigate, useParams } from 'react-router-dom';
+import { cautions } from '@emberline/contracts/cautions';
+import type { Rule } from '@emberline/contracts/limits';
+import { can } from '@emberline/contracts/permissions';
+import { Button } from '../../components/ui/button';
+import { Notice } from '../../components/ui/notice';
+import { LoadingLine, PageHeader, Panel } from '../../components/ui/page';
+import { RequirePermission } from '../../features/auth/components/require-permission';
+import { useSignedInUser } from '../../features/auth/hooks/use-signed-in-user';
+import { useEngineModel } from '../../features/engine-models/api/engine-models';
+import {
+  exportUrl,
+  useImpact,
+  useLimitSet,
+  useLimitSets,
+  useReplaceRules,
+} from '../../features/limit-sets/api/limit-sets';
+import { CopyForm } from '../../features/limit-sets/components/copy-form';
+import { ImpactPanel } from '../../features/limit-sets/components/impact-panel';
+import { ImportPanel } from '../../features/limit-sets/components/import-panel';
+import {
+  InventedLabel,
+  LimitSetStatusBadge,
+} from '../../features/limit-sets/components/limit-set-status';
+import { PublishForm } from '../../features/limit-sets/components/publish-form';
+import { RuleEditor } from '../../features/limit-sets/components/rule-editor';
+import { RulesTable } from '../../features/limit-sets/components/rules-table';
+import { blankRule, fromRule, type RuleForm } from '../../features/limit-sets/lib/rule-form';
+
+export function LimitSetRoute() {
+  const { limitSetId = '' } = useParams();
+  return (
+    <RequirePermission permission="read:limit-set">
+      <LimitSetPage key={limitSetId} id={limitSetId} />
+    </RequirePermission>
+  );
+}
+
+interface Editing {
+  form: RuleForm;
+  /** The rule's place in the list; null for a new rule. */
+  index: number | null;
+}
+
+function LimitSetPage({ id }: { id: string }) {
+  const user = useSignedInUser();
+  const navigate = useNavigate();
+  const set = useLimitSet(id);
+  const model = useEngineModel(set.data?.modelId ?? null);
+  const siblings = useLimitSets(set.data?.modelId ?? '');
+  const replace = useReplaceRules(id);
+  const [editing, setEditing] = useState<Editing | null>(null);
+  const [copying, setCopying] = useState(false);
+  const [publishing, setPublishing] = useState(false);
+  const [impactAsked, setImpactAsked] = useState(false);
+  const impact = useImpact(id, impactAsked && set.data?.status === 'draft');
+
+  if (set.isPending) return <LoadingLine />;
+  if (set.error) return <Notice tone="error">{set.error.message}</Notice>;
+  const data = set.data;
+  const editable = data.status === 'draft' && can(user.role, 'edit:limit-set');
+  const rows = model.data?.rows ?? [];
+  const inForce = siblings.data?.find((item) => item.status === 'published') ?? null;
+
+  const save = (rules: Rule[]) =>
+    replace.mutate(rules, {
+      onSuccess: () => {
+        setEditing(null);
+        // The rules changed: an impact shown before is out of date.
+        setImpactAsked(false);
+      },
+    });
+
+  return (
+    <div className="flex flex-col gap-6">
+      <Link
+        to="/limits"
+        className="inline-flex items-center gap-1 text-sm text-ember-800 hover:underline"
+      >
+        <ArrowLeft className="size-4" aria-hidden /> Limit library
+      </Link>
+      <PageHeader
+        title={`Revision ${data.revision}`}
+        description={`${data.title} · ${model.data?.name ?? data.modelId}`}
+        actions={
+          <>
+            <a
+              href={exportUrl(id, 'csv')}
+              download
+              className="rounded-md border border-soot-300 bg-white px-3.5 py-2 text-sm font-medium hover:bg-soot-100"
+            >
+              Export CSV
+            </a>
+            <a
+              href={exportUrl(id, 'json')}
+              download
+              className="rounded-md border border-soot-300 bg-white px-3.5 py-2 text-sm font-medium hover:bg-soot-100"
+            >
+              Export JSON
+            </a>
+            {can(user.role, 'edit:limit-set') ? (
+              <Button type="button" variant="secondary" onClick={() => setCopying(true)}>
+                Copy into a new draft…
+              </Button>
+            ) : null}
+          </>
+        }
+      />
+      <Notice tone="caution">{cautions.limits}</Notice>
+      {copying ? (
+        <CopyForm
+          source={data}
+          onCancel={() => setCopying(false)}
+          onCopied={(copy) => void navigate(`/limits/${copy.id}`)}
+        />
+      ) : null}
+      <Panel>
+        <dl className="grid gap-3 text-sm md:grid-cols-3">
+          <div>
+            <dt className="text-xs uppercase tracking-wide text-soot-600">State</dt>
+            <dd className="mt-1 flex flex-wrap items-center gap-2">
+              <LimitSetStatusBadge status={data.status} />
+              {data.invented ? <InventedLabel /> : null}
+            </dd>
+          </div>
+          <div>
+            <dt className="text-xs uppercase tracking-wide text-soot-600">Manual transcribed</dt>
+            <dd className="mt-1">{data.manualReference}</dd>
+          </div>
+          <div>
+            <dt className="text-xs uppercase tracking-wide text-soot-600">Effective</dt>
+            <dd className="mt-1">{data.effectiveDate ?? 'not given'}</dd>
+          </div>
+          <div>
+            <dt className="text-xs uppercase tracking-wide text-soot-600">Published</dt>
+            <dd className="mt-1" data-testid="published-by">
+              {data.publishedAt
+                ? `${new Date(data.publishedAt).toLocaleString('en-GB')} by ${data.publishedByName}`
+                : 'not yet'}
+            </dd>
+          </div>
+          <div className="md:col-span-2">
+            <dt className="text-xs uppercase tracking-wide text-soot-600">
+              SHA-256 of the revision (RFC 8785 JSON)
+            </dt>
+            <dd className="mt-1 break-all font-mono text-xs">{data.contentSha256 ?? '—'}</dd>
+          </div>
+        </dl>
+      </Panel>
+
+      {editable ? (
+        <Panel>
+          <h2 className="mb-1 text-lg font-semibold">Check and publish</h2>
+          <p className="mb-3 text-sm text-soot-600">
+            Before it goes in force, see what this draft would change on the current findings of the
+            model’s engines{inForce ? `, against revision ${inForce.revision} in force` : ''}.
+          </p>
+          <div className="mb-3 flex gap-2">
+            <Button
+              type="button"
+              variant="secondary"
+              busy={impact.isFetching}
+              onClick={() => (impactAsked ? void impact.refetch() : setImpactAsked(true))}
+            >
+              {impactAsked ? 'Check the impact again' : 'Show the impact'}
+            </Button>
+            <Button type="button" onClick={() => setPublishing(true)} disabled={publishing}>
+              Publish…
+            </Button>
+          </div>
+          {impact.error ? <Notice tone="error">{impact.error.message}</Notice> : null}
+          {impact.data ? <ImpactPanel impact={impact.data} /> : null}
+          {publishing ? (
+            <div className="mt-4">
+              <PublishForm
+                limitSetId={id}
+                revision={data.revision}
+                inForce={inForce?.revision ?? null}
+                onCancel={() => setPublishing(false)}
+              />
+            </div>
+          ) : null}
+        </Panel>
+      ) : null}
+
+      <Panel>
+        <div className="mb-3 flex items-center justify-between gap-2">
+          <h2 className="text-lg font-semibold">Rules ({data.rules.length})</h2>
+          {editable && rows.length > 0 ? (
+            <Button
+              type="button"
+              variant="secondary"
+              onClick={() =>
+                setEditing({
+                  form: blankRule(rows[0]!, `rule-${data.rules.length + 1}`),
+                  index: null,
+                })
+              }
+            >
+              Add a rule
+            </Button>
+          ) : null}
+        </div>
+        {!editable && data.status !== 'draft' ? (
+          <p className="mb-3 text-sm text-soot-600">
+            A {data.status === 'published' ? 'published' : 'superseded'} revision never changes:
+            copy it into a new draft to make the next one.
+          </p>
+        ) : null}
+        {editing ? (
+          <div className="mb-4">
+            <RuleEditor
+              key={editing.index ?? 'new'}
+              initial={editing.form}
+              isNew={editing.index === null}
+              rows={rows}
+              otherRules={data.rules.filter((_, index) => index !== editing.index)}
+              saving={replace.isPending}
+              serverError={replace.error?.message ?? ''}
+              onCancel={() => {
+                replace.reset();
+                setEditing(null);
+              }}
+              onSave={(rule) =>
+                save(
+                  editing.index === null
+                    ? [...data.rules, rule]
+                    : data.rules.map((item, index) => (index === editing.index ? rule : item)),
+                )
+              }
+            />
+          </div>
+        ) : null}
+        <RulesTable
+          rules={data.rules}
+          rowLabels={new Map(rows.map((row) => [row.key, row.label]))}
+          onEdit={
+            editable
+              ? (rule) => setEditing({ form: fromRule(rule), index: data.rules.indexOf(rule) })
+              : undefined
+          }
+          onRemove={
+            editable
+              ? (rule) => {
+                  if (window.confirm(`Remove rule ${rule.id} from this draft?`))
+                    save(data.rules.filter((item) => item !== rule));
+                }
+              : undefined
+          }
+        />
+      </Panel>
+
+      {editable ? (
+        <Panel>
+          <h2 className="mb-3 text-lg font-semibold">Import rules from a file</h2>
+          <ImportPanel limitSetId={id} />
+        </Panel>
+      ) : null}
+    </div>
+  );
+}
