@@ -187,7 +187,7 @@ export async function benchImpact() {
   const median = (samples: number[]) => [...samples].sort((a, b) => a - b)[samples.length >> 1]!;
   const figure = median(api);
   return {
-    name: `impact preview, ${(judged / 1000).toFixed(0)}k findings (${changed} change), median`,
+    name: `impact preview, ${(judged / 1000).toFixed(0)}k findings, ${changed} changes (median)`,
     figure: `${figure.toFixed(0)} ms`,
     ceiling: `1000 ms; SQL read ${median(reads).toFixed(0)}`,
     ok: figure < 1000 && judged >= FINDINGS,

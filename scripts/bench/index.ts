@@ -18,10 +18,10 @@ const results = [
   ...(await benchAnnotation()),
 ];
 
-console.log(`\n${'benchmark'.padEnd(50)}${'figure'.padEnd(16)}${'ceiling'.padEnd(22)}within`);
+console.log(`\n${'benchmark'.padEnd(60)}${'figure'.padEnd(16)}${'ceiling'.padEnd(30)}within`);
 for (const result of results) {
   console.log(
-    `${result.name.padEnd(50)}${result.figure.padEnd(16)}${result.ceiling.padEnd(22)}${result.ok ? 'yes' : 'NO'}`,
+    `${result.name.padEnd(60)}${result.figure.padEnd(16)}${result.ceiling.padEnd(30)}${result.ok ? 'yes' : 'NO'}`,
   );
 }
 if (results.some((result) => !result.ok)) process.exitCode = 1;
