@@ -9,9 +9,25 @@ import { findInspection } from '../inspections/inspections.repository';
 import { findLimitSet, listRules, publishedLimitSet } from '../limit-sets/limit-sets.repository';
 import { listFindings, storeEvaluation, type FindingRecord } from './findings.repository';
 
-export function toEvaluationFinding(finding: FindingRecord): EvaluationFinding {
+/** What the evaluation reads of a stored finding: where it is and what was measured. */
+export type EvaluationSource = Pick<
+  FindingRecord,
+  | 'rowKey'
+  | 'position'
+  | 'zone'
+  | 'damage'
+  | 'lengthMm'
+  | 'widthMm'
+  | 'depthMm'
+  | 'areaMm2'
+  | 'count'
+  | 'uncertaintyMm'
+  | 'uncertaintyMm2'
+>;
+
+export function toEvaluationFinding(finding: EvaluationSource, id: string): EvaluationFinding {
   return {
-    id: finding.id,
+    id,
     row: finding.rowKey,
     position: finding.position,
     zone: finding.zone,
@@ -51,7 +67,7 @@ export function evaluateInspection(
   const result = evaluate({
     rows: Object.fromEntries(rows.map((row) => [row.key, { count: row.count }])),
     rules,
-    findings: recorded.map(toEvaluationFinding),
+    findings: recorded.map((finding) => toEvaluationFinding(finding, finding.id)),
   });
   result.findings.forEach((evaluation, index) => {
     storeEvaluation(tx, recorded[index]!.id, {

@@ -4,33 +4,14 @@ import {
   type LimitSetImpact,
 } from '@emberline/contracts/limit-sets';
 import type { EngineModelRow } from '@emberline/contracts/fleet';
-import {
-  categories,
-  type Category,
-  type EvaluationFinding,
-  type Rule,
-} from '@emberline/contracts/limits';
+import { categories, type Category, type Rule } from '@emberline/contracts/limits';
 import { verdictChange } from '@emberline/domain/impact';
 import { prepareRules, worse } from '@emberline/domain/limits';
 import type { CurrentFinding, CurrentInspection } from '../findings/findings.repository';
+import { toEvaluationFinding } from '../findings/inspection-evaluation';
 
 const zeroCounts = () =>
   Object.fromEntries(categories.map((category) => [category, 0])) as Record<Category, number>;
-
-const toEvaluationFinding = (finding: CurrentFinding, index: number): EvaluationFinding => ({
-  id: String(index),
-  row: finding.rowKey,
-  position: finding.position,
-  zone: finding.zone,
-  damage: finding.damage as EvaluationFinding['damage'],
-  lengthMm: finding.lengthMm,
-  widthMm: finding.widthMm,
-  depthMm: finding.depthMm,
-  areaMm2: finding.areaMm2,
-  count: finding.count,
-  uncertaintyMm: finding.uncertaintyMm,
-  uncertaintyMm2: finding.uncertaintyMm2,
-});
 
 const worseOrNull = (a: Category | null, b: Category | null) =>
   a === null ? b : b === null ? a : worse(a, b);
@@ -78,7 +59,10 @@ export function limitSetImpact(input: {
       after: null,
     };
     engines.set(inspection.engineId, engine);
-    const judged = judgeAll(group.map(toEvaluationFinding), { explain: false });
+    const judged = judgeAll(
+      group.map((finding, index) => toEvaluationFinding(finding, String(index))),
+      { explain: false },
+    );
     group.forEach((finding, index) => {
       const evaluation = judged[index]!;
       if (finding.category) before[finding.category] += 1;
