@@ -18,11 +18,17 @@ test('the engineer copies the demo revision, tightens a crack limit, checks the 
   const inForce = page.getByRole('row', { name: /D-1.*In force/ });
   await inForce.getByRole('button', { name: 'Copy into a new draft…' }).click();
   const copy = page.getByRole('form', { name: 'Copy revision D-1 into a new draft' });
-  await copy.getByLabel('New revision').fill('D-3');
+  await copy.getByLabel('Revision', { exact: true }).fill('D-3');
   await copy.getByLabel('Title').fill('Invented demo limits, tightened blade-edge cracks');
   await copy.getByRole('button', { name: 'Make the draft' }).click();
   await expect(page.getByRole('heading', { name: 'Revision D-3' })).toBeVisible();
   await expect(page.getByText('Draft', { exact: true })).toBeVisible();
+  await page.getByRole('button', { name: 'Change the particulars…' }).click();
+  const particulars = page.getByRole('form', { name: 'Particulars of revision D-3' });
+  await particulars.getByLabel('Effective date').fill('2027-01-15');
+  await particulars.getByRole('button', { name: 'Save the particulars' }).click();
+  await expect(particulars).toHaveCount(0);
+  await expect(page.getByText('2027-01-15')).toBeVisible();
 
   // A repeat limit below the serviceable one is refused in words before anything is sent.
   await page.getByRole('button', { name: 'Change rule hpt1-blade.crack.edges' }).click();

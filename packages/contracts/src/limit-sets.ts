@@ -53,6 +53,9 @@ export const limitSetCopyInputSchema = z.strictObject({
 });
 export type LimitSetCopyInput = z.input<typeof limitSetCopyInputSchema>;
 
+/** A draft's particulars, changed: the same fields as a copy's. */
+export const limitSetParticularsSchema = limitSetCopyInputSchema;
+
 export const limitRulesInputSchema = z.strictObject({ rules: z.array(ruleSchema).max(5000) });
 export type LimitRulesInput = z.input<typeof limitRulesInputSchema>;
 

@@ -66,6 +66,7 @@ export const routePolicy = {
   'GET /engine-models/:id/limit-sets': 'read:limit-set',
   'GET /limit-sets/:id': 'read:limit-set',
   'POST /limit-sets/:id/copies': 'edit:limit-set',
+  'PATCH /limit-sets/:id': 'edit:limit-set',
   'PUT /limit-sets/:id/rules': 'edit:limit-set',
   'POST /limit-sets/:id/publication': 'edit:limit-set',
   'GET /limit-sets/:id/impact': 'read:limit-set',

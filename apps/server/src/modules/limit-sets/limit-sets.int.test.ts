@@ -11,7 +11,7 @@ import {
 } from '../../../test/inspection-fixtures';
 import { demoAccounts, startTestApp, type TestApp } from '../../../test/test-app';
 import { DEMO_MODEL_ID, demoModelRows } from '../../demo/demo-fleet';
-import { DEMO_LIMIT_SET_ID } from '../../demo/demo-limits';
+import { DEMO_DRAFT_LIMIT_SET_ID, DEMO_LIMIT_SET_ID } from '../../demo/demo-limits';
 
 let t: TestApp;
 
@@ -233,5 +233,45 @@ describe('the limit library, write side', () => {
       .set('Cookie', inspector);
     expect(after.body).toMatchObject({ limitSetId: copy.body.id, limitSetRevision: 'D-3' });
     expect(after.body.evaluation.category).toBe('beyond-limits');
+  });
+});
+
+describe("a draft's particulars", () => {
+  it('change while it is a draft, keep revision numbers unique, and freeze on publication', async () => {
+    const engineer = await t.signIn(demoAccounts.engineer);
+    const particulars = {
+      revision: 'D-2a',
+      title: 'Invented demo limits, draft 2a',
+      manualReference: 'VT-300 Demo Engine Manual (invented), revision 2a',
+      effectiveDate: '2027-01-15',
+    };
+    const changed = await request(t.app)
+      .patch(`/api/v1/limit-sets/${DEMO_DRAFT_LIMIT_SET_ID}`)
+      .set('Cookie', engineer)
+      .send(particulars);
+    expect(changed.status).toBe(200);
+    expect(changed.body).toMatchObject({ ...particulars, status: 'draft' });
+
+    const taken = await request(t.app)
+      .patch(`/api/v1/limit-sets/${DEMO_DRAFT_LIMIT_SET_ID}`)
+      .set('Cookie', engineer)
+      .send({ ...particulars, revision: 'D-1' });
+    expect(taken.status).toBe(422);
+    expect(taken.body.error.details.fields.revision).toEqual(['This revision already exists']);
+
+    const published = await request(t.app)
+      .patch(`/api/v1/limit-sets/${DEMO_LIMIT_SET_ID}`)
+      .set('Cookie', engineer)
+      .send({ ...particulars, revision: 'D-1b' });
+    expect(published.status).toBe(409);
+    const planner = await t.signIn(demoAccounts.planner);
+    expect(
+      (
+        await request(t.app)
+          .patch(`/api/v1/limit-sets/${DEMO_DRAFT_LIMIT_SET_ID}`)
+          .set('Cookie', planner)
+          .send(particulars)
+      ).status,
+    ).toBe(403);
   });
 });

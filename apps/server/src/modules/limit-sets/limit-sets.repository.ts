@@ -86,6 +86,17 @@ export function insertLimitSet(db: DbOrTx, row: typeof limitSets.$inferInsert): 
   db.insert(limitSets).values(row).run();
 }
 
+export function updateLimitSet(
+  db: DbOrTx,
+  id: string,
+  changes: Pick<
+    typeof limitSets.$inferInsert,
+    'revision' | 'title' | 'manualReference' | 'effectiveDate'
+  >,
+): void {
+  db.update(limitSets).set(changes).where(eq(limitSets.id, id)).run();
+}
+
 /** Adds rules to a draft revision, in the given order (SQLite refuses it for any other). */
 export function insertRules(db: DbOrTx, limitSetId: string, rules: readonly Rule[]): void {
   if (rules.length === 0) return;

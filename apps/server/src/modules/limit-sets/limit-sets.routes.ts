@@ -5,6 +5,7 @@ import {
   limitRulesInputSchema,
   limitSetCopyInputSchema,
   limitSetImpactSchema,
+  limitSetParticularsSchema,
   limitSetListResponseSchema,
   limitSetSchema,
   publishInputSchema,
@@ -81,6 +82,27 @@ export function limitSetsRoutes(ctx: AppContext): Router {
         .json(
           limitSets.copy(principalOf(res), res.locals.params.id, res.locals.body, requestMeta(req)),
         );
+    },
+  );
+
+  route(
+    router,
+    'PATCH /limit-sets/:id',
+    {
+      summary: "Change a draft's revision number, title, manual reference or effective date",
+      params: idParamsSchema,
+      body: limitSetParticularsSchema,
+      response: limitSetSchema,
+    },
+    (req, res) => {
+      res.json(
+        limitSets.updateParticulars(
+          principalOf(res),
+          res.locals.params.id,
+          res.locals.body,
+          requestMeta(req),
+        ),
+      );
     },
   );
 

@@ -34,6 +34,7 @@ import {
   listRules,
   publishLimitSet,
   replaceRules,
+  updateLimitSet,
   type LimitSetRow,
 } from './limit-sets.repository';
 import { findingKey, limitSetImpact } from './limit-set-impact';
@@ -98,6 +99,15 @@ export function createLimitSetsService(ctx: AppContext) {
     validateRuleZones(rules, new Map(rows.map((row) => [row.key, row.zones])));
   }
 
+  /** Revision numbers are unique per model. */
+  function refuseTakenRevision(modelId: string, revision: string, ownId: string | null): void {
+    if (listLimitSets(db, modelId).some((row) => row.revision === revision && row.id !== ownId))
+      throw AppError.unprocessable(`Revision ${revision} already exists for this engine model`, {
+        fields: { revision: ['This revision already exists'] },
+        form: [],
+      });
+  }
+
   return {
     list(modelId: string): LimitSetSummary[] {
       if (!findEngineModel(db, modelId)) throw AppError.notFound('There is no such engine model');
@@ -110,6 +120,38 @@ export function createLimitSetsService(ctx: AppContext) {
       return { ...toLimitSetSummary(row), rules: listRules(db, id) };
     },
 
+    /** Changes a draft's revision number, title, manual reference or effective date. */
+    updateParticulars(
+      principal: Principal,
+      id: string,
+      body: LimitSetCopyInput,
+      meta: RequestMeta,
+    ): LimitSet {
+      const input = limitSetCopyInputSchema.parse(body);
+      const row = draft(id);
+      refuseTakenRevision(row.modelId, input.revision, id);
+      const now = ctx.now();
+      inTransaction(db, (tx) => {
+        updateLimitSet(tx, id, input);
+        appendAudit(tx, now, {
+          actorUserId: principal.user.id,
+          action: 'limit-set.particulars-changed',
+          entityType: 'limit-set',
+          entityId: id,
+          before: {
+            revision: row.revision,
+            title: row.title,
+            manualReference: row.manualReference,
+            effectiveDate: row.effectiveDate,
+          },
+          after: input,
+          requestId: meta.requestId,
+          ip: meta.ip,
+        });
+      });
+      return this.detail(id);
+    },
+
     /** A new draft with the rules of an existing revision. */
     copy(
       principal: Principal,
@@ -120,14 +162,7 @@ export function createLimitSetsService(ctx: AppContext) {
       const input = limitSetCopyInputSchema.parse(body);
       const source = findLimitSet(db, sourceId);
       if (!source) throw AppError.notFound('There is no such limit-set revision');
-      if (listLimitSets(db, source.modelId).some((row) => row.revision === input.revision))
-        throw AppError.unprocessable(
-          `Revision ${input.revision} already exists for this engine model`,
-          {
-            fields: { revision: ['This revision already exists'] },
-            form: [],
-          },
-        );
+      refuseTakenRevision(source.modelId, input.revision, null);
       const id = newId();
       const now = ctx.now();
       const rules = listRules(db, sourceId);

@@ -17,7 +17,7 @@ import {
   useLimitSets,
   useReplaceRules,
 } from '../../features/limit-sets/api/limit-sets';
-import { CopyForm } from '../../features/limit-sets/components/copy-form';
+import { CopyForm, EditParticularsForm } from '../../features/limit-sets/components/copy-form';
 import { ImpactPanel } from '../../features/limit-sets/components/impact-panel';
 import { ImportPanel } from '../../features/limit-sets/components/import-panel';
 import {
@@ -53,6 +53,7 @@ function LimitSetPage({ id }: { id: string }) {
   const replace = useReplaceRules(id);
   const [editing, setEditing] = useState<Editing | null>(null);
   const [copying, setCopying] = useState(false);
+  const [renaming, setRenaming] = useState(false);
   const [publishing, setPublishing] = useState(false);
   const [impactAsked, setImpactAsked] = useState(false);
   const impact = useImpact(id, impactAsked && set.data?.status === 'draft');
@@ -117,6 +118,11 @@ function LimitSetPage({ id }: { id: string }) {
         />
       ) : null}
       <Panel>
+        {renaming ? (
+          <div className="mb-4">
+            <EditParticularsForm draft={data} onDone={() => setRenaming(false)} />
+          </div>
+        ) : null}
         <dl className="grid gap-3 text-sm md:grid-cols-3">
           <div>
             <dt className="text-xs uppercase tracking-wide text-soot-600">State</dt>
@@ -148,6 +154,16 @@ function LimitSetPage({ id }: { id: string }) {
             <dd className="mt-1 break-all font-mono text-xs">{data.contentSha256 ?? '—'}</dd>
           </div>
         </dl>
+        {editable && !renaming ? (
+          <Button
+            type="button"
+            variant="secondary"
+            className="mt-3"
+            onClick={() => setRenaming(true)}
+          >
+            Change the particulars…
+          </Button>
+        ) : null}
       </Panel>
 
       {editable ? (

@@ -65,6 +65,14 @@ export function useCopyLimitSet(sourceId: string) {
   });
 }
 
+export function useUpdateParticulars(id: string) {
+  const invalidate = useInvalidateLibrary();
+  return useMutation({
+    mutationFn: (input: LimitSetCopyInput) => api.patch<LimitSet>(path(id), input),
+    onSuccess: () => invalidate(),
+  });
+}
+
 export function useReplaceRules(id: string) {
   const invalidate = useInvalidateLibrary();
   return useMutation({
