@@ -123,16 +123,6 @@ export const limitFileFormatSchema = z.enum(limitFileFormats);
 export type LimitFileFormat = z.infer<typeof limitFileFormatSchema>;
 export const limitFileQuerySchema = z.strictObject({ format: limitFileFormatSchema });
 
-/** A revision as a file: the JSON export and import shape (the rules in the contract's shape). */
-export const limitSetFileSchema = z.object({
-  revision: z.string(),
-  title: z.string(),
-  manualReference: z.string(),
-  effectiveDate: isoDateSchema.nullable(),
-  invented: z.boolean(),
-  rules: z.array(z.unknown()),
-});
-
 /**
  * What an import would take and refuse, before anything is saved. `line` is the file line for
  * CSV and the rule's place in the list (from 1) for JSON. A file with a refused line is not

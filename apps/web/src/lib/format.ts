@@ -24,3 +24,6 @@ export function formatDate(value: string | null): string {
     timeZone: 'UTC',
   });
 }
+
+/** A key of the domain (`leading-edge`, `coating-loss`) in words: leading edge, coating loss. */
+export const formatKey = (key: string) => key.replace(/-/g, ' ');

@@ -1,10 +1,10 @@
 import { and, asc, desc, eq, max, ne, or, lt, sql, type SQL } from 'drizzle-orm';
 import type { FindingEvaluation } from '@emberline/contracts/limits';
-import { rawConnection, type DbOrTx } from '../../db/client';
 import { SQLiteSyncDialect } from 'drizzle-orm/sqlite-core';
+import { rawConnection, type DbOrTx } from '../../db/client';
+import { findings, inspections, limitSets, rowCoverage, users } from '../../db/schema';
 
 const sqliteDialect = new SQLiteSyncDialect();
-import { findings, inspections, limitSets, rowCoverage, users } from '../../db/schema';
 
 export type FindingRecord = typeof findings.$inferSelect;
 export type FindingRow = FindingRecord & {
@@ -146,9 +146,8 @@ export interface CurrentInspection {
   engineSerial: string;
 }
 
-const currentInspectionsSql = (modelId: string) => sql`
-  SELECT i.id, i.date, i.state = 'released' AS released, e.id AS engineId,
-    e.serial_number AS engineSerial
+/** The inspections whose findings are current, of one model's engines (`e` engines, `i` inspections). */
+const currentInspectionsOf = (modelId: string) => sql`
   FROM engines e JOIN inspections i ON i.engine_id = e.id
   WHERE e.model_id = ${modelId} AND (i.state <> 'released' OR i.id = (
     SELECT r.id FROM inspections r WHERE r.engine_id = e.id AND r.state = 'released'
@@ -156,7 +155,10 @@ const currentInspectionsSql = (modelId: string) => sql`
 
 export function listCurrentInspections(db: DbOrTx, modelId: string): CurrentInspection[] {
   return db
-    .all<CurrentInspection>(currentInspectionsSql(modelId))
+    .all<CurrentInspection>(
+      sql`SELECT i.id, i.date, i.state = 'released' AS released, e.id AS engineId,
+        e.serial_number AS engineSerial ${currentInspectionsOf(modelId)}`,
+    )
     .map((row) => ({ ...row, released: Boolean(row.released) }));
 }
 
@@ -209,11 +211,7 @@ type CurrentRow = [
  */
 export function* currentFindings(db: DbOrTx, modelId: string): Generator<CurrentFinding> {
   const query = sql`
-    WITH current AS MATERIALIZED (
-      SELECT i.id FROM engines e JOIN inspections i ON i.engine_id = e.id
-      WHERE e.model_id = ${modelId} AND (i.state <> 'released' OR i.id = (
-        SELECT r.id FROM inspections r WHERE r.engine_id = e.id AND r.state = 'released'
-        ORDER BY r.date DESC, r.created_at DESC LIMIT 1)))
+    WITH current AS MATERIALIZED (SELECT i.id ${currentInspectionsOf(modelId)})
     SELECT f.inspection_id, f.number, f.row_key, f.position, f.zone, f.damage, f.length_mm,
       f.width_mm, f.depth_mm, f.area_mm2, f.count, f.uncertainty_mm, f.uncertainty_mm2,
       f.category, f.repeat_cycles, f.repeat_hours, f.repeat_days, f.limit_set_id

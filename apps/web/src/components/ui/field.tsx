@@ -1,5 +1,5 @@
 import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes } from 'react';
-import type { FieldError } from 'react-hook-form';
+import type { FieldError, UseFormRegisterReturn } from 'react-hook-form';
 
 interface FieldProps {
   label: string;
@@ -62,5 +62,36 @@ export function NumberInput({
       inputMode={kind === 'hours' ? 'decimal' : 'numeric'}
       {...props}
     />
+  );
+}
+
+/**
+ * A labelled number that may be left empty: a limit, a measured value, a count. `registration`
+ * is the form's `register(name, { setValueAs: emptyToNullNumber })`, so that empty reads as null.
+ */
+export function OptionalNumberField({
+  label,
+  error,
+  registration,
+  whole = false,
+}: {
+  label: string;
+  error?: FieldError | undefined;
+  registration: UseFormRegisterReturn;
+  whole?: boolean;
+}) {
+  return (
+    <Field label={label} error={error}>
+      {(props) => (
+        <Input
+          {...props}
+          type="number"
+          min="0"
+          step={whole ? '1' : 'any'}
+          inputMode={whole ? 'numeric' : 'decimal'}
+          {...registration}
+        />
+      )}
+    </Field>
   );
 }

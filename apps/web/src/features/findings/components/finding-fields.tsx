@@ -2,39 +2,14 @@ import type { UseFormReturn } from 'react-hook-form';
 import type { FindingDetails, SeriesEntry } from '@emberline/contracts/findings';
 import type { EngineModelRow } from '@emberline/contracts/fleet';
 import { damageTypes } from '@emberline/contracts/limits';
-import { Field, Input, Select } from '../../../components/ui/field';
+import { Field, Input, OptionalNumberField, Select } from '../../../components/ui/field';
 import { emptyToNull, emptyToNullNumber } from '../../../lib/form';
-import { damageLabel } from '../lib/finding-details';
+import { formatKey } from '../../../lib/format';
 
 export type FindingDetailsForm = UseFormReturn<FindingDetails, unknown, FindingDetails>;
 
-function DecimalField({
-  form,
-  name,
-  label,
-  step = 'any',
-}: {
-  form: FindingDetailsForm;
-  name:
-    'lengthMm' | 'areaMm2' | 'uncertaintyMm' | 'uncertaintyMm2' | 'widthMm' | 'depthMm' | 'count';
-  label: string;
-  step?: string;
-}) {
-  return (
-    <Field label={label} error={form.formState.errors[name]}>
-      {(props) => (
-        <Input
-          {...props}
-          type="number"
-          step={step}
-          min="0"
-          inputMode={step === '1' ? 'numeric' : 'decimal'}
-          {...form.register(name, { setValueAs: emptyToNullNumber })}
-        />
-      )}
-    </Field>
-  );
-}
+type NumberName =
+  'lengthMm' | 'areaMm2' | 'uncertaintyMm' | 'uncertaintyMm2' | 'widthMm' | 'depthMm' | 'count';
 
 /**
  * Row, position, zone, damage, how it was measured and the entered values of one finding: the
@@ -50,6 +25,14 @@ export function FindingFields({
   candidates: SeriesEntry[] | undefined;
 }) {
   const { errors } = form.formState;
+  const number = (name: NumberName, label: string, whole = false) => (
+    <OptionalNumberField
+      label={label}
+      error={errors[name]}
+      whole={whole}
+      registration={form.register(name, { setValueAs: emptyToNullNumber })}
+    />
+  );
   const [rowKey, method, previous] = form.watch(['row', 'method', 'previousFindingId']);
   const row = rows.find((candidate) => candidate.key === rowKey);
   const zones = row?.zones ?? [];
@@ -93,7 +76,7 @@ export function FindingFields({
             <Select {...props} {...form.register('zone')}>
               {zones.map((zone) => (
                 <option key={zone} value={zone}>
-                  {damageLabel(zone)}
+                  {formatKey(zone)}
                 </option>
               ))}
             </Select>
@@ -104,7 +87,7 @@ export function FindingFields({
             <Select {...props} {...form.register('damage')}>
               {damageTypes.map((damage) => (
                 <option key={damage} value={damage}>
-                  {damageLabel(damage)}
+                  {formatKey(damage)}
                 </option>
               ))}
             </Select>
@@ -124,16 +107,16 @@ export function FindingFields({
       </fieldset>
       {method === 'probe' ? (
         <div className="grid grid-cols-2 gap-2">
-          <DecimalField form={form} name="lengthMm" label="Length (mm)" />
-          <DecimalField form={form} name="uncertaintyMm" label="± (mm)" />
-          <DecimalField form={form} name="areaMm2" label="Area (mm²)" />
-          <DecimalField form={form} name="uncertaintyMm2" label="± (mm²)" />
+          {number('lengthMm', 'Length (mm)')}
+          {number('uncertaintyMm', '± (mm)')}
+          {number('areaMm2', 'Area (mm²)')}
+          {number('uncertaintyMm2', '± (mm²)')}
         </div>
       ) : null}
       <div className="grid grid-cols-3 gap-2">
-        <DecimalField form={form} name="depthMm" label="Depth (mm)" />
-        <DecimalField form={form} name="widthMm" label="Width (mm)" />
-        <DecimalField form={form} name="count" label="Count" step="1" />
+        {number('depthMm', 'Depth (mm)')}
+        {number('widthMm', 'Width (mm)')}
+        {number('count', 'Count', true)}
       </div>
       {(candidates && candidates.length > 0) || previous ? (
         <Field label="Same damage as an earlier finding?" error={errors.previousFindingId}>
@@ -146,7 +129,7 @@ export function FindingFields({
               {(candidates ?? []).map((candidate) => (
                 <option key={candidate.findingId} value={candidate.findingId}>
                   {candidate.inspectionDate} (CSN {candidate.csn}): F{candidate.number}{' '}
-                  {damageLabel(candidate.zone)}
+                  {formatKey(candidate.zone)}
                   {candidate.lengthMm !== null ? `, ${candidate.lengthMm.toFixed(2)} mm` : ''}
                   {candidate.areaMm2 !== null ? `, ${candidate.areaMm2.toFixed(1)} mm²` : ''}
                 </option>

@@ -22,6 +22,7 @@ import {
   useVoidFinding,
 } from '../api/findings';
 import { applyServerErrors, useZodForm } from '../../../lib/form';
+import { formatKey } from '../../../lib/format';
 import { FindingFields } from './finding-fields';
 import { formatPositions, parsePositions } from '../lib/live';
 import { reasonLabels } from '../lib/reason-labels';
@@ -284,8 +285,7 @@ function FindingItem({
           F{finding.number}
         </button>
         <span>
-          position {finding.position}, {finding.zone.replace(/-/g, ' ')},{' '}
-          {finding.damage.replace(/-/g, ' ')}
+          position {finding.position}, {formatKey(finding.zone)}, {formatKey(finding.damage)}
         </span>
         {finding.status === 'void' ? (
           <span className="font-medium">Void: {finding.voidReason}</span>
@@ -412,7 +412,7 @@ export function FindingsPanel({
                   count: row.count,
                   positionOneClock: clockOfPositionOne(row.numbering.positionOne),
                   direction: row.numbering.direction,
-                  viewpoint: row.numbering.viewpoint.replace(/-/g, ' '),
+                  viewpoint: formatKey(row.numbering.viewpoint),
                   title: row.label,
                   verdicts,
                   unviewed: rowCoverage?.recorded || rowCoverage ? unviewed : new Set(),

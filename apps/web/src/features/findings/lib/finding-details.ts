@@ -1,8 +1,6 @@
 import type { FindingDetails } from '@emberline/contracts/findings';
 import type { EngineModelRow } from '@emberline/contracts/fleet';
 
-export const damageLabel = (damage: string) => damage.replace(/-/g, ' ');
-
 /** The details a new finding gets, placed from the image's own row and position when it has them. */
 export function blankDetails(
   row: EngineModelRow | undefined,

@@ -1,3 +1,4 @@
+import { formatKey } from '../../../lib/format';
 import { Link } from 'react-router-dom';
 import type { LimitSetImpact } from '@emberline/contracts/limit-sets';
 import { categories, type Interval } from '@emberline/contracts/limits';
@@ -5,8 +6,6 @@ import { verdictStyles } from '@emberline/drawings/verdict-style';
 import { Notice } from '../../../components/ui/notice';
 import { VerdictBadge } from '../../findings/components/verdict';
 import { formatInterval } from '../lib/rule-form';
-
-const words = (key: string) => key.replace(/-/g, ' ');
 
 function Verdict({
   category,
@@ -119,7 +118,7 @@ export function ImpactPanel({ impact }: { impact: LimitSetImpact }) {
                   <td className="py-2 pr-3">
                     F{change.number} · {change.row} position {change.position}
                     <div className="text-xs text-soot-600">
-                      {words(change.zone)}, {words(change.damage)}
+                      {formatKey(change.zone)}, {formatKey(change.damage)}
                     </div>
                   </td>
                   <td className="py-2 pr-3">

@@ -1,3 +1,4 @@
+import { formatKey } from '../../../lib/format';
 import { useState } from 'react';
 import { cautions } from '@emberline/contracts/cautions';
 import type { EngineModelRow } from '@emberline/contracts/fleet';
@@ -10,12 +11,10 @@ import {
 } from '@emberline/contracts/limits';
 import { ruleProblems } from '@emberline/domain/limits';
 import { Button } from '../../../components/ui/button';
-import { Field, Input, Select } from '../../../components/ui/field';
+import { Field, Input, OptionalNumberField, Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { emptyToNullNumber, useZodForm } from '../../../lib/form';
 import { beyondActionLabels, ruleFormSchema, toRule, type RuleForm } from '../lib/rule-form';
-
-const words = (key: string) => key.replace(/-/g, ' ');
 
 type NumberName =
   | 'serviceableMax'
@@ -61,19 +60,13 @@ export function RuleEditor({
   const row = rows.find((candidate) => candidate.key === rowKey);
   const unitWord = unit === 'count' ? '' : ` (${unit.replace('2', '²')})`;
 
-  const number = (name: NumberName, label: string, step = 'any') => (
-    <Field label={label} error={errors[name]}>
-      {(props) => (
-        <Input
-          {...props}
-          type="number"
-          min="0"
-          step={step}
-          inputMode="decimal"
-          {...form.register(name, { setValueAs: emptyToNullNumber })}
-        />
-      )}
-    </Field>
+  const number = (name: NumberName, label: string, whole = false) => (
+    <OptionalNumberField
+      label={label}
+      error={errors[name]}
+      whole={whole}
+      registration={form.register(name, { setValueAs: emptyToNullNumber })}
+    />
   );
 
   const onSubmit = form.handleSubmit((values) => {
@@ -123,7 +116,7 @@ export function RuleEditor({
             <Select {...props} {...form.register('damage')}>
               {damageTypes.map((damage) => (
                 <option key={damage} value={damage}>
-                  {words(damage)}
+                  {formatKey(damage)}
                 </option>
               ))}
             </Select>
@@ -167,7 +160,7 @@ export function RuleEditor({
           </label>
           {(row?.zones ?? []).map((zone) => (
             <label key={zone} className="flex items-center gap-1">
-              <input type="checkbox" value={zone} {...form.register('zones')} /> {words(zone)}
+              <input type="checkbox" value={zone} {...form.register('zones')} /> {formatKey(zone)}
             </label>
           ))}
         </div>
@@ -175,9 +168,9 @@ export function RuleEditor({
       <div className="grid gap-3 md:grid-cols-5">
         {number('serviceableMax', `Serviceable up to${unitWord}`)}
         {number('repeatMax', `Repeat inspection up to${unitWord}`)}
-        {number('repeatCycles', 'Repeat within cycles', '1')}
+        {number('repeatCycles', 'Repeat within cycles', true)}
         {number('repeatHours', 'or hours')}
-        {number('repeatDays', 'or days', '1')}
+        {number('repeatDays', 'or days', true)}
       </div>
       <div className="grid gap-3 md:grid-cols-4">
         <Field label="Beyond the limits" error={errors.beyondKind}>
@@ -194,7 +187,7 @@ export function RuleEditor({
         </Field>
         {beyondKind === 'remove-within' ? (
           <>
-            {number('beyondCycles', 'Remove within cycles', '1')}
+            {number('beyondCycles', 'Remove within cycles', true)}
             {number('beyondHours', 'or hours')}
           </>
         ) : null}
@@ -204,10 +197,10 @@ export function RuleEditor({
         </label>
       </div>
       <div className="grid gap-3 md:grid-cols-4">
-        {number('maxPerAirfoil', 'At most per airfoil (count)', '1')}
+        {number('maxPerAirfoil', 'At most per airfoil (count)', true)}
         {number('maxTotalPerAirfoil', `Total per airfoil at most${unitWord}`)}
-        {number('maxAirfoilsPerRow', 'Airfoils in the row at most', '1')}
-        {number('maxAdjacentAirfoils', 'Adjacent airfoils at most', '1')}
+        {number('maxAirfoilsPerRow', 'Airfoils in the row at most', true)}
+        {number('maxAdjacentAirfoils', 'Adjacent airfoils at most', true)}
       </div>
       <Field
         label="Manual reference"

@@ -1,7 +1,6 @@
+import { formatKey } from '../../../lib/format';
 import type { Rule } from '@emberline/contracts/limits';
 import { formatBeyondAction, formatInterval, formatLimit } from '../lib/rule-form';
-
-const words = (key: string) => key.replace(/-/g, ' ');
 
 function countLimits(rule: Rule): string {
   return (
@@ -69,11 +68,11 @@ export function RulesTable({
               <td className="py-2 pr-3">
                 {rowLabels.get(rule.row) ?? rule.row}
                 <div className="text-xs text-soot-600">
-                  {rule.zones.includes('*') ? 'every zone' : rule.zones.map(words).join(', ')}
+                  {rule.zones.includes('*') ? 'every zone' : rule.zones.map(formatKey).join(', ')}
                 </div>
               </td>
               <td className="py-2 pr-3">
-                {words(rule.damage)}
+                {formatKey(rule.damage)}
                 <div className="text-xs text-soot-600">
                   by {rule.measure}, {rule.unit}
                 </div>
