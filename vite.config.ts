@@ -48,11 +48,23 @@ export default defineConfig({
         test: {
           name: 'server',
           root: '.',
-          include: ['apps/server/src/**/*.test.ts', 'apps/server/test/**/*.test.ts'],
+          include: ['apps/server/src/**/*.test.ts'],
           environment: 'node',
           setupFiles: ['apps/server/test/setup.ts'],
+          globalSetup: ['apps/server/test/global-setup.ts'],
           testTimeout: 20_000,
           hookTimeout: 20_000,
+        },
+      },
+      {
+        extends: true,
+        test: {
+          // After the server project: every JSON route's success answer was validated by a test.
+          name: 'contract',
+          root: '.',
+          include: ['apps/server/test/**/*.test.ts'],
+          environment: 'node',
+          sequence: { groupOrder: 1 },
         },
       },
       {

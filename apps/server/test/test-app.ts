@@ -8,6 +8,7 @@ import { prepareRuntime, type Runtime } from '../src/bootstrap';
 import { loadConfig } from '../src/config/env';
 import { DEMO_PASSWORD } from '../src/demo/demo-scenario';
 import { createLogger } from '../src/lib/logger';
+import { serverLogCapture } from './server-log';
 
 export { DEMO_PASSWORD };
 
@@ -46,13 +47,17 @@ export async function startTestApp(
   const config = loadConfig({
     NODE_ENV: 'test',
     DATA_DIR: dataDir,
-    LOG_LEVEL: 'silent',
+    LOG_LEVEL: 'error',
     BCRYPT_COST: '10',
     // The demo's stills take seconds to render; tests that need the demo history ask for it.
     DEMO_IMAGES: '0',
     ...options.env,
   });
-  const runtime = await prepareRuntime(config, createLogger('silent', false), clock.now);
+  const runtime = await prepareRuntime(
+    config,
+    createLogger('error', false, serverLogCapture),
+    clock.now,
+  );
   const app = createApp(runtime.ctx, { webDist: null });
   return {
     app,

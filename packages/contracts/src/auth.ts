@@ -57,6 +57,8 @@ export const changePasswordInputSchema = z.strictObject({
 export type ChangePasswordInput = z.infer<typeof changePasswordInputSchema>;
 
 export const passwordResetRequestSchema = z.strictObject({ email: emailSchema });
+/** The same answer whether or not the address has an account. */
+export const passwordResetAcceptedSchema = z.object({ status: z.literal('sent-if-known') });
 export type PasswordResetRequest = z.infer<typeof passwordResetRequestSchema>;
 
 /** Tokens are 32 random bytes in base64url: 43 characters. */

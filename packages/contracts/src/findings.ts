@@ -168,6 +168,7 @@ export const coverageInputSchema = z.strictObject({
   reason: z.string().trim().max(500).default(''),
 });
 export type CoverageInput = z.input<typeof coverageInputSchema>;
+export type ParsedCoverageInput = z.output<typeof coverageInputSchema>;
 
 export const rowCoverageSchema = z.object({
   row: z.string(),

@@ -100,6 +100,7 @@ export const engineModelInputSchema = z.strictObject({
   rows: rowsSchema,
 });
 export type EngineModelInput = z.input<typeof engineModelInputSchema>;
+export type ParsedEngineModelInput = z.output<typeof engineModelInputSchema>;
 
 export const engineModelSchema = z.object({
   id: z.string(),
@@ -157,12 +158,14 @@ export const engineInputSchema = z.strictObject({
   status: engineStatusSchema,
 });
 export type EngineInput = z.input<typeof engineInputSchema>;
+export type ParsedEngineInput = z.output<typeof engineInputSchema>;
 
 export const engineUpdateSchema = engineInputSchema
   .omit({ modelId: true, tsn: true, csn: true, tsnCsnAsOf: true })
   .partial()
   .refine((value) => Object.keys(value).length > 0, { message: 'Nothing to change' });
 export type EngineUpdate = z.input<typeof engineUpdateSchema>;
+export type ParsedEngineUpdate = z.output<typeof engineUpdateSchema>;
 
 export const dailyUtilizationSchema = z.object({
   cyclesPerDay: z.number().nullable(),

@@ -61,6 +61,7 @@ export const inspectionInputSchema = z.strictObject({
     .max(60),
 });
 export type InspectionInput = z.input<typeof inspectionInputSchema>;
+export type ParsedInspectionInput = z.output<typeof inspectionInputSchema>;
 
 export const inspectionFlagCodes = [
   'probe-calibration-expired',

@@ -52,6 +52,7 @@ export const limitSetCopyInputSchema = z.strictObject({
   effectiveDate: isoDateSchema.nullable().default(null),
 });
 export type LimitSetCopyInput = z.input<typeof limitSetCopyInputSchema>;
+export type ParsedLimitSetCopyInput = z.output<typeof limitSetCopyInputSchema>;
 
 /** A draft's particulars, changed: the same fields as a copy's. */
 export const limitSetParticularsSchema = limitSetCopyInputSchema;

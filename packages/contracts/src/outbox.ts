@@ -10,7 +10,11 @@ export const mailSummarySchema = z.object({
 });
 export type MailSummary = z.infer<typeof mailSummarySchema>;
 
-export const mailListResponseSchema = z.object({ items: z.array(mailSummarySchema) });
+/** The caught messages, newest first; `catching` is false when a real relay is configured. */
+export const mailListResponseSchema = z.object({
+  items: z.array(mailSummarySchema),
+  catching: z.boolean(),
+});
 export type MailListResponse = z.infer<typeof mailListResponseSchema>;
 
 export const mailMessageSchema = mailSummarySchema.extend({

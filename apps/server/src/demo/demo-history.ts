@@ -1,4 +1,9 @@
-import type { CoverageInput, FindingInput } from '@emberline/contracts/findings';
+import {
+  coverageInputSchema,
+  findingInputSchema,
+  type CoverageInput,
+  type FindingInput,
+} from '@emberline/contracts/findings';
 import { addDays } from '@emberline/domain/dates';
 import type { AppContext, RequestMeta } from '../context';
 import { inTransaction } from '../db/client';
@@ -469,7 +474,7 @@ export async function loadDemoHistory(ctx: AppContext): Promise<void> {
       const finding = findings.record(
         inspector,
         spec.id,
-        {
+        findingInputSchema.parse({
           imageId: imageIds[item.still]!,
           shape: item.shape,
           calibration: demoReference,
@@ -481,13 +486,13 @@ export async function loadDemoHistory(ctx: AppContext): Promise<void> {
           depthMm: item.depthMm ?? null,
           notes: item.notes ?? '',
           previousFindingId: item.continues ? recorded.get(item.continues)! : null,
-        },
+        } satisfies FindingInput),
         loader,
       );
       recorded.set(item.key, finding.id);
     }
     for (const [row, coverage] of Object.entries(spec.coverage))
-      findings.recordCoverage(inspector, spec.id, row, coverage, loader);
+      findings.recordCoverage(inspector, spec.id, row, coverageInputSchema.parse(coverage), loader);
 
     if (spec.state !== 'draft') {
       inTransaction(ctx.db, (tx) => {

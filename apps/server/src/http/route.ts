@@ -1,8 +1,8 @@
-import type { RequestHandler, Router } from 'express';
+import type { NextFunction, Request, RequestHandler, Response, Router } from 'express';
 import type { z } from 'zod';
 import { allows, type Access } from '@emberline/contracts/permissions';
 import { AppError } from './app-error';
-import { optionalPrincipalOf } from './principal';
+import { optionalPrincipalOf, type Principal } from './principal';
 import { routePolicy, type RouteKey } from './route-policy';
 import { validate } from './validate';
 
@@ -18,6 +18,31 @@ export interface RouteSpec {
   /** Success status when not 200 (201 created, 202 accepted, 204 no content). */
   status?: number;
 }
+
+type Parsed<T> = T extends z.ZodType ? z.output<T> : undefined;
+
+/** What `validate` and `authenticate` leave in `res.locals` for a route of this spec. */
+export interface RouteLocals<S extends RouteSpec> {
+  params: Parsed<S['params']>;
+  query: Parsed<S['query']>;
+  body: Parsed<S['body']>;
+  principal?: Principal | null;
+}
+
+/** The JSON body a route of this spec answers with on success; anything for a route without one. */
+export type RouteResponse<S extends RouteSpec> = S['response'] extends z.ZodType
+  ? z.input<S['response']>
+  : unknown;
+
+/**
+ * A handler of a route: its `res.locals` carry the parsed params, query and body with the types of
+ * the spec's schemas, and `res.json` takes the spec's response type.
+ */
+export type RouteHandler<S extends RouteSpec> = (
+  req: Request,
+  res: Response<RouteResponse<S>, RouteLocals<S>>,
+  next: NextFunction,
+) => unknown;
 
 /** Every registered route's spec, for the OpenAPI document. */
 export const routeSpecs = new Map<RouteKey, RouteSpec>();
@@ -48,15 +73,20 @@ export function requireAccess(access: Access): RequestHandler {
  * gives. Each module's routes go through here, so no route exists without a policy entry, and
  * the schemas that validate a request are the ones the OpenAPI document shows.
  */
-export function route(
+export function route<const S extends RouteSpec>(
   router: Router,
   key: RouteKey,
-  spec: RouteSpec,
-  ...handlers: RequestHandler[]
+  spec: S,
+  ...handlers: RouteHandler<S>[]
 ): void {
   const [verb, path] = key.split(' ') as [string, string];
   const method = verb.toLowerCase() as Method;
   const validation = spec.body || spec.query || spec.params ? [validate(spec)] : [];
-  router[method](path, requireAccess(routePolicy[key]), ...validation, ...handlers);
+  router[method](
+    path,
+    requireAccess(routePolicy[key]),
+    ...validation,
+    ...(handlers as RequestHandler[]),
+  );
   routeSpecs.set(key, spec);
 }

@@ -1,10 +1,17 @@
-import pino, { type Logger } from 'pino';
+import pino, { type DestinationStream, type Logger } from 'pino';
 
 export type { Logger };
 
-/** The server's logger. Secrets are redacted wherever they might appear. */
-export function createLogger(level: string, pretty: boolean): Logger {
-  return pino({
+/**
+ * The server's logger. Secrets are redacted wherever they might appear. Lines go to stdout, or to
+ * `destination` (the tests keep what the server logs there, to fail on an error nobody expected).
+ */
+export function createLogger(
+  level: string,
+  pretty: boolean,
+  destination?: DestinationStream,
+): Logger {
+  const options: pino.LoggerOptions = {
     level,
     timestamp: pino.stdTimeFunctions.isoTime,
     redact: {
@@ -20,5 +27,6 @@ export function createLogger(level: string, pretty: boolean): Logger {
       censor: '[redacted]',
     },
     ...(pretty ? { transport: { target: 'pino-pretty', options: { colorize: true } } } : {}),
-  });
+  };
+  return destination ? pino(options, destination) : pino(options);
 }

@@ -6,6 +6,7 @@ import {
   loginInputSchema,
   meResponseSchema,
   passwordResetConfirmSchema,
+  passwordResetAcceptedSchema,
   passwordResetRequestSchema,
   tokenSchema,
   type MeResponse,
@@ -74,6 +75,7 @@ export function authRoutes(ctx: AppContext, auth: AuthService): Router {
     {
       summary: 'E-mail a single-use reset link when the address has an active account',
       body: passwordResetRequestSchema,
+      response: passwordResetAcceptedSchema,
       status: 202,
     },
     async (req, res) => {

@@ -1,10 +1,9 @@
 import type {
   EngineModel,
-  EngineModelInput,
+  ParsedEngineModelInput,
   EngineModelRow,
   EngineModelSummary,
 } from '@emberline/contracts/fleet';
-import { engineModelInputSchema } from '@emberline/contracts/fleet';
 import { rowChangeProblems } from '@emberline/domain/engine-model';
 import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction } from '../../db/client';
@@ -82,24 +81,23 @@ export function createEngineModelsService(ctx: AppContext) {
       }));
     },
 
-    create(principal: Principal, input: EngineModelInput, meta: RequestMeta): EngineModel {
-      const parsed = engineModelInputSchema.parse(input);
+    create(principal: Principal, input: ParsedEngineModelInput, meta: RequestMeta): EngineModel {
       const id = newId();
       const now = ctx.now();
       inTransaction(db, (tx) => {
-        const version = latestVersion(tx, parsed.name) + 1;
+        const version = latestVersion(tx, input.name) + 1;
         insertEngineModel(tx, {
           id,
-          name: parsed.name,
+          name: input.name,
           version,
-          notes: parsed.notes,
+          notes: input.notes,
           createdAt: now,
         });
-        replaceModelRows(tx, id, parsed.rows);
+        replaceModelRows(tx, id, input.rows);
         appendAudit(
           tx,
           now,
-          audit(principal, meta, 'engine-model.created', id, null, { ...parsed, version }),
+          audit(principal, meta, 'engine-model.created', id, null, { ...input, version }),
         );
       });
       return detail(id);
@@ -109,28 +107,27 @@ export function createEngineModelsService(ctx: AppContext) {
     update(
       principal: Principal,
       id: string,
-      input: EngineModelInput,
+      input: ParsedEngineModelInput,
       meta: RequestMeta,
     ): EngineModel {
-      const parsed = engineModelInputSchema.parse(input);
       const before = detail(id);
-      const problems = rowChangeProblems(before.rows, parsed.rows, rowKeysInUse(db, id));
+      const problems = rowChangeProblems(before.rows, input.rows, rowKeysInUse(db, id));
       if (problems.length > 0) throw AppError.conflict(problems.join('; '), { problems });
-      if (parsed.name !== before.name && latestVersion(db, parsed.name) > 0) {
+      if (input.name !== before.name && latestVersion(db, input.name) > 0) {
         throw AppError.conflict(
-          `There is already a model called ${parsed.name}: make a new version of it instead`,
+          `There is already a model called ${input.name}: make a new version of it instead`,
           { fields: { name: ['That name is taken'] }, form: [] },
         );
       }
       const now = ctx.now();
       inTransaction(db, (tx) => {
-        updateEngineModel(tx, id, { name: parsed.name, notes: parsed.notes });
-        replaceModelRows(tx, id, parsed.rows);
+        updateEngineModel(tx, id, { name: input.name, notes: input.notes });
+        replaceModelRows(tx, id, input.rows);
         const { rows, name, notes } = before;
         appendAudit(
           tx,
           now,
-          audit(principal, meta, 'engine-model.updated', id, { name, notes, rows }, parsed),
+          audit(principal, meta, 'engine-model.updated', id, { name, notes, rows }, input),
         );
       });
       return detail(id);

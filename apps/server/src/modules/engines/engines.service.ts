@@ -1,12 +1,11 @@
 import type {
   Engine,
   EngineDetail,
-  EngineInput,
+  ParsedEngineInput,
   EngineListQuery,
   EngineListResponse,
-  EngineUpdate,
+  ParsedEngineUpdate,
 } from '@emberline/contracts/fleet';
-import { engineInputSchema, engineUpdateSchema } from '@emberline/contracts/fleet';
 import { isStaffRole } from '@emberline/contracts/roles';
 import { dailyUtilization } from '@emberline/domain/utilization';
 import type { AppContext, RequestMeta } from '../../context';
@@ -95,16 +94,15 @@ export function createEnginesService(ctx: AppContext) {
       return { ...toEngine(row), utilization: dailyUtilization(listUtilization(db, id)) };
     },
 
-    create(principal: Principal, input: EngineInput, meta: RequestMeta): EngineDetail {
-      const parsed = engineInputSchema.parse(input);
-      if (!findEngineModel(db, parsed.modelId)) {
+    create(principal: Principal, input: ParsedEngineInput, meta: RequestMeta): EngineDetail {
+      if (!findEngineModel(db, input.modelId)) {
         throw AppError.unprocessable('That engine model does not exist', {
           fields: { modelId: ['Choose an engine model'] },
           form: [],
         });
       }
-      assertOwner(parsed.organisationId);
-      if (parsed.tsnCsnAsOf > ctx.now().toISOString().slice(0, 10)) {
+      assertOwner(input.organisationId);
+      if (input.tsnCsnAsOf > ctx.now().toISOString().slice(0, 10)) {
         throw AppError.unprocessable('TSN and CSN cannot be given as of a future date', {
           fields: { tsnCsnAsOf: ['Give a date up to today'] },
           form: [],
@@ -113,39 +111,43 @@ export function createEnginesService(ctx: AppContext) {
       const id = newId();
       const now = ctx.now();
       inTransaction(db, (tx) => {
-        if (findEngineBySerial(tx, parsed.modelId, parsed.serialNumber)) {
+        if (findEngineBySerial(tx, input.modelId, input.serialNumber)) {
           throw AppError.conflict(
-            `There is already an engine ${parsed.serialNumber} of this model`,
+            `There is already an engine ${input.serialNumber} of this model`,
             { fields: { serialNumber: ['This serial number is already in the fleet'] }, form: [] },
           );
         }
-        insertEngine(tx, { id, ...parsed, createdAt: now });
-        appendAudit(tx, now, audit(principal, meta, 'engine.created', id, null, parsed));
+        insertEngine(tx, { id, ...input, createdAt: now });
+        appendAudit(tx, now, audit(principal, meta, 'engine.created', id, null, input));
       });
       return this.detail(principal, id);
     },
 
-    update(principal: Principal, id: string, input: EngineUpdate, meta: RequestMeta): EngineDetail {
-      const changes = engineUpdateSchema.parse(input);
+    update(
+      principal: Principal,
+      id: string,
+      input: ParsedEngineUpdate,
+      meta: RequestMeta,
+    ): EngineDetail {
       const before = visibleEngine(principal, id);
-      if (changes.organisationId) assertOwner(changes.organisationId);
+      if (input.organisationId) assertOwner(input.organisationId);
       const now = ctx.now();
       inTransaction(db, (tx) => {
         if (
-          changes.serialNumber &&
-          changes.serialNumber !== before.serialNumber &&
-          findEngineBySerial(tx, before.modelId, changes.serialNumber)
+          input.serialNumber &&
+          input.serialNumber !== before.serialNumber &&
+          findEngineBySerial(tx, before.modelId, input.serialNumber)
         ) {
           throw AppError.conflict(
-            `There is already an engine ${changes.serialNumber} of this model`,
+            `There is already an engine ${input.serialNumber} of this model`,
             { fields: { serialNumber: ['This serial number is already in the fleet'] }, form: [] },
           );
         }
-        updateEngine(tx, id, changes);
+        updateEngine(tx, id, input);
         const picked = Object.fromEntries(
-          Object.keys(changes).map((key) => [key, before[key as keyof EngineListRow]]),
+          Object.keys(input).map((key) => [key, before[key as keyof EngineListRow]]),
         );
-        appendAudit(tx, now, audit(principal, meta, 'engine.updated', id, picked, changes));
+        appendAudit(tx, now, audit(principal, meta, 'engine.updated', id, picked, input));
       });
       return this.detail(principal, id);
     },

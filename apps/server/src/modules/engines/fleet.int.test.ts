@@ -451,6 +451,14 @@ describe('organisations and report contacts', () => {
     ).toBe(409);
     const detail = await as('planner').get(`/organisations/${created.body.id}`);
     expect(detail.body.contacts).toHaveLength(1);
+    const renamed = await as('admin').patch(`/organisations/${created.body.id}`, {
+      name: 'Brindle Air Cargo (demo)',
+    });
+    expect(renamed.status).toBe(200);
+    expect(renamed.body).toMatchObject({
+      name: 'Brindle Air Cargo (demo)',
+      contacts: [contact.body],
+    });
     expect((await as('customer').get(`/organisations/${created.body.id}`)).status).toBe(403);
     expect((await as('customer').get('/organisations')).status).toBe(403);
     const removed = await request(t.app)

@@ -1,6 +1,6 @@
 import type {
   CalibrationSnapshot,
-  CoverageInput,
+  ParsedCoverageInput,
   CoverageResponse,
   Finding,
   FindingListResponse,
@@ -8,7 +8,6 @@ import type {
   RowCoverage,
   SeriesEntry,
 } from '@emberline/contracts/findings';
-import { coverageInputSchema, findingInputSchema } from '@emberline/contracts/findings';
 import type { EngineModelRow } from '@emberline/contracts/fleet';
 import type { Category, FindingEvaluation } from '@emberline/contracts/limits';
 import type { ImagePoint } from '@emberline/contracts/measurement';
@@ -367,8 +366,12 @@ export function createFindingsService(ctx: AppContext) {
       return toFinding(visibleFinding(principal, id));
     },
 
-    record(principal: Principal, inspectionId: string, body: unknown, meta: RequestMeta): Finding {
-      const input = findingInputSchema.parse(body);
+    record(
+      principal: Principal,
+      inspectionId: string,
+      input: ParsedFindingInput,
+      meta: RequestMeta,
+    ): Finding {
       const inspection = draftInspection(db, principal, inspectionId);
       const prepared = prepare(inspection, input, null);
       const id = newId();
@@ -415,8 +418,12 @@ export function createFindingsService(ctx: AppContext) {
       return toFinding(findFinding(db, id)!);
     },
 
-    update(principal: Principal, id: string, body: unknown, meta: RequestMeta): Finding {
-      const input = findingInputSchema.parse(body);
+    update(
+      principal: Principal,
+      id: string,
+      input: ParsedFindingInput,
+      meta: RequestMeta,
+    ): Finding {
       const { finding, inspection } = editableFinding(principal, id);
       const prepared = prepare(inspection, input, finding);
       const now = ctx.now();
@@ -523,10 +530,9 @@ export function createFindingsService(ctx: AppContext) {
       principal: Principal,
       inspectionId: string,
       rowKey: string,
-      body: CoverageInput,
+      input: ParsedCoverageInput,
       meta: RequestMeta,
     ): CoverageResponse {
-      const input = coverageInputSchema.parse(body);
       const inspection = draftInspection(db, principal, inspectionId);
       if (!inspection.rows.includes(rowKey))
         throw AppError.notFound(`The row ${rowKey} is not listed for this inspection`);

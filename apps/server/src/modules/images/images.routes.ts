@@ -106,18 +106,19 @@ export function imagesRoutes(ctx: AppContext): Router {
         frame,
         requestMeta(req),
       );
-      res.status(status).json(
-        status === 415
-          ? {
-              ...body,
-              error: {
-                code: 'unsupported_media_type',
-                message: 'None of the files could be taken.',
-                requestId: String(req.id ?? ''),
-              },
-            }
-          : body,
-      );
+      if (status !== 415) {
+        res.status(status).json(body);
+        return;
+      }
+      // Nothing was taken: an error answer that still lists every refused file and its reason.
+      (res as Response).status(415).json({
+        ...body,
+        error: {
+          code: 'unsupported_media_type',
+          message: 'None of the files could be taken.',
+          requestId: String(req.id ?? ''),
+        },
+      });
     },
   );
 

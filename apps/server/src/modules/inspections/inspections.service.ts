@@ -2,9 +2,8 @@ import type {
   Inspection,
   InspectionDetail,
   InspectionFlag,
-  InspectionInput,
+  ParsedInspectionInput,
 } from '@emberline/contracts/inspections';
-import { inspectionInputSchema } from '@emberline/contracts/inspections';
 import { isStaffRole } from '@emberline/contracts/roles';
 import { inspectionFlags } from '@emberline/domain/inspection-flags';
 import type { AppContext, RequestMeta } from '../../context';
@@ -73,23 +72,26 @@ export function createInspectionsService(ctx: AppContext) {
       return { ...toInspection(inspection), images: listImages(db, id).map(toImage) };
     },
 
-    create(principal: Principal, input: InspectionInput, meta: RequestMeta): InspectionDetail {
-      const parsed = inspectionInputSchema.parse(input);
-      const engine = engines.visibleEngine(principal, parsed.engineId);
+    create(
+      principal: Principal,
+      input: ParsedInspectionInput,
+      meta: RequestMeta,
+    ): InspectionDetail {
+      const engine = engines.visibleEngine(principal, input.engineId);
       const rowKeys = new Set(listModelRows(db, engine.modelId).map((row) => row.key));
-      const unknown = parsed.rows.filter((key) => !rowKeys.has(key));
+      const unknown = input.rows.filter((key) => !rowKeys.has(key));
       if (unknown.length)
         throw AppError.unprocessable(`The engine model has no row ${unknown.join(', ')}`, {
           fields: { rows: [`Unknown row ${unknown[0]}`] },
           form: [],
         });
-      if (parsed.date > ctx.now().toISOString().slice(0, 10)) {
+      if (input.date > ctx.now().toISOString().slice(0, 10)) {
         throw AppError.unprocessable('An inspection cannot be dated in the future', {
           fields: { date: ['Give the day the engine was inspected'] },
           form: [],
         });
       }
-      const flags = inspectionFlags(parsed, engine, listUtilization(db, engine.id)).map((flag) => ({
+      const flags = inspectionFlags(input, engine, listUtilization(db, engine.id)).map((flag) => ({
         ...flag,
         acknowledgedAt: null,
         acknowledgedBy: null,
@@ -100,7 +102,7 @@ export function createInspectionsService(ctx: AppContext) {
       inTransaction(db, (tx) => {
         insertInspection(tx, {
           id,
-          ...parsed,
+          ...input,
           state: 'draft',
           flags,
           createdBy: principal.user.id,
@@ -111,7 +113,7 @@ export function createInspectionsService(ctx: AppContext) {
           action: 'inspection.created',
           entityType: 'inspection',
           entityId: id,
-          after: { ...parsed, flags: flags.map((flag) => flag.code) },
+          after: { ...input, flags: flags.map((flag) => flag.code) },
           requestId: meta.requestId,
           ip: meta.ip,
         });

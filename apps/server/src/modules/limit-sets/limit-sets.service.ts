@@ -2,11 +2,10 @@ import type {
   LimitFileFormat,
   LimitImportPreview,
   LimitSet,
-  LimitSetCopyInput,
+  ParsedLimitSetCopyInput,
   LimitSetImpact,
   LimitSetSummary,
 } from '@emberline/contracts/limit-sets';
-import { limitSetCopyInputSchema } from '@emberline/contracts/limit-sets';
 import type { Rule } from '@emberline/contracts/limits';
 import { ruleProblems, validateRuleZones, validateRules } from '@emberline/domain/limits';
 import type { AppContext, RequestMeta } from '../../context';
@@ -124,10 +123,9 @@ export function createLimitSetsService(ctx: AppContext) {
     updateParticulars(
       principal: Principal,
       id: string,
-      body: LimitSetCopyInput,
+      input: ParsedLimitSetCopyInput,
       meta: RequestMeta,
     ): LimitSet {
-      const input = limitSetCopyInputSchema.parse(body);
       const row = draft(id);
       refuseTakenRevision(row.modelId, input.revision, id);
       const now = ctx.now();
@@ -156,10 +154,9 @@ export function createLimitSetsService(ctx: AppContext) {
     copy(
       principal: Principal,
       sourceId: string,
-      body: LimitSetCopyInput,
+      input: ParsedLimitSetCopyInput,
       meta: RequestMeta,
     ): LimitSet {
-      const input = limitSetCopyInputSchema.parse(body);
       const source = findLimitSet(db, sourceId);
       if (!source) throw AppError.notFound('There is no such limit-set revision');
       refuseTakenRevision(source.modelId, input.revision, null);

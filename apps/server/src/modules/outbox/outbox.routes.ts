@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { mailMessageSchema, mailSummarySchema } from '@emberline/contracts/outbox';
+import { mailListResponseSchema, mailMessageSchema } from '@emberline/contracts/outbox';
 import { z } from 'zod';
 import type { AppContext } from '../../context';
 import { AppError } from '../../http/app-error';
@@ -13,7 +13,7 @@ export function outboxRoutes(ctx: AppContext): Router {
     'GET /outbox',
     {
       summary: 'Messages caught by the local SMTP fake',
-      response: z.object({ items: z.array(mailSummarySchema), catching: z.boolean() }),
+      response: mailListResponseSchema,
     },
     async (_req, res) => {
       res.json({

@@ -4,7 +4,6 @@ import type {
   UtilizationRecord,
   UtilizationRecordInput,
 } from '@emberline/contracts/fleet';
-import { utilizationRecordInputSchema } from '@emberline/contracts/fleet';
 import { daysBetween } from '@emberline/domain/dates';
 import { dailyUtilization, periodsOverlap } from '@emberline/domain/utilization';
 import type { AppContext, RequestMeta } from '../../context';
@@ -140,17 +139,16 @@ export function createUtilizationService(ctx: AppContext) {
       input: UtilizationRecordInput,
       meta: RequestMeta,
     ): UtilizationListResponse {
-      const record = utilizationRecordInputSchema.parse(input);
       inTransaction(db, (tx) => {
         const engine = findEngineRow(tx, engineId);
         if (!engine) throw AppError.notFound('There is no such engine');
-        const reason = refusal(record, engine, listUtilization(tx, engineId), today());
+        const reason = refusal(input, engine, listUtilization(tx, engineId), today());
         if (reason)
-          throw AppError.unprocessable(`This record cannot be taken: ${reason}`, {
+          throw AppError.unprocessable(`This input cannot be taken: ${reason}`, {
             form: [reason],
             fields: {},
           });
-        save(tx, principal, engine, [record], 'form', meta);
+        save(tx, principal, engine, [input], 'form', meta);
       });
       return this.list(principal, engineId);
     },

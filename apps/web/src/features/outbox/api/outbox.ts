@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { MailMessage, MailSummary } from '@emberline/contracts/outbox';
+import type { MailListResponse, MailMessage } from '@emberline/contracts/outbox';
 import { api } from '../../../lib/api-client';
 
 export const outboxKeys = {
@@ -11,7 +11,7 @@ export const outboxKeys = {
 export const outboxQueryOptions = () =>
   queryOptions({
     queryKey: outboxKeys.list(),
-    queryFn: () => api.get<{ items: MailSummary[]; catching: boolean }>('/outbox'),
+    queryFn: () => api.get<MailListResponse>('/outbox'),
     staleTime: 0,
   });
 
