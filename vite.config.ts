@@ -70,6 +70,17 @@ export default defineConfig({
       {
         extends: true,
         test: {
+          // The architecture's boundaries, as the linter enforces them (tests/lint/fixtures).
+          name: 'lint',
+          root: '.',
+          include: ['tests/lint/**/*.test.ts'],
+          environment: 'node',
+          testTimeout: 60_000,
+        },
+      },
+      {
+        extends: true,
+        test: {
           name: 'fault',
           root: '.',
           include: ['tests/fault/**/*.test.ts'],

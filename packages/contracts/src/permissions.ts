@@ -6,6 +6,9 @@ import type { Role } from './roles';
  * to hide what a role cannot use.
  */
 export const permissionGrants = {
+  // Records of every organisation; a role without it sees its own organisation's records only
+  // (the record-level helper of the server applies this).
+  'read:all-organisations': ['admin', 'inspector', 'engineer', 'planner'],
   // Fleet: engines, engine models, utilization. Customers see their own organisation only.
   'read:engine': ['admin', 'inspector', 'engineer', 'planner', 'customer'],
   'manage:engine': ['admin'],
@@ -53,4 +56,12 @@ export function allows(access: Access, role: Role | null): boolean {
   if (role === null) return false;
   if (access === 'signed-in') return true;
   return can(role, access);
+}
+
+/**
+ * The kind of organisation a role's users belong to: the staff roles to the home organisation (the
+ * one that inspects), customers to a customer organisation.
+ */
+export function organisationKindOf(role: Role): 'home' | 'customer' {
+  return can(role, 'read:all-organisations') ? 'home' : 'customer';
 }

@@ -5,19 +5,6 @@ export const roles = ['admin', 'inspector', 'engineer', 'planner', 'customer'] a
 export const roleSchema = z.enum(roles);
 export type Role = z.infer<typeof roleSchema>;
 
-/** Roles that belong to the home organisation (the one that performs inspections). */
-export const staffRoles = [
-  'admin',
-  'inspector',
-  'engineer',
-  'planner',
-] as const satisfies readonly Role[];
-
-/** True for a role of the home organisation; customers are the only other role. */
-export function isStaffRole(role: Role): boolean {
-  return role !== 'customer';
-}
-
 export const roleLabels: Record<Role, string> = {
   admin: 'Administrator',
   inspector: 'Inspector',

@@ -24,6 +24,9 @@ export class ApiError extends Error {
 
 const BASE = '/api/v1';
 
+/** The address of an API path, for what `fetch` does not send (an upload's XMLHttpRequest, an <img>). */
+export const apiUrl = (path: string) => `${BASE}${path}`;
+
 type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 
 async function request<T>(
@@ -37,7 +40,7 @@ async function request<T>(
   if (raw) headers['Content-Type'] = raw.type;
   else if (body !== undefined) headers['Content-Type'] = 'application/json';
   try {
-    response = await fetch(`${BASE}${path}`, {
+    response = await fetch(apiUrl(path), {
       method,
       credentials: 'same-origin',
       headers,

@@ -8,7 +8,8 @@ export interface UploadItem {
   id: string;
   name: string;
   size: number;
-  inspectionId: string;
+  /** Where the file goes: the feature that enqueues it builds the address through its API file. */
+  url: string;
   status: UploadStatus;
   /** 0..1 of the bytes sent. */
   progress: number;
@@ -46,7 +47,7 @@ export class UploadQueue {
   items = () => this.snapshot;
 
   enqueue(
-    inspectionId: string,
+    url: string,
     files: { file: Blob; name: string; fields?: Record<string, string> }[],
     onDone?: () => void,
   ): void {
@@ -56,7 +57,7 @@ export class UploadQueue {
         id: `upload-${this.counter}`,
         name,
         size: file.size,
-        inspectionId,
+        url,
         status: 'queued',
         progress: 0,
         message: null,
@@ -113,10 +114,7 @@ export class UploadQueue {
     const form = new FormData();
     for (const [key, value] of Object.entries(entry.fields)) form.append(key, value);
     form.append('files', entry.file, entry.item.name);
-    request.open(
-      'POST',
-      `/api/v1/inspections/${encodeURIComponent(entry.item.inspectionId)}/images`,
-    );
+    request.open('POST', entry.item.url);
     request.responseType = 'json';
     request.upload.onprogress = (event) => {
       if (event.lengthComputable) this.update(entry, { progress: event.loaded / event.total });

@@ -19,6 +19,8 @@ export interface ImageStorage {
   commitOriginal(tempFile: string, sha256: string): Promise<void>;
   originalPath(sha256: string): string;
   fullPath(sha256: string): string;
+  /** Whether a file of the storage is there (a full rendition is made on first request). */
+  exists(file: string): Promise<boolean>;
   discard(file: string): Promise<void>;
   /** Removes temp files, and originals and full renditions whose hash no record names. */
   sweep(known: (sha256: string) => boolean): Promise<{ removed: number }>;
@@ -104,6 +106,14 @@ export async function createLocalStorage(dataDir: string): Promise<ImageStorage>
     },
     originalPath: (sha256) => shard(originals, sha256),
     fullPath: (sha256) => shard(full, sha256, '.jpg'),
+    async exists(file) {
+      try {
+        await fs.access(file);
+        return true;
+      } catch {
+        return false;
+      }
+    },
     async discard(file) {
       await fs.rm(file, { force: true });
     },

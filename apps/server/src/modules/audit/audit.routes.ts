@@ -1,16 +1,12 @@
 import { Router } from 'express';
-import {
-  auditListQuerySchema,
-  auditListResponseSchema,
-  type AuditListQuery,
-  type AuditListResponse,
-} from '@emberline/contracts/audit';
+import { auditListQuerySchema, auditListResponseSchema } from '@emberline/contracts/audit';
 import type { AppContext } from '../../context';
 import { route } from '../../http/route';
-import { listAudit } from './audit.repository';
+import { createAuditService } from './audit.service';
 
 export function auditRoutes(ctx: AppContext): Router {
   const router = Router();
+  const audit = createAuditService(ctx);
   route(
     router,
     'GET /audit-log',
@@ -20,11 +16,7 @@ export function auditRoutes(ctx: AppContext): Router {
       response: auditListResponseSchema,
     },
     (_req, res) => {
-      const query = res.locals.query as AuditListQuery;
-      const rows = listAudit(ctx.db, query);
-      const items = rows.map((row) => ({ ...row, at: row.at.toISOString() }));
-      const nextBefore = rows.length === query.limit ? (rows.at(-1)?.id ?? null) : null;
-      res.json({ items, nextBefore } satisfies AuditListResponse);
+      res.json(audit.list(res.locals.query));
     },
   );
   return router;

@@ -4,7 +4,6 @@ import { evaluationRequestSchema, evaluationResultSchema } from '@emberline/cont
 import {
   measurementRequestSchema,
   measurementResultSchema,
-  type MeasurementRequest,
 } from '@emberline/contracts/measurement';
 import { trendRequestSchema, trendResultSchema } from '@emberline/contracts/trend';
 import { forecast } from '@emberline/domain/forecast';
@@ -30,7 +29,7 @@ export function calculationsRoutes(): Router {
       response: measurementResultSchema,
     },
     (_req, res) => {
-      const { calibration, shape, pickUncertaintyPx } = res.locals.body as MeasurementRequest;
+      const { calibration, shape, pickUncertaintyPx } = res.locals.body;
       res.json(measure(calibration, shape, pickUncertaintyPx));
     },
   );

@@ -6,11 +6,11 @@ import type {
   EngineListResponse,
   ParsedEngineUpdate,
 } from '@emberline/contracts/fleet';
-import { isStaffRole } from '@emberline/contracts/roles';
 import { dailyUtilization } from '@emberline/domain/utilization';
 import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction } from '../../db/client';
 import { AppError } from '../../http/app-error';
+import { recordScope, seesOrganisationRecord } from '../../http/record-access';
 import type { Principal } from '../../http/principal';
 import { newId } from '../../lib/ids';
 import { appendAudit } from '../audit/audit.repository';
@@ -30,19 +30,13 @@ export function toEngine(row: EngineListRow): Engine {
   return { ...row, createdAt: row.createdAt.toISOString() };
 }
 
-/** Customers see their own organisation's engines only; everyone else sees all. */
-export function tenancyScope(principal: Principal): string | undefined {
-  return isStaffRole(principal.user.role) ? undefined : principal.user.organisationId;
-}
-
 export function createEnginesService(ctx: AppContext) {
   const { db } = ctx;
 
   /** The engine, when the caller may see it; 404 otherwise, never the record. */
   function visibleEngine(principal: Principal, id: string): EngineListRow {
     const row = findEngineRow(db, id);
-    const scope = tenancyScope(principal);
-    if (!row || (scope && row.organisationId !== scope))
+    if (!row || !seesOrganisationRecord(principal, row))
       throw AppError.notFound('There is no such engine');
     return row;
   }
@@ -84,7 +78,7 @@ export function createEnginesService(ctx: AppContext) {
       const { page, pageSize, sort: _sort, order: _order, ...filters } = query;
       const { rows, total } = listEngines(db, query, {
         ...filters,
-        scopeOrganisationId: tenancyScope(principal),
+        scopeOrganisationId: recordScope(principal).organisationId ?? undefined,
       });
       return { items: rows.map(toEngine), total, page, pageSize };
     },

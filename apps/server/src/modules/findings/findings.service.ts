@@ -16,6 +16,7 @@ import { assertShape, measure } from '@emberline/domain/measurement';
 import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction, type DbOrTx } from '../../db/client';
 import { AppError } from '../../http/app-error';
+import { seesInspection } from '../../http/record-access';
 import type { Principal } from '../../http/principal';
 import { newId } from '../../lib/ids';
 import { appendAudit } from '../audit/audit.repository';
@@ -514,9 +515,12 @@ export function createFindingsService(ctx: AppContext) {
     /** The damage series a finding belongs to, oldest first: how the damage has grown. */
     series(principal: Principal, id: string): SeriesEntry[] {
       const finding = visibleFinding(principal, id);
-      const customer = principal.user.role === 'customer';
+      // One engine's series: its inspections share the organisation of this one.
+      const { organisationId } = visibleInspection(db, principal, finding.inspectionId);
       return seriesFindings(db, finding.seriesId)
-        .filter((entry) => !customer || entry.inspection.state === 'released')
+        .filter((entry) =>
+          seesInspection(principal, { organisationId, state: entry.inspection.state }),
+        )
         .map(toSeriesEntry);
     },
 

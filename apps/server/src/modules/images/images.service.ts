@@ -1,4 +1,3 @@
-import fs from 'node:fs/promises';
 import type {
   Image,
   ImageTagInput,
@@ -205,11 +204,8 @@ export function createImagesService(ctx: AppContext) {
     async full(principal: Principal, id: string): Promise<{ path: string; sha256: string }> {
       const image = visibleImage(principal, id);
       const target = storage.fullPath(image.sha256);
-      try {
-        await fs.access(target);
-      } catch {
+      if (!(await storage.exists(target)))
         await renderFull(storage.originalPath(image.sha256), target);
-      }
       return { path: target, sha256: image.sha256 };
     },
 

@@ -1,7 +1,7 @@
-import { isStaffRole } from '@emberline/contracts/roles';
 import type { DbOrTx } from '../../db/client';
 import { AppError } from '../../http/app-error';
 import type { Principal } from '../../http/principal';
+import { seesInspection } from '../../http/record-access';
 import { findInspection, type InspectionRow } from './inspections.repository';
 
 /**
@@ -10,12 +10,8 @@ import { findInspection, type InspectionRow } from './inspections.repository';
  */
 export function visibleInspection(db: DbOrTx, principal: Principal, id: string): InspectionRow {
   const inspection = findInspection(db, id);
-  const visible =
-    inspection &&
-    (isStaffRole(principal.user.role) ||
-      (inspection.organisationId === principal.user.organisationId &&
-        inspection.state === 'released'));
-  if (!inspection || !visible) throw AppError.notFound('There is no such inspection');
+  if (!inspection || !seesInspection(principal, inspection))
+    throw AppError.notFound('There is no such inspection');
   return inspection;
 }
 

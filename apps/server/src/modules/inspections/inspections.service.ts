@@ -4,11 +4,11 @@ import type {
   InspectionFlag,
   ParsedInspectionInput,
 } from '@emberline/contracts/inspections';
-import { isStaffRole } from '@emberline/contracts/roles';
 import { inspectionFlags } from '@emberline/domain/inspection-flags';
 import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction } from '../../db/client';
 import { AppError } from '../../http/app-error';
+import { recordScope } from '../../http/record-access';
 import type { Principal } from '../../http/principal';
 import { newId } from '../../lib/ids';
 import { appendAudit } from '../audit/audit.repository';
@@ -59,11 +59,11 @@ export function createInspectionsService(ctx: AppContext) {
   return {
     list(principal: Principal, engineId: string | undefined): Inspection[] {
       if (engineId) engines.visibleEngine(principal, engineId);
-      const customer = !isStaffRole(principal.user.role);
+      const scope = recordScope(principal);
       return listInspections(db, {
         engineId,
-        organisationId: customer ? principal.user.organisationId : undefined,
-        releasedOnly: customer,
+        organisationId: scope.organisationId ?? undefined,
+        releasedOnly: scope.releasedOnly,
       }).map(toInspection);
     },
 

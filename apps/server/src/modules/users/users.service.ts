@@ -1,4 +1,5 @@
-import { isStaffRole, type Role } from '@emberline/contracts/roles';
+import { organisationKindOf } from '@emberline/contracts/permissions';
+import type { Role } from '@emberline/contracts/roles';
 import type {
   InviteUserInput,
   InviteUserResponse,
@@ -47,11 +48,12 @@ function assertRoleFitsOrganisation(
       form: [],
     });
   }
-  const fits = isStaffRole(role) ? organisation.kind === 'home' : organisation.kind === 'customer';
-  if (!fits) {
-    const message = isStaffRole(role)
-      ? `A ${role} belongs to the home organisation, not to the customer ${organisation.name}`
-      : `A customer user belongs to a customer organisation, not to ${organisation.name}`;
+  const kind = organisationKindOf(role);
+  if (organisation.kind !== kind) {
+    const message =
+      kind === 'home'
+        ? `A ${role} belongs to the home organisation, not to the customer ${organisation.name}`
+        : `A customer user belongs to a customer organisation, not to ${organisation.name}`;
     throw AppError.unprocessable(message, { fields: { organisationId: [message] }, form: [] });
   }
   return organisation;

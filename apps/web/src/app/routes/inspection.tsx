@@ -15,6 +15,7 @@ import { useInspection } from '../../features/inspections/api/inspections';
 import { FlagsPanel } from '../../features/inspections/components/flags-panel';
 import { ImageDrop } from '../../features/inspections/components/image-drop';
 import { ImageStrip } from '../../features/inspections/components/image-strip';
+import { ImageTagForm } from '../../features/inspections/components/image-tag-form';
 import { ReviewActions } from '../../features/inspections/components/review-actions';
 import { VideoFrames } from '../../features/inspections/components/video-frames';
 import { ApiError } from '../../lib/api-client';
@@ -115,6 +116,15 @@ export function InspectionRoute() {
               findings={findings.data?.items ?? []}
               limitSet={limitSet.data}
               editable={editable}
+              imageDetails={(image) => (
+                <ImageTagForm
+                  key={image.id}
+                  image={image}
+                  rows={rows}
+                  inspectionId={data.id}
+                  editable={editable}
+                />
+              )}
             />
           </div>
         ) : null}

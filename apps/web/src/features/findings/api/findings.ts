@@ -9,7 +9,7 @@ import type {
 } from '@emberline/contracts/findings';
 import type { LimitSet, LimitSetSummary } from '@emberline/contracts/limit-sets';
 import { api } from '../../../lib/api-client';
-import { inspectionKeys } from '../../inspections/api/inspections';
+import { inspectionKeys } from '../../../lib/inspection-keys';
 
 const path = (id: string) => `/inspections/${encodeURIComponent(id)}`;
 

@@ -6,7 +6,7 @@ import {
   type FindingInput,
 } from '@emberline/contracts/findings';
 import type { EngineModelRow } from '@emberline/contracts/fleet';
-import type { InspectionDetail } from '@emberline/contracts/inspections';
+import type { Image, InspectionDetail } from '@emberline/contracts/inspections';
 import type { LimitSet } from '@emberline/contracts/limit-sets';
 import type { Category } from '@emberline/contracts/limits';
 import type { Calibration } from '@emberline/contracts/measurement';
@@ -15,7 +15,7 @@ import { Button } from '../../../components/ui/button';
 import { Input, Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { applyServerErrors, useZodForm } from '../../../lib/form';
-import { ImageViewer } from '../../inspections/components/image-viewer';
+import { ImageViewer } from '../../../components/image-viewer';
 import { useRecordFinding, useSeriesCandidates } from '../api/findings';
 import {
   annotationReducer,
@@ -30,7 +30,7 @@ import { DrawingLayer } from './drawing-layer';
 import { FindingFields } from './finding-fields';
 import { blankDetails } from '../lib/finding-details';
 import { reasonLabels } from '../lib/reason-labels';
-import { VerdictBadge } from './verdict';
+import { VerdictBadge } from '../../../components/ui/verdict-badge';
 
 const mm = (value: number | null | undefined, digits = 3) =>
   value === null || value === undefined ? '—' : value.toFixed(digits);
@@ -74,6 +74,7 @@ export function Annotator({
   findings,
   limitSet,
   editable,
+  imageDetails,
 }: {
   inspection: InspectionDetail;
   rows: EngineModelRow[];
@@ -82,6 +83,8 @@ export function Annotator({
   findings: Finding[];
   limitSet: LimitSet | null | undefined;
   editable: boolean;
+  /** Shown beneath the still: the inspection's own form for the row and position it shows. */
+  imageDetails?: (image: Image) => ReactNode;
 }) {
   const images = inspection.images;
   const image = images[Math.min(index, images.length - 1)]!;
@@ -294,9 +297,7 @@ export function Annotator({
           }
           onIndex(next);
         }}
-        rows={rows}
-        inspectionId={inspection.id}
-        editable={editable}
+        details={imageDetails}
         toolbar={toolbar}
         leftButtonPans={state.tool === 'pan'}
         overlay={(shown) => (

@@ -26,7 +26,7 @@ import { formatKey } from '../../../lib/format';
 import { FindingFields } from './finding-fields';
 import { formatPositions, parsePositions } from '../lib/live';
 import { reasonLabels } from '../lib/reason-labels';
-import { VerdictBadge } from './verdict';
+import { VerdictBadge } from '../../../components/ui/verdict-badge';
 
 const rank = (category: Category) => categories.indexOf(category);
 

@@ -6,14 +6,8 @@ import type {
   InspectionDetail,
   InspectionInput,
 } from '@emberline/contracts/inspections';
-import { api } from '../../../lib/api-client';
-
-export const inspectionKeys = {
-  all: ['inspections'] as const,
-  lists: () => [...inspectionKeys.all, 'list'] as const,
-  list: (engineId: string) => [...inspectionKeys.lists(), engineId] as const,
-  detail: (id: string) => [...inspectionKeys.all, 'detail', id] as const,
-};
+import { api, apiUrl } from '../../../lib/api-client';
+import { inspectionKeys } from '../../../lib/inspection-keys';
 
 export const inspectionsQueryOptions = (engineId: string) =>
   queryOptions({
@@ -68,8 +62,9 @@ export function useTagImage(inspectionId: string) {
   });
 }
 
-export const imageUrl = (id: string, rendition: 'thumbnail' | 'preview' | 'full' | 'original') =>
-  `/api/v1/images/${encodeURIComponent(id)}/${rendition}`;
+/** Where the upload queue sends the stills of an inspection, one file a request. */
+export const imageUploadUrl = (inspectionId: string) =>
+  apiUrl(`/inspections/${encodeURIComponent(inspectionId)}/images`);
 
 export function useSubmitInspection(id: string) {
   const queryClient = useQueryClient();

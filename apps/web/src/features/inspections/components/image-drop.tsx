@@ -1,7 +1,8 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useDropzone } from 'react-dropzone';
 import { useUploadQueue } from '../../../lib/use-upload-queue';
-import { inspectionKeys } from '../api/inspections';
+import { inspectionKeys } from '../../../lib/inspection-keys';
+import { imageUploadUrl } from '../api/inspections';
 
 /** Drop borescope stills here; they go into the upload queue, which carries on across pages. */
 export function ImageDrop({ inspectionId }: { inspectionId: string }) {
@@ -19,7 +20,7 @@ export function ImageDrop({ inspectionId }: { inspectionId: string }) {
     maxSize: 64 * 1024 * 1024,
     onDrop: (accepted) =>
       queue.enqueue(
-        inspectionId,
+        imageUploadUrl(inspectionId),
         accepted.map((file) => ({ file, name: file.name })),
         refresh,
       ),

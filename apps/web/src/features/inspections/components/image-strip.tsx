@@ -1,5 +1,5 @@
 import type { Image } from '@emberline/contracts/inspections';
-import { imageUrl } from '../api/inspections';
+import { imageUrl } from '../../../lib/image-urls';
 
 export function ImageStrip({
   images,

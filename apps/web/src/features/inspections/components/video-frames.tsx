@@ -3,7 +3,8 @@ import { useQueryClient } from '@tanstack/react-query';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { useUploadQueue } from '../../../lib/use-upload-queue';
-import { inspectionKeys } from '../api/inspections';
+import { inspectionKeys } from '../../../lib/inspection-keys';
+import { imageUploadUrl } from '../api/inspections';
 
 const unplayable =
   'This video cannot be played in the browser (HEVC, AVI and MOV files are not). Convert it to MP4 with H.264 video, or to WebM, and open it again.';
@@ -47,7 +48,7 @@ export function VideoFrames({ inspectionId }: { inspectionId: string }) {
       if (!blob) return;
       const stem = source.name.replace(/\.[^.]+$/, '');
       queue.enqueue(
-        inspectionId,
+        imageUploadUrl(inspectionId),
         [
           {
             file: blob,

@@ -9,7 +9,7 @@ import type {
 } from '@emberline/contracts/limit-sets';
 import type { Rule } from '@emberline/contracts/limits';
 import { api } from '../../../lib/api-client';
-import { inspectionKeys } from '../../inspections/api/inspections';
+import { inspectionKeys } from '../../../lib/inspection-keys';
 
 const path = (id: string) => `/limit-sets/${encodeURIComponent(id)}`;
 

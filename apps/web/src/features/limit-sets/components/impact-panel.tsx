@@ -4,7 +4,7 @@ import type { LimitSetImpact } from '@emberline/contracts/limit-sets';
 import { categories, type Interval } from '@emberline/contracts/limits';
 import { verdictStyles } from '@emberline/drawings/verdict-style';
 import { Notice } from '../../../components/ui/notice';
-import { VerdictBadge } from '../../findings/components/verdict';
+import { VerdictBadge } from '../../../components/ui/verdict-badge';
 import { formatInterval } from '../lib/rule-form';
 
 function Verdict({

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { organisationKindOf } from '@emberline/contracts/permissions';
 import { roleLabels, roles } from '@emberline/contracts/roles';
 import { inviteUserInputSchema } from '@emberline/contracts/users';
 import { Button } from '../../../components/ui/button';
@@ -18,9 +19,8 @@ export function InviteUserForm({ organisations }: { organisations: Organisation[
     text: string;
   } | null>(null);
   const role = form.watch('role');
-  const choices = organisations.filter((organisation) =>
-    role === 'customer' ? organisation.kind === 'customer' : organisation.kind === 'home',
-  );
+  const kind = organisationKindOf(role);
+  const choices = organisations.filter((organisation) => organisation.kind === kind);
   const { errors } = form.formState;
 
   const onSubmit = form.handleSubmit((values) => {
@@ -89,7 +89,7 @@ export function InviteUserForm({ organisations }: { organisations: Organisation[
         label="Organisation"
         error={errors.organisationId}
         hint={
-          role === 'customer'
+          kind === 'customer'
             ? 'Customers see only their own organisation’s engines and reports.'
             : 'Staff roles belong to the home organisation.'
         }

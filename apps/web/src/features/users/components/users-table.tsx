@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { organisationKindOf } from '@emberline/contracts/permissions';
 import { roleLabels, roles, type Role } from '@emberline/contracts/roles';
 import type { User } from '@emberline/contracts/users';
 import { Button } from '../../../components/ui/button';
@@ -100,7 +101,9 @@ export function UsersTable({ currentUserId }: { currentUserId: string }) {
                       className="rounded-md border border-soot-300 bg-white px-2 py-1"
                     >
                       {roles
-                        .filter((role) => (user.role === 'customer') === (role === 'customer'))
+                        .filter(
+                          (role) => organisationKindOf(role) === organisationKindOf(user.role),
+                        )
                         .map((role) => (
                           <option key={role} value={role}>
                             {roleLabels[role]}

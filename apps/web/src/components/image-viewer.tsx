@@ -1,89 +1,20 @@
 import { useState, type ReactNode } from 'react';
-import type { EngineModelRow } from '@emberline/contracts/fleet';
 import type { Image } from '@emberline/contracts/inspections';
 import { TransformComponent, TransformWrapper } from 'react-zoom-pan-pinch';
-import { Button } from '../../../components/ui/button';
-import { Input, Select } from '../../../components/ui/field';
-import { Notice } from '../../../components/ui/notice';
-import { imageUrl, useTagImage } from '../api/inspections';
+import { imageUrl } from '../lib/image-urls';
 
 // Past this zoom the 1600 px preview is coarser than the screen: the full image takes over.
 const FULL_AT_SCALE = 2;
 
-function TagForm({
-  image,
-  rows,
-  inspectionId,
-  editable,
-}: {
-  image: Image;
-  rows: EngineModelRow[];
-  inspectionId: string;
-  editable: boolean;
-}) {
-  const tag = useTagImage(inspectionId);
-  const [rowKey, setRowKey] = useState(image.rowKey ?? '');
-  const [position, setPosition] = useState(image.position ? String(image.position) : '');
-  const row = rows.find((candidate) => candidate.key === rowKey);
-  if (!editable) {
-    return (
-      <p className="text-sm">
-        {image.rowKey
-          ? `Shows ${image.rowKey}, position ${image.position}`
-          : 'Not tagged with a row and position.'}
-      </p>
-    );
-  }
-  return (
-    <form
-      className="flex flex-wrap items-end gap-2"
-      aria-label="Row and position shown"
-      onSubmit={(event) => {
-        event.preventDefault();
-        tag.mutate({
-          imageId: image.id,
-          tag: rowKey ? { rowKey, position: Number(position) } : { rowKey: null, position: null },
-        });
-      }}
-    >
-      <label className="flex flex-col gap-1 text-sm">
-        Row shown
-        <Select value={rowKey} onChange={(event) => setRowKey(event.target.value)}>
-          <option value="">None</option>
-          {rows.map((candidate) => (
-            <option key={candidate.key} value={candidate.key}>
-              {candidate.label}
-            </option>
-          ))}
-        </Select>
-      </label>
-      <label className="flex flex-col gap-1 text-sm">
-        Position {row ? `(1–${row.count})` : ''}
-        <Input
-          type="number"
-          min={1}
-          max={row?.count}
-          value={position}
-          onChange={(event) => setPosition(event.target.value)}
-          className="w-24"
-          disabled={!rowKey}
-        />
-      </label>
-      <Button type="submit" variant="secondary" busy={tag.isPending}>
-        Save tag
-      </Button>
-      {tag.error ? <Notice tone="error">{tag.error.message}</Notice> : null}
-    </form>
-  );
-}
-
+/**
+ * A still at preview resolution that switches to the full image when zoomed in, with previous and
+ * next (arrow keys), zoom and fit; the annotation layer is drawn over it in the image's frame.
+ */
 export function ImageViewer({
   images,
   index,
   onIndex,
-  rows,
-  inspectionId,
-  editable,
+  details,
   toolbar,
   overlay,
   leftButtonPans = true,
@@ -91,9 +22,8 @@ export function ImageViewer({
   images: Image[];
   index: number;
   onIndex: (index: number) => void;
-  rows: EngineModelRow[];
-  inspectionId: string;
-  editable: boolean;
+  /** Shown beneath the image: what the still shows (its row and position). */
+  details?: (image: Image) => ReactNode;
   /** Tools shown above the image (the drawing tools). */
   toolbar?: ReactNode;
   /** Drawn over the image in its own frame (the annotation layer); it zooms and pans with it. */
@@ -210,15 +140,7 @@ export function ImageViewer({
           </>
         )}
       </TransformWrapper>
-      <div className="rounded bg-white p-3 text-soot-900">
-        <TagForm
-          key={image.id}
-          image={image}
-          rows={rows}
-          inspectionId={inspectionId}
-          editable={editable}
-        />
-      </div>
+      {details ? <div className="rounded bg-white p-3 text-soot-900">{details(image)}</div> : null}
     </section>
   );
 }
