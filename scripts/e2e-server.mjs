@@ -13,6 +13,7 @@ const child = spawn(process.execPath, ['apps/server/dist/server.js'], {
     DATA_DIR: dataDir,
     LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn',
     BCRYPT_COST: '10',
+    DEMO: '1',
   },
 });
 for (const signal of ['SIGINT', 'SIGTERM']) process.on(signal, () => child.kill(signal));

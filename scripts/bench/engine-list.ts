@@ -38,6 +38,7 @@ function get(port: number, cookie: string, agent: http.Agent): Promise<void> {
  */
 export async function benchEngineList() {
   const config = loadConfig({
+    DEMO: '1',
     DATA_DIR: makeDataDir(),
     LOG_LEVEL: 'silent',
     BCRYPT_COST: '10',

@@ -59,6 +59,7 @@ const pick = (draw: number) => {
  */
 export async function benchImpact() {
   const config = loadConfig({
+    DEMO: '1',
     DATA_DIR: makeDataDir(),
     LOG_LEVEL: 'silent',
     BCRYPT_COST: '10',

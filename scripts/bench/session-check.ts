@@ -43,6 +43,7 @@ async function latency(port: number, headers: Record<string, string>): Promise<n
  */
 export async function benchSessionCheck() {
   const config = loadConfig({
+    DEMO: '1',
     DATA_DIR: makeDataDir(),
     LOG_LEVEL: 'silent',
     BCRYPT_COST: '10',

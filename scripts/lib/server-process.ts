@@ -35,6 +35,7 @@ export async function startServerProcess(
       DATA_DIR: dataDir,
       LOG_LEVEL: 'error',
       BCRYPT_COST: '10',
+      DEMO: '1',
       DEMO_IMAGES: '0',
       NODE_ENV: 'production',
       ...env,

@@ -2,19 +2,55 @@ import { test as base, expect, type Page } from '@playwright/test';
 
 export const DEMO_PASSWORD = 'emberline-demo';
 
-/** Console errors a test did not expect, and every CSP violation, fail the test. */
-export const test = base.extend<{ consoleProblems: string[] }>({
+/** An HTTP error answer a test provokes on purpose: its status and a part of its address. */
+interface ExpectedHttpError {
+  status: number;
+  url: string | RegExp;
+}
+
+// The one 4xx every signed-out page sees: the client asks who is signed in and learns nobody is.
+const routine: ExpectedHttpError[] = [{ status: 401, url: '/api/v1/auth/me' }];
+
+const matches = (expected: ExpectedHttpError, status: number, url: string) =>
+  expected.status === status &&
+  (typeof expected.url === 'string' ? url.includes(expected.url) : expected.url.test(url));
+
+/**
+ * Console errors, CSP violations and HTTP error answers fail the test, unless the test declared the
+ * answer it provokes with `expectHttpError(status, url)` (a refused sign-in, a 404 page, a conflict
+ * shown at the field).
+ */
+export const test = base.extend<{
+  consoleProblems: string[];
+  expectHttpError: (status: number, url: string | RegExp) => void;
+}>({
+  expectHttpError: [
+    async ({ page }, use) => {
+      const expected: ExpectedHttpError[] = [...routine];
+      const unexpected: string[] = [];
+      page.on('response', (response) => {
+        const status = response.status();
+        if (status < 400) return;
+        const url = response.url();
+        if (!expected.some((item) => matches(item, status, url)))
+          unexpected.push(`${status} ${response.request().method()} ${url}`);
+      });
+      await use((status, url) => expected.push({ status, url }));
+      expect(unexpected, 'HTTP error answers the test did not expect').toEqual([]);
+    },
+    { auto: true },
+  ],
   consoleProblems: [
     async ({ page }, use) => {
       const problems: string[] = [];
       page.on('console', (message) => {
         const text = message.text();
         if (/Content Security Policy|Refused to/i.test(text)) problems.push(`CSP: ${text}`);
-        // A 4xx the app answers in the page (sign-in needed, not found, a conflict shown at the
-        // field) is logged by Chromium as a failed resource; it is not a fault of the page.
+        // Chromium logs every HTTP error answer as a failed resource; those are judged above, by
+        // status and address, so that only the ones a test expects pass.
         else if (
           message.type() === 'error' &&
-          !/Failed to load resource: the server responded with a status of 4\d\d/.test(text)
+          !/^Failed to load resource: the server responded with a status of [45]\d\d/.test(text)
         )
           problems.push(text);
       });

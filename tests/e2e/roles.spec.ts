@@ -40,9 +40,14 @@ test('a wrong password is refused with a message beside the form', async ({ page
 
 test('an empty form is refused at the fields without a request', async ({ page }) => {
   await page.goto('/sign-in');
+  const signIns: string[] = [];
+  page.on('request', (request) => {
+    if (request.url().includes('/api/v1/auth/login')) signIns.push(request.method());
+  });
   await page.getByRole('button', { name: 'Sign in' }).click();
   await expect(page.getByText('Enter an e-mail address such as name@example.com')).toBeVisible();
   await expect(page.getByText('Enter your password')).toBeVisible();
+  expect(signIns, 'sign-in requests sent').toEqual([]);
 });
 
 test('a customer sent to an admin page is told it is not for their role', async ({ page }) => {

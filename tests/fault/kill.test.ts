@@ -53,7 +53,7 @@ describe('uploads survive a killed server', () => {
     const inspectionId = ((await created.json()) as { id: string }).id;
 
     const acknowledged = new Map<string, string>();
-    let killedDuringUpload = 0;
+    let cut = 0;
     for (let round = 0; round < ROUNDS; round += 1) {
       const uploads = await Promise.all(
         Array.from({ length: UPLOADS_PER_ROUND }, async (_, index) => {
@@ -80,20 +80,28 @@ describe('uploads survive a killed server', () => {
           new Blob([new Uint8Array(data)], { type: 'image/jpeg' }),
           `round-${round}-${index}.jpg`,
         );
+        let response: Response;
+        let body: unknown;
         try {
-          const response = await fetch(`${base}/inspections/${inspectionId}/images`, {
+          response = await fetch(`${base}/inspections/${inspectionId}/images`, {
             method: 'POST',
             headers: { cookie },
             body: form,
           });
-          if (response.status !== 201) return;
-          const body = (await response.json()) as { images: { id: string; sha256: string }[] };
-          for (const image of body.images) acknowledged.set(image.id, image.sha256);
-          firstAcknowledged();
-          expect(body.images[0]!.sha256).toBe(sha256(data));
-        } catch {
-          killedDuringUpload += 1;
+          body = await response.json();
+        } catch (error) {
+          // The kill cut the connection before an answer: this upload was never acknowledged.
+          expect(error, `upload ${round}-${index}`).toBeInstanceOf(TypeError);
+          cut += 1;
+          return;
         }
+        // A server that answered took the file: anything but 201 is a failure, not a cut.
+        expect(response.status, `upload ${round}-${index}: ${JSON.stringify(body)}`).toBe(201);
+        const { images } = body as { images: { id: string; sha256: string }[] };
+        expect(images).toHaveLength(1);
+        expect(images[0]!.sha256).toBe(sha256(data));
+        acknowledged.set(images[0]!.id, images[0]!.sha256);
+        firstAcknowledged();
       });
       // The kill falls at a random moment once the round is under way: after its first
       // acknowledgement (or 3 s on a machine too busy to give one), so that some uploads are
@@ -145,8 +153,11 @@ describe('uploads survive a killed server', () => {
     }
     expect(fs.readdirSync(path.join(dataDir, 'images', 'tmp'))).toEqual([]);
     console.log(
-      `kill test: ${ROUNDS} rounds, ${acknowledged.size} acknowledged images kept, ${rows.length} stored, ${killedDuringUpload} uploads cut by a kill`,
+      `kill test: ${ROUNDS} rounds, ${acknowledged.size} acknowledged images kept, ${rows.length} stored, ${cut} uploads cut by a kill`,
     );
+    // Every upload was either acknowledged or cut, and the kills did land in the middle of some.
+    expect(acknowledged.size + cut).toBe(ROUNDS * UPLOADS_PER_ROUND);
     expect(acknowledged.size).toBeGreaterThan(0);
+    expect(cut, 'uploads cut by a kill').toBeGreaterThan(0);
   });
 });

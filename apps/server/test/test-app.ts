@@ -40,7 +40,13 @@ export function makeDataDir(): string {
  * real in-process SMTP fake. Nothing is mocked.
  */
 export async function startTestApp(
-  options: { dataDir?: string; env?: Record<string, string>; clock?: TestClock } = {},
+  options: {
+    dataDir?: string;
+    env?: Record<string, string>;
+    clock?: TestClock;
+    /** Load the demo scenario (DEMO=1); false starts as a real installation does by default. */
+    demo?: boolean;
+  } = {},
 ): Promise<TestApp> {
   const dataDir = options.dataDir ?? makeDataDir();
   const clock = options.clock ?? new TestClock();
@@ -49,6 +55,7 @@ export async function startTestApp(
     DATA_DIR: dataDir,
     LOG_LEVEL: 'error',
     BCRYPT_COST: '10',
+    ...(options.demo === false ? {} : { DEMO: '1' }),
     // The demo's stills take seconds to render; tests that need the demo history ask for it.
     DEMO_IMAGES: '0',
     ...options.env,

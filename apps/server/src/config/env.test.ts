@@ -3,18 +3,19 @@ import { describe, expect, it } from 'vitest';
 import { loadConfig } from './env';
 
 describe('loadConfig', () => {
-  it('defaults to port 8080, ./data, the demo scenario and a 2 h idle / 12 h absolute session', () => {
+  it('defaults to port 8080, ./data, no demo scenario and a 2 h idle / 12 h absolute session', () => {
     const config = loadConfig({});
     expect(config.port).toBe(8080);
     expect(config.dataDir).toBe(path.resolve('./data'));
-    expect(config.demo).toBe(true);
+    expect(config.demo).toBe(false);
     expect(config.sessionIdleMs).toBe(2 * 3_600_000);
     expect(config.sessionAbsoluteMs).toBe(12 * 3_600_000);
     expect(config.smtp).toBeNull();
     expect(config.trustProxy).toBe(false);
   });
 
-  it('reads DEMO=0 and a real SMTP relay', () => {
+  it('reads DEMO=1, DEMO=0 and a real SMTP relay', () => {
+    expect(loadConfig({ DEMO: '1' }).demo).toBe(true);
     const config = loadConfig({ DEMO: '0', SMTP_HOST: 'mail.example.org', SMTP_SECURE: 'true' });
     expect(config.demo).toBe(false);
     expect(config.smtp).toMatchObject({ host: 'mail.example.org', port: 465, secure: true });

@@ -21,7 +21,8 @@ const envSchema = z.object({
     .default(8080),
   HOST: z.string().min(1).default('0.0.0.0'),
   DATA_DIR: z.string().min(1).default('./data'),
-  DEMO: booleanFlag.default(true),
+  // Off unless asked: the demo accounts share a published password.
+  DEMO: booleanFlag.default(false),
   DEMO_IMAGES: booleanFlag.default(true),
   SESSION_SECRET: z
     .string()

@@ -10,6 +10,7 @@ import { inTransaction } from '../db/client';
 import type { Principal } from '../http/principal';
 import { processImage, rasteriseSvg, type ProcessedImage } from '../lib/images/image-pipeline';
 import { appendAudit } from '../modules/audit/audit.repository';
+import { createCoverageService } from '../modules/coverage/coverage.service';
 import { createFindingsService } from '../modules/findings/findings.service';
 import { insertImage } from '../modules/images/images.repository';
 import {
@@ -403,6 +404,7 @@ export async function loadDemoHistory(ctx: AppContext): Promise<void> {
   const today = ctx.now().toISOString().slice(0, 10);
   const inspector = demoPrincipal('user-inspector');
   const findings = createFindingsService(ctx);
+  const coverage = createCoverageService(ctx);
   const recorded = new Map<string, string>();
 
   // Every still is rendered and processed first, a few at a time: rendering dominates the load.
@@ -491,8 +493,8 @@ export async function loadDemoHistory(ctx: AppContext): Promise<void> {
       );
       recorded.set(item.key, finding.id);
     }
-    for (const [row, coverage] of Object.entries(spec.coverage))
-      findings.recordCoverage(inspector, spec.id, row, coverageInputSchema.parse(coverage), loader);
+    for (const [row, rowCoverage] of Object.entries(spec.coverage))
+      coverage.record(inspector, spec.id, row, coverageInputSchema.parse(rowCoverage), loader);
 
     if (spec.state !== 'draft') {
       inTransaction(ctx.db, (tx) => {

@@ -81,7 +81,9 @@ describe('the route policy', () => {
         if (endsSessions.has(key)) cookies.clear();
         const label = `${key} as ${role ?? 'anonymous'}`;
         if (allows(access, role)) {
+          // Let through, and answered: a 500 is a failure, not a pass.
           expect([401, 403], label).not.toContain(response.status);
+          expect(response.status, label).toBeLessThan(500);
         } else {
           expect(response.status, label).toBe(role ? 403 : 401);
           expect(response.body.error.code, label).toBe(role ? 'forbidden' : 'unauthenticated');

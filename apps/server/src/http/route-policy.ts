@@ -7,6 +7,7 @@ import type { Access } from '@emberline/contracts/permissions';
  */
 export const routePolicy = {
   'GET /health': 'public',
+  'GET /installation': 'public',
   'POST /auth/login': 'public',
   'POST /auth/logout': 'public',
   'GET /auth/me': 'signed-in',

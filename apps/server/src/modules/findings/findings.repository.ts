@@ -2,7 +2,7 @@ import { and, asc, desc, eq, max, ne, or, lt, sql, type SQL } from 'drizzle-orm'
 import type { FindingEvaluation } from '@emberline/contracts/limits';
 import { SQLiteSyncDialect } from 'drizzle-orm/sqlite-core';
 import { rawConnection, type DbOrTx } from '../../db/client';
-import { findings, inspections, limitSets, rowCoverage, users } from '../../db/schema';
+import { findings, inspections, limitSets, users } from '../../db/schema';
 
 const sqliteDialect = new SQLiteSyncDialect();
 
@@ -116,20 +116,6 @@ export function seriesFindings(db: DbOrTx, seriesId: string) {
     .where(and(eq(findings.seriesId, seriesId), eq(findings.status, 'recorded')))
     .orderBy(asc(inspections.date), asc(inspections.createdAt))
     .all();
-}
-
-export type CoverageRecord = typeof rowCoverage.$inferSelect;
-
-export function listCoverage(db: DbOrTx, inspectionId: string): CoverageRecord[] {
-  return db.select().from(rowCoverage).where(eq(rowCoverage.inspectionId, inspectionId)).all();
-}
-
-export function upsertCoverage(db: DbOrTx, row: CoverageRecord): void {
-  const { inspectionId: _inspection, rowKey: _row, ...changes } = row;
-  db.insert(rowCoverage)
-    .values(row)
-    .onConflictDoUpdate({ target: [rowCoverage.inspectionId, rowCoverage.rowKey], set: changes })
-    .run();
 }
 
 /** Findings that continue this one (in later inspections). */

@@ -1,7 +1,5 @@
 import { Router } from 'express';
 import {
-  coverageInputSchema,
-  coverageResponseSchema,
   findingInputSchema,
   findingListResponseSchema,
   findingSchema,
@@ -10,7 +8,6 @@ import {
   voidInputSchema,
 } from '@emberline/contracts/findings';
 import { idParamsSchema } from '@emberline/contracts/users';
-import { z } from 'zod';
 import type { AppContext } from '../../context';
 import { principalOf } from '../../http/principal';
 import { requestMeta } from '../../http/request-meta';
@@ -72,42 +69,6 @@ export function findingsRoutes(ctx: AppContext): Router {
       res.json({
         items: findings.seriesCandidates(principalOf(res), res.locals.params.id, res.locals.query),
       });
-    },
-  );
-
-  route(
-    router,
-    'GET /inspections/:id/coverage',
-    {
-      summary: 'Coverage of every listed row, and the inspection outcome',
-      params: idParamsSchema,
-      response: coverageResponseSchema,
-    },
-    (_req, res) => {
-      res.json(findings.coverage(principalOf(res), res.locals.params.id));
-    },
-  );
-
-  route(
-    router,
-    'PUT /inspections/:id/coverage/:row',
-    {
-      summary:
-        'Record how much of a row was viewed, and "no damage found" where that is the result',
-      params: z.strictObject({ id: z.string().min(1).max(64), row: z.string().min(1).max(100) }),
-      body: coverageInputSchema,
-      response: coverageResponseSchema,
-    },
-    (req, res) => {
-      res.json(
-        findings.recordCoverage(
-          principalOf(res),
-          res.locals.params.id,
-          res.locals.params.row,
-          res.locals.body,
-          requestMeta(req),
-        ),
-      );
     },
   );
 

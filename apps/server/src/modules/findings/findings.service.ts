@@ -1,17 +1,12 @@
 import type {
   CalibrationSnapshot,
-  ParsedCoverageInput,
-  CoverageResponse,
   Finding,
   FindingListResponse,
   ParsedFindingInput,
-  RowCoverage,
   SeriesEntry,
 } from '@emberline/contracts/findings';
-import type { EngineModelRow } from '@emberline/contracts/fleet';
 import type { Category, FindingEvaluation } from '@emberline/contracts/limits';
 import type { ImagePoint } from '@emberline/contracts/measurement';
-import { isCoverageGap, normaliseCoverage } from '@emberline/domain/coverage';
 import { assertShape, measure } from '@emberline/domain/measurement';
 import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction, type DbOrTx } from '../../db/client';
@@ -20,22 +15,24 @@ import { seesInspection } from '../../http/record-access';
 import type { Principal } from '../../http/principal';
 import { newId } from '../../lib/ids';
 import { appendAudit } from '../audit/audit.repository';
-import { listModelRows } from '../engine-models/engine-models.repository';
-import { findEngineRow } from '../engines/engines.repository';
 import { findImageMeta, type ImageMeta } from '../images/images.repository';
-import { draftInspection, visibleInspection } from '../inspections/inspection-access';
+import { listCoverage } from '../coverage/coverage.repository';
+import { coverageOf } from '../coverage/coverage.service';
+import {
+  draftInspection,
+  inspectionModelRows,
+  visibleInspection,
+} from '../inspections/inspection-access';
 import type { InspectionRow } from '../inspections/inspections.repository';
 import {
   earlierFindings,
   findFinding,
   insertFinding,
-  listCoverage,
   listFindings,
   listSuccessors,
   nextFindingNumber,
   seriesFindings,
   updateFinding,
-  upsertCoverage,
   type FindingRecord,
   type FindingRow,
 } from './findings.repository';
@@ -188,35 +185,6 @@ function measureFinding(db: DbOrTx, input: ParsedFindingInput, image: ImageMeta)
   };
 }
 
-function coverageOf(
-  db: DbOrTx,
-  inspection: InspectionRow,
-  rows: readonly EngineModelRow[],
-): RowCoverage[] {
-  const stored = new Map(listCoverage(db, inspection.id).map((row) => [row.rowKey, row]));
-  const counts = new Map<string, number>();
-  for (const finding of listFindings(db, inspection.id))
-    if (finding.status === 'recorded')
-      counts.set(finding.rowKey, (counts.get(finding.rowKey) ?? 0) + 1);
-  return inspection.rows.map((key) => {
-    const row = rows.find((candidate) => candidate.key === key);
-    const record = stored.get(key) ?? null;
-    return {
-      row: key,
-      label: row?.label ?? key,
-      count: row?.count ?? 0,
-      recorded: record !== null,
-      status: record?.status ?? 'none',
-      viewedPositions: record?.viewedPositions ?? [],
-      noDamageFound: record?.noDamageFound ?? false,
-      reason: record?.reason ?? '',
-      gap: isCoverageGap(record),
-      findingCount: counts.get(key) ?? 0,
-      updatedAt: record?.updatedAt.toISOString() ?? null,
-    };
-  });
-}
-
 function auditView(
   finding: Pick<
     FindingRecord,
@@ -253,10 +221,6 @@ function auditView(
 export function createFindingsService(ctx: AppContext) {
   const { db } = ctx;
 
-  function modelRows(inspection: InspectionRow): EngineModelRow[] {
-    return listModelRows(db, findEngineRow(db, inspection.engineId)!.modelId);
-  }
-
   /** Checks where a finding is and what it links to; returns its measurements and series. */
   function prepare(
     inspection: InspectionRow,
@@ -268,7 +232,9 @@ export function createFindingsService(ctx: AppContext) {
       throw invalid('imageId', 'The image is not in this inspection');
     if (!inspection.rows.includes(input.row))
       throw invalid('row', `The row ${input.row} is not listed for this inspection`);
-    const row = modelRows(inspection).find((candidate) => candidate.key === input.row)!;
+    const row = inspectionModelRows(db, inspection).find(
+      (candidate) => candidate.key === input.row,
+    )!;
     if (input.position > row.count)
       throw invalid(
         'position',
@@ -358,7 +324,7 @@ export function createFindingsService(ctx: AppContext) {
         outcome: inspectionOutcome(
           db,
           inspectionId,
-          coverageOf(db, inspection, modelRows(inspection)),
+          coverageOf(db, inspection, inspectionModelRows(db, inspection)),
         ),
       };
     },
@@ -522,62 +488,6 @@ export function createFindingsService(ctx: AppContext) {
           seesInspection(principal, { organisationId, state: entry.inspection.state }),
         )
         .map(toSeriesEntry);
-    },
-
-    coverage(principal: Principal, inspectionId: string): CoverageResponse {
-      const inspection = visibleInspection(db, principal, inspectionId);
-      const rows = coverageOf(db, inspection, modelRows(inspection));
-      return { rows, outcome: inspectionOutcome(db, inspectionId, rows) };
-    },
-
-    recordCoverage(
-      principal: Principal,
-      inspectionId: string,
-      rowKey: string,
-      input: ParsedCoverageInput,
-      meta: RequestMeta,
-    ): CoverageResponse {
-      const inspection = draftInspection(db, principal, inspectionId);
-      if (!inspection.rows.includes(rowKey))
-        throw AppError.notFound(`The row ${rowKey} is not listed for this inspection`);
-      const row = modelRows(inspection).find((candidate) => candidate.key === rowKey)!;
-      const onRow = listFindings(db, inspectionId).filter(
-        (finding) => finding.status === 'recorded' && finding.rowKey === rowKey,
-      ).length;
-      const normal = normaliseCoverage(input, row, onRow);
-      const before = listCoverage(db, inspectionId).find((item) => item.rowKey === rowKey) ?? null;
-      const now = ctx.now();
-      inTransaction(db, (tx) => {
-        upsertCoverage(tx, {
-          inspectionId,
-          rowKey,
-          status: normal.status,
-          viewedPositions: [...normal.viewedPositions],
-          noDamageFound: normal.noDamageFound,
-          reason: normal.reason,
-          updatedBy: principal.user.id,
-          updatedAt: now,
-        });
-        appendAudit(tx, now, {
-          actorUserId: principal.user.id,
-          action: 'coverage.recorded',
-          entityType: 'inspection',
-          entityId: inspectionId,
-          before: before
-            ? {
-                row: rowKey,
-                status: before.status,
-                viewedPositions: before.viewedPositions,
-                noDamageFound: before.noDamageFound,
-                reason: before.reason,
-              }
-            : null,
-          after: { row: rowKey, ...normal },
-          requestId: meta.requestId,
-          ip: meta.ip,
-        });
-      });
-      return service.coverage(principal, inspectionId);
     },
   };
   return service;

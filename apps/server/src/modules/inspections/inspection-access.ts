@@ -1,7 +1,10 @@
+import type { EngineModelRow } from '@emberline/contracts/fleet';
 import type { DbOrTx } from '../../db/client';
 import { AppError } from '../../http/app-error';
 import type { Principal } from '../../http/principal';
 import { seesInspection } from '../../http/record-access';
+import { listModelRows } from '../engine-models/engine-models.repository';
+import { findEngineRow } from '../engines/engines.repository';
 import { findInspection, type InspectionRow } from './inspections.repository';
 
 /**
@@ -24,4 +27,9 @@ export function draftInspection(db: DbOrTx, principal: Principal, id: string): I
     );
   }
   return inspection;
+}
+
+/** The rows of the engine model an inspection's engine is of. */
+export function inspectionModelRows(db: DbOrTx, inspection: InspectionRow): EngineModelRow[] {
+  return listModelRows(db, findEngineRow(db, inspection.engineId)!.modelId);
 }

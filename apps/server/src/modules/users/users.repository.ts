@@ -1,4 +1,4 @@
-import { and, asc, count, desc, eq, gt, isNull, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, gt, inArray, isNull, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../../db/client';
 import { organisations, sessions, users } from '../../db/schema';
 
@@ -79,6 +79,14 @@ export function insertUser(db: DbOrTx, row: NewUserRow): void {
 
 export function updateUser(db: DbOrTx, id: string, changes: Partial<NewUserRow>): void {
   db.update(users).set(changes).where(eq(users.id, id)).run();
+}
+
+/** Whether any of these accounts exists (the demo scenario's, for one). */
+export function anyUserWithId(db: DbOrTx, ids: string[]): boolean {
+  return (
+    db.select({ id: users.id }).from(users).where(inArray(users.id, ids)).limit(1).get() !==
+    undefined
+  );
 }
 
 export function countUsers(db: DbOrTx): number {
