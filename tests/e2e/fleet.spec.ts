@@ -75,7 +75,9 @@ test('the planner records a period and imports a CSV after seeing what it will t
 
 test('a customer sees only their own engines, and another organisation’s engine is not found', async ({
   page,
+  expectHttpError,
 }) => {
+  expectHttpError(404, '/api/v1/engines/engine-d0201');
   await signIn(page, 'customer@demo.test');
   await page.goto('/fleet');
   await expect(page.getByTestId('engine-row')).toHaveCount(6);
@@ -88,7 +90,12 @@ test('a customer sees only their own engines, and another organisation’s engin
   ).toBeVisible();
 });
 
-test('the admin creates an engine model with rows and an engine on it', async ({ page }) => {
+test('the admin creates an engine model with rows and an engine on it', async ({
+  page,
+  expectHttpError,
+}) => {
+  // The second engine of the same serial number is refused at the field.
+  expectHttpError(409, '/api/v1/engines');
   await signIn(page, 'admin@demo.test');
   await page.goto('/admin/engine-models');
   await page.getByRole('link', { name: 'New engine model' }).click();

@@ -124,7 +124,9 @@ test('a video the browser cannot play is refused with what to convert it to', as
 
 test('the demo inspection shows its invented stills to staff and not to a customer', async ({
   page,
+  expectHttpError,
 }) => {
+  expectHttpError(404, /\/api\/v1\/inspections\/inspection-d0103-demo(\/findings|\/coverage)?$/);
   await signIn(page, 'engineer@demo.test');
   await page.goto('/inspections/inspection-d0103-demo');
   await expect(page.getByTestId('image-strip').getByRole('button')).toHaveCount(6);

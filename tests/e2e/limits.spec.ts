@@ -5,7 +5,10 @@ import { expect, signIn, test } from './fixtures';
 // show that finding leaving repeat inspection, and once published the inspection page must say so.
 test('the engineer copies the demo revision, tightens a crack limit, checks the impact and publishes', async ({
   page,
+  expectHttpError,
 }) => {
+  // Publishing with a wrong password is refused first.
+  expectHttpError(422, /\/publication$/);
   await signIn(page, 'engineer@demo.test');
   await page
     .getByRole('navigation', { name: 'Main' })

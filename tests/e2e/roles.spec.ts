@@ -30,7 +30,11 @@ for (const [email, items] of Object.entries(expectedNavigation)) {
   });
 }
 
-test('a wrong password is refused with a message beside the form', async ({ page }) => {
+test('a wrong password is refused with a message beside the form', async ({
+  page,
+  expectHttpError,
+}) => {
+  expectHttpError(401, '/api/v1/auth/login');
   await page.goto('/sign-in');
   await page.getByLabel('E-mail address').fill('planner@demo.test');
   await page.getByLabel('Password').fill(`${DEMO_PASSWORD}-wrong`);
@@ -67,4 +71,14 @@ test('screens of later releases say plainly that they are not built yet', async 
   await page.getByRole('link', { name: 'Review queue' }).click();
   await expect(page.getByRole('heading', { name: 'Review queue' })).toBeVisible();
   await expect(page.getByText('Not built yet')).toBeVisible();
+});
+
+test('a demo installation says so before and after signing in', async ({ page }) => {
+  const banner = page.getByRole('note', { name: 'Demo installation' });
+  await page.goto('/sign-in');
+  await expect(banner).toContainText('password is published');
+  await signIn(page, 'planner@demo.test');
+  await expect(banner).toBeVisible();
+  await page.goto('/fleet/engine-d0103');
+  await expect(banner).toContainText('Never use it for a real engine');
 });

@@ -1,6 +1,5 @@
-import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
-import { canonicalJson, canonicalSha256 } from '../../apps/server/src/lib/canonical';
+import { canonicalJson, canonicalSha256, sha256Hex } from '../../apps/server/src/lib/canonical';
 
 describe('canonical JSON of signed and published content (RFC 8785)', () => {
   it('gives the output of the worked example of RFC 8785 §3.2.3', () => {
@@ -32,11 +31,19 @@ describe('canonical JSON of signed and published content (RFC 8785)', () => {
     );
   });
 
-  it('hashes the canonical text with SHA-256 (node:crypto as the reference digest)', () => {
-    const value = { b: [1, 2], a: 'x' };
-    expect(canonicalSha256(value)).toBe(
-      createHash('sha256').update('{"a":"x","b":[1,2]}').digest('hex'),
+  it('computes SHA-256 as the published test vectors give it', () => {
+    // FIPS 180-2, Appendix B.1 (one-block message "abc") and B.2 (two-block message).
+    expect(sha256Hex('abc')).toBe(
+      'ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad',
     );
+    expect(sha256Hex('abcdbcdecdefdefgefghfghighijhijkijkljklmklmnlmnomnopnopq')).toBe(
+      '248d6a61d20638b8e5c026930c3e6039a33ce45964ff2167f6ecedd419db06c1',
+    );
+  });
+
+  it('hashes exactly the canonical text, whatever the order of the keys given', () => {
+    const value = { b: [1, 2], a: 'x' };
+    expect(canonicalSha256(value)).toBe(sha256Hex('{"a":"x","b":[1,2]}'));
     expect(canonicalSha256({ a: 'x', b: [1, 2] })).toBe(canonicalSha256(value));
   });
 });

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { EvaluationFinding, EvaluationRequest, Rule } from '@emberline/contracts/limits';
-import { circularRuns, compareActions, evaluate, ruleProblems } from './limits';
+import { circularRuns, compareActions, evaluate } from './limits';
+import { ruleProblems } from './rules';
 
 // Rules and findings for these tests are invented; nothing here comes from an engine manual.
 function rule(overrides: Partial<Rule> = {}): Rule {

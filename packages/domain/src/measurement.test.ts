@@ -6,7 +6,9 @@ const reference: Calibration = { kind: 'reference', p1: [0, 0], p2: [100, 0], le
 
 describe('reference calibration', () => {
   it('measures a polyline and its uncertainty by the rule of §5.1', () => {
-    // P = 50 px (a 30-40-50 triangle), s = 10 / 100, s_max = 10 / (100 − 2), k = 1 segment.
+    // Worked by hand: P = 50 px (a 30-40-50 triangle), k = 1 segment, u = 1 px, s = 10/100 mm/px,
+    // s_max = 10/(100 − 2) = 5/49; ℓmax = 5/49 × (50 + 2×1×1) = 260/49 mm;
+    // uncertainty = 260/49 − 5 = 15/49 ≈ 0.306122 mm.
     const result = measure(reference, {
       kind: 'polyline',
       points: [
@@ -16,7 +18,7 @@ describe('reference calibration', () => {
     });
     expect(result.mmPerPx).toBeCloseTo(0.1, 12);
     expect(result.lengthMm).toBeCloseTo(5, 12);
-    expect(result.uncertaintyMm).toBeCloseTo((10 / 98) * (50 + 2) - 5, 12);
+    expect(result.uncertaintyMm).toBeCloseTo(0.306122448979592, 12);
     expect(result.areaMm2).toBeNull();
     expect(result.uncertaintyMm2).toBeNull();
   });
@@ -35,9 +37,10 @@ describe('reference calibration', () => {
       },
       2,
     );
-    const sMax = 10 / (100 - 4);
+    // Worked by hand: P = 30 px, k = 3 segments, u = 2 px, s_max = 10/(100 − 4) = 5/48;
+    // ℓmax = 5/48 × (30 + 2×2×3) = 5/48 × 42 = 4.375 mm; uncertainty = 4.375 − 3 = 1.375 mm.
     expect(result.lengthMm).toBeCloseTo(3, 12);
-    expect(result.uncertaintyMm).toBeCloseTo(sMax * (30 + 2 * 2 * 3) - 3, 12);
+    expect(result.uncertaintyMm).toBeCloseTo(1.375, 12);
   });
 
   it('measures a polygon: area, perimeter, largest extent and the area uncertainty', () => {
@@ -53,8 +56,9 @@ describe('reference calibration', () => {
     expect(result.areaMm2).toBeCloseTo(1, 12);
     expect(result.perimeterMm).toBeCloseTo(4, 12);
     expect(result.maxExtentMm).toBeCloseTo(Math.SQRT2, 12);
-    const sMax = 10 / 98;
-    expect(result.uncertaintyMm2).toBeCloseTo(sMax * sMax * (100 + 1 * 40 + Math.PI) - 1, 12);
+    // Worked by hand: A = 100 px², Pp = 40 px, u = 1 px, s_max = 5/49, s_max² = 25/2401;
+    // Amax = 25/2401 × (100 + 40 + π) = (3500 + 25π)/2401 ≈ 1.490437 mm²; uncertainty ≈ 0.490437.
+    expect(result.uncertaintyMm2).toBeCloseTo(0.490437241291022, 12);
     expect(result.lengthMm).toBeNull();
   });
 

@@ -34,7 +34,7 @@ const empty: MeasurementResult = {
   uncertaintyMm2: null,
 };
 
-/** Refuses repeated consecutive points (and, for a polygon, a last point equal to the first). */
+/** The fewest points each kind of shape is drawn with. */
 const pointsNeeded = { polyline: 2, polygon: 3, point: 1 } as const;
 
 /**
@@ -56,6 +56,7 @@ export function assertShape(shape: Shape): void {
   assertDistinctPoints(shape);
 }
 
+/** Refuses repeated consecutive points (and, for a polygon, a last point equal to the first). */
 function assertDistinctPoints(shape: Shape): void {
   const { points } = shape;
   const closing = shape.kind === 'polygon' ? points.length : points.length - 1;

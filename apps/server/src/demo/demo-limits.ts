@@ -1,5 +1,5 @@
 import type { Rule } from '@emberline/contracts/limits';
-import { validateRuleZones, validateRules } from '@emberline/domain/limits';
+import { validateRuleZones, validateRules } from '@emberline/domain/rules';
 import type { DbOrTx } from '../db/client';
 import { appendAudit } from '../modules/audit/audit.repository';
 import {

@@ -8,7 +8,12 @@ export function canonicalJson(value: unknown): string {
   return text;
 }
 
+/** SHA-256 (hex) of a text's UTF-8 bytes. */
+export function sha256Hex(text: string): string {
+  return createHash('sha256').update(text, 'utf8').digest('hex');
+}
+
 /** SHA-256 (hex) of the canonical JSON of a value. */
 export function canonicalSha256(value: unknown): string {
-  return createHash('sha256').update(canonicalJson(value), 'utf8').digest('hex');
+  return sha256Hex(canonicalJson(value));
 }

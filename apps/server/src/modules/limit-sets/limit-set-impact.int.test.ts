@@ -13,16 +13,19 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-describe('the impact preview of a draft revision', () => {
-  let impact: LimitSetImpact;
+/** The impact preview of draft D-2, as a planner asks for it. */
+async function previewD2(): Promise<LimitSetImpact> {
+  const planner = await t.signIn(demoAccounts.planner);
+  const response = await request(t.app)
+    .get(`/api/v1/limit-sets/${DEMO_DRAFT_LIMIT_SET_ID}/impact`)
+    .set('Cookie', planner);
+  expect(response.status).toBe(200);
+  return limitSetImpactSchema.parse(response.body);
+}
 
+describe('the impact preview of a draft revision', () => {
   it('judges the current demo findings against draft D-2 and lists what changes', async () => {
-    const planner = await t.signIn(demoAccounts.planner);
-    const response = await request(t.app)
-      .get(`/api/v1/limit-sets/${DEMO_DRAFT_LIMIT_SET_ID}/impact`)
-      .set('Cookie', planner);
-    expect(response.status).toBe(200);
-    impact = limitSetImpactSchema.parse(response.body);
+    const impact = await previewD2();
     const total = (counts: Record<string, number>) =>
       categories.reduce((sum, category) => sum + (counts[category] ?? 0), 0);
     expect(total(impact.after)).toBe(impact.findings);
@@ -72,6 +75,7 @@ describe('the impact preview of a draft revision', () => {
   });
 
   it('foretells what publishing stores on the open inspections', async () => {
+    const impact = await previewD2();
     const engineer = await t.signIn(demoAccounts.engineer);
     const published = await request(t.app)
       .post(`/api/v1/limit-sets/${DEMO_DRAFT_LIMIT_SET_ID}/publication`)

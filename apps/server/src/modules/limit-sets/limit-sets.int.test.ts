@@ -2,7 +2,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { limitSetSchema } from '@emberline/contracts/limit-sets';
 import type { Rule } from '@emberline/contracts/limits';
-import { validateRuleZones, validateRules } from '@emberline/domain/limits';
+import { validateRuleZones, validateRules } from '@emberline/domain/rules';
 import {
   openInspection,
   still,

@@ -7,7 +7,7 @@ import type {
   LimitSetSummary,
 } from '@emberline/contracts/limit-sets';
 import type { Rule } from '@emberline/contracts/limits';
-import { ruleProblems, validateRuleZones, validateRules } from '@emberline/domain/limits';
+import { ruleProblems, validateRuleZones, validateRules } from '@emberline/domain/rules';
 import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction } from '../../db/client';
 import { AppError } from '../../http/app-error';

@@ -20,9 +20,11 @@ export const limitSetKeys = {
   impact: (id: string) => [...limitSetKeys.all, 'impact', id] as const,
 };
 
+/** The revisions of a model; nothing is asked until the model is known. */
 export function useLimitSets(modelId: string) {
   return useQuery({
     queryKey: limitSetKeys.ofModel(modelId),
+    enabled: modelId !== '',
     queryFn: () =>
       api
         .get<{ items: LimitSetSummary[] }>(
@@ -113,10 +115,14 @@ export function usePublish(id: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (password: string) => api.post<LimitSet>(`${path(id)}/publication`, { password }),
-    onSuccess: () =>
-      Promise.all([
+    onSuccess: (published) => {
+      // A published revision has no impact preview: stop asking before the library refreshes.
+      queryClient.setQueryData(limitSetKeys.detail(id), published);
+      queryClient.removeQueries({ queryKey: limitSetKeys.impact(id) });
+      return Promise.all([
         queryClient.invalidateQueries({ queryKey: limitSetKeys.all }),
         queryClient.invalidateQueries({ queryKey: inspectionKeys.all }),
-      ]),
+      ]);
+    },
   });
 }

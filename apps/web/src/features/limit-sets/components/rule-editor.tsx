@@ -9,7 +9,7 @@ import {
   measures,
   type Rule,
 } from '@emberline/contracts/limits';
-import { ruleProblems } from '@emberline/domain/limits';
+import { ruleProblems } from '@emberline/domain/rules';
 import { Button } from '../../../components/ui/button';
 import { Field, Input, OptionalNumberField, Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
