@@ -74,7 +74,9 @@ export function createCoverageService(ctx: AppContext) {
       const inspection = draftInspection(db, principal, inspectionId);
       if (!inspection.rows.includes(rowKey))
         throw AppError.notFound(`The row ${rowKey} is not listed for this inspection`);
-      const row = inspectionModelRows(db, inspection).find((candidate) => candidate.key === rowKey)!;
+      const row = inspectionModelRows(db, inspection).find(
+        (candidate) => candidate.key === rowKey,
+      )!;
       const onRow = listFindings(db, inspectionId).filter(
         (finding) => finding.status === 'recorded' && finding.rowKey === rowKey,
       ).length;
