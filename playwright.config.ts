@@ -1,6 +1,15 @@
 import { defineConfig } from '@playwright/test';
+import { MAIN_PORT as port, RELAY_PORT, RELAYED_PORT } from './tests/e2e/servers';
 
-const port = Number(process.env.E2E_PORT ?? 8191);
+const server = (listen: number, env: Record<string, string> = {}) => ({
+  command: 'node scripts/e2e-server.mjs',
+  url: `http://localhost:${listen}/api/v1/health`,
+  env: { PORT: String(listen), ...env },
+  reuseExistingServer: false,
+  timeout: 60_000,
+  stdout: 'ignore' as const,
+  stderr: 'pipe' as const,
+});
 
 /** End-to-end tests against the built product, in Debian's Chromium (Playwright cannot download one here). */
 export default defineConfig({
@@ -27,13 +36,8 @@ export default defineConfig({
       ],
     },
   },
-  webServer: {
-    command: 'node scripts/e2e-server.mjs',
-    url: `http://localhost:${port}/api/v1/health`,
-    env: { PORT: String(port) },
-    reuseExistingServer: false,
-    timeout: 60_000,
-    stdout: 'ignore',
-    stderr: 'pipe',
-  },
+  webServer: [
+    server(port),
+    server(RELAYED_PORT, { SMTP_HOST: '127.0.0.1', SMTP_PORT: String(RELAY_PORT) }),
+  ],
 });

@@ -14,12 +14,15 @@ test('an admin invites a planner, reads the invitation in the outbox, and the pl
     .getByLabel('Organisation', { exact: true })
     .selectOption({ label: 'Ashgrove Hot Section Services (demo)' });
   await page.getByRole('button', { name: 'Send invitation' }).click();
-  await expect(page.getByText('Invitation sent to odile.ferrand@demo.test')).toBeVisible();
+  await expect(page.getByText('Invitation to odile.ferrand@demo.test is on its way')).toBeVisible();
   await expect(page.getByTestId('user-row-odile.ferrand@demo.test')).toContainText('invited');
   await page.screenshot({ path: 'test-results/admin-users.png', fullPage: true });
 
   await page.getByRole('link', { name: 'Outbox' }).click();
+  const invitation = page.getByTestId('outbox-row').filter({ hasText: 'odile.ferrand@demo.test' });
+  await expect(invitation).toContainText('Sent', { timeout: 15_000 });
   await page
+    .getByRole('list', { name: 'Caught messages' })
     .getByRole('button', { name: /Your Emberline invitation/ })
     .first()
     .click();
@@ -133,12 +136,12 @@ async function tokenFromOutbox(
   subject: string,
 ): Promise<string> {
   for (let attempt = 0; attempt < 50; attempt += 1) {
-    const outbox = (await (await api.get('/api/v1/outbox')).json()) as {
+    const outbox = (await (await api.get('/api/v1/outbox/caught')).json()) as {
       items: { id: string; to: string[]; subject: string }[];
     };
     const item = outbox.items.find((entry) => entry.to.includes(to) && entry.subject === subject);
     if (item) {
-      const message = (await (await api.get(`/api/v1/outbox/${item.id}`)).json()) as {
+      const message = (await (await api.get(`/api/v1/outbox/caught/${item.id}`)).json()) as {
         text: string;
       };
       const token = /#token=([A-Za-z0-9_-]{43})/.exec(message.text)?.[1];

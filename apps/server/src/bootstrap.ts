@@ -8,8 +8,9 @@ import { runMigrations } from './db/migrate';
 import { loadDemoHistory } from './demo/demo-history';
 import { loadDemoScenario } from './demo/demo-scenario';
 import { caughtMailStore } from './lib/email/caught-mail';
+import { createDelivery, type Delivery } from './lib/email/delivery';
 import { createMailer } from './lib/email/mailer';
-import { startSmtpFake } from './lib/email/smtp-fake';
+import { startSmtpFake, type SmtpFake } from './lib/email/smtp-fake';
 import type { Logger } from './lib/logger';
 import { createLocalStorage } from './lib/storage/local-storage';
 import { knownImageHashes } from './modules/images/images.repository';
@@ -17,6 +18,10 @@ import { countUsers } from './modules/users/users.repository';
 
 export interface Runtime {
   ctx: AppContext;
+  /** The outbox's delivery worker; `server.ts` starts it, tests drive it. */
+  delivery: Delivery;
+  /** The in-process SMTP fake; null when a real relay is configured. */
+  smtpFake: SmtpFake | null;
   close(): Promise<void>;
 }
 
@@ -90,17 +95,20 @@ export async function prepareRuntime(
     config,
     db: handle.db,
     logger,
-    mailer,
     caughtMail: smtpFake ? caughtMailStore(path.join(config.dataDir, 'mail')) : null,
     sessionKey: sessionKey(config, logger),
     storage,
     now,
   };
   if (demoLoaded && config.demoImages) await loadDemoHistory(ctx);
+  const delivery = createDelivery({ db: handle.db, mailer, now, logger });
 
   return {
     ctx,
+    delivery,
+    smtpFake,
     async close() {
+      await delivery.stop();
       mailer.close();
       await smtpFake?.close();
       handle.close();

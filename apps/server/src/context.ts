@@ -1,7 +1,6 @@
 import type { Config } from './config/env';
 import type { Db } from './db/client';
 import type { CaughtMailStore } from './lib/email/caught-mail';
-import type { Mailer } from './lib/email/mailer';
 import type { Logger } from './lib/logger';
 import type { ImageStorage } from './lib/storage/local-storage';
 
@@ -10,7 +9,6 @@ export interface AppContext {
   config: Config;
   db: Db;
   logger: Logger;
-  mailer: Mailer;
   /** The outbox of the local SMTP fake; null when a real relay is configured. */
   caughtMail: CaughtMailStore | null;
   sessionKey: Uint8Array;

@@ -8,6 +8,8 @@ async function main(): Promise<void> {
   const logger = createLogger(config.logLevel, config.nodeEnv === 'development');
   const runtime = await prepareRuntime(config, logger);
   const app = createApp(runtime.ctx);
+  // Queued e-mail goes out within a second; a restart resumes where the last process stopped.
+  runtime.delivery.start(1000);
   const server = app.listen(config.port, config.host, () => {
     logger.info(
       { port: config.port, dataDir: config.dataDir },

@@ -26,6 +26,8 @@ export interface TestApp {
   runtime: Runtime;
   dataDir: string;
   clock: TestClock;
+  /** Delivers every message of the outbox that is due by the test clock; returns how many. */
+  deliver(): Promise<number>;
   /** Signs in and returns the session cookie ("name=value"). */
   signIn(email: string, password?: string): Promise<string>;
   close(): Promise<void>;
@@ -46,6 +48,8 @@ export async function startTestApp(
     clock?: TestClock;
     /** Load the demo scenario (DEMO=1); false starts as a real installation does by default. */
     demo?: boolean;
+    /** `auto` (default): the outbox worker delivers every 20 ms; `manual`: only `t.deliver()`. */
+    delivery?: 'auto' | 'manual';
   } = {},
 ): Promise<TestApp> {
   const dataDir = options.dataDir ?? makeDataDir();
@@ -66,11 +70,13 @@ export async function startTestApp(
     clock.now,
   );
   const app = createApp(runtime.ctx, { webDist: null });
+  if (options.delivery !== 'manual') runtime.delivery.start(20);
   return {
     app,
     runtime,
     dataDir,
     clock,
+    deliver: () => runtime.delivery.deliverDue(),
     async signIn(email, password = DEMO_PASSWORD) {
       const response = await request(app).post('/api/v1/auth/login').send({ email, password });
       if (response.status !== 200)

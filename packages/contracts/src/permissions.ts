@@ -33,6 +33,7 @@ export const permissionGrants = {
   'read:organisation': ['admin', 'inspector', 'engineer', 'planner'],
   'manage:organisation': ['admin'],
   'read:outbox': ['admin'],
+  'manage:outbox': ['admin'],
   'read:audit-log': ['admin'],
 } as const satisfies Record<string, readonly Role[]>;
 

@@ -45,6 +45,7 @@ export const idParamsSchema = z.strictObject({ id: z.string().min(1).max(64) });
 
 export const inviteUserResponseSchema = z.object({
   user: userSchema,
-  emailSent: z.boolean(),
+  /** The invitation e-mail in the outbox: queued now, delivered by the worker. */
+  mailId: z.string(),
 });
 export type InviteUserResponse = z.infer<typeof inviteUserResponseSchema>;

@@ -80,6 +80,7 @@ const envSchema = z.object({
   SMTP_USER: z.string().optional(),
   SMTP_PASSWORD: z.string().optional(),
   MAIL_FROM: z.string().default('Emberline <no-reply@emberline.invalid>'),
+  MAIL_MAX_ATTACHMENTS_MB: positiveInt('MAIL_MAX_ATTACHMENTS_MB').max(200).default(25),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
 
@@ -104,6 +105,8 @@ export interface Config {
   jsonLimit: string;
   smtp: { host: string; port: number; secure: boolean; user?: string; password?: string } | null;
   mailFrom: string;
+  /** The most the attachments of one message may weigh, in bytes. */
+  mailMaxAttachmentBytes: number;
   logLevel: string;
 }
 
@@ -152,6 +155,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
         }
       : null,
     mailFrom: e.MAIL_FROM,
+    mailMaxAttachmentBytes: e.MAIL_MAX_ATTACHMENTS_MB * 1024 * 1024,
     logLevel: e.LOG_LEVEL,
   };
 }

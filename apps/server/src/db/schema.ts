@@ -473,3 +473,56 @@ export const rowCoverage = sqliteTable(
   },
   (table) => [primaryKey({ columns: [table.inspectionId, table.rowKey] })],
 );
+
+/**
+ * The durable outbox (DESIGN §5.7): one row a message, written in the transaction of the change
+ * that causes it and delivered by the worker in lib/email. Attachments are BLOBs beside it
+ * (docs/decisions/007-durable-outbox.md).
+ */
+export const outboxMessages = sqliteTable(
+  'outbox_messages',
+  {
+    id: text().primaryKey(),
+    /** What the message is: invitation, password-reset, and what later modules send. */
+    kind: text().notNull(),
+    recipients: text({ mode: 'json' })
+      .$type<{ address: string; state: 'pending' | 'sent' | 'refused'; error: string | null }[]>()
+      .notNull(),
+    subject: text().notNull(),
+    text: text().notNull(),
+    html: text(),
+    recordType: text(),
+    recordId: text(),
+    recordLabel: text(),
+    state: text({ enum: ['queued', 'sending', 'sent', 'failed', 'needs-attention'] }).notNull(),
+    attempts: integer().notNull().default(0),
+    lastError: text(),
+    /** When the worker may take it next; null once sent or waiting for a person. */
+    nextAttemptAt: integer({ mode: 'timestamp_ms' }),
+    /** While `sending`: no other round takes it before this time. */
+    leaseUntil: integer({ mode: 'timestamp_ms' }),
+    sentAt: integer({ mode: 'timestamp_ms' }),
+    createdAt: integer({ mode: 'timestamp_ms' }).notNull(),
+    updatedAt: integer({ mode: 'timestamp_ms' }).notNull(),
+  },
+  (table) => [
+    index('outbox_messages_due_idx').on(table.state, table.nextAttemptAt),
+    index('outbox_messages_record_idx').on(table.recordType, table.recordId),
+    index('outbox_messages_created_idx').on(table.createdAt),
+  ],
+);
+
+export const outboxAttachments = sqliteTable(
+  'outbox_attachments',
+  {
+    id: integer().primaryKey({ autoIncrement: true }),
+    messageId: text()
+      .notNull()
+      .references(() => outboxMessages.id),
+    filename: text().notNull(),
+    contentType: text().notNull(),
+    size: integer().notNull(),
+    content: blob({ mode: 'buffer' }).notNull(),
+  },
+  (table) => [index('outbox_attachments_message_idx').on(table.messageId)],
+);

@@ -27,3 +27,22 @@ export function formatDate(value: string | null): string {
 
 /** A key of the domain (`leading-edge`, `coating-loss`) in words: leading edge, coating loss. */
 export const formatKey = (key: string) => key.replace(/-/g, ' ');
+
+/** A moment as people read it on a shared screen: 2 Dec 2026, 14:05 UTC. */
+export function formatDateTime(value: string | null): string {
+  if (!value) return '—';
+  const at = new Date(value);
+  const day = at.toLocaleDateString('en-GB', {
+    day: 'numeric',
+    month: 'short',
+    year: 'numeric',
+    timeZone: 'UTC',
+  });
+  const time = at.toLocaleTimeString('en-GB', {
+    hour: '2-digit',
+    minute: '2-digit',
+    hour12: false,
+    timeZone: 'UTC',
+  });
+  return `${day}, ${time} UTC`;
+}

@@ -24,13 +24,15 @@ describe('e-mail through the local SMTP fake', () => {
       'Emberline <no-reply@emberline.invalid>',
     );
     const pdf = Buffer.from('%PDF-1.7\n% a tiny stand-in document\n');
-    await mailer.send({
+    const result = await mailer.send({
       to: ['ops@corvid.example', 'records@corvid.example'],
       subject: 'Inspection report ESN-DEMO-0001',
       text: 'The signed report is attached.',
       attachments: [{ filename: 'report.pdf', content: pdf, contentType: 'application/pdf' }],
     });
     mailer.close();
+    expect(result.accepted).toEqual(['ops@corvid.example', 'records@corvid.example']);
+    expect(result.refused).toEqual([]);
 
     const store = caughtMailStore(directory);
     const [summary] = await store.list();

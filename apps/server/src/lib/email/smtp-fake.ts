@@ -32,7 +32,8 @@ async function writeAtomically(file: string, content: string | Buffer): Promise<
 /**
  * A real SMTP server on 127.0.0.1 that keeps every message it receives in `directory`, as the raw
  * `.eml` and a parsed `.json` for the outbox page. It runs by default so that nothing leaves the
- * machine until a real relay is configured.
+ * machine until a real relay is configured. It answers a message only once it is on disk, so a
+ * message it acknowledged is kept.
  */
 export async function startSmtpFake(directory: string, port = 0): Promise<SmtpFake> {
   await fs.mkdir(directory, { recursive: true });
@@ -42,6 +43,20 @@ export async function startSmtpFake(directory: string, port = 0): Promise<SmtpFa
     disabledCommands: ['STARTTLS', 'AUTH'],
     logger: false,
     size: 40 * 1024 * 1024,
+    // Like a real relay, refuse what can never be delivered: the reserved .invalid domain
+    // (RFC 2606). It lets anyone see how the outbox shows a refused address.
+    onRcptTo(address, _session, callback) {
+      if (/\.invalid$/i.test(address.address)) {
+        const refusal = Object.assign(
+          new Error(
+            `${address.address}: mailbox unavailable, the .invalid domain receives no mail`,
+          ),
+          { responseCode: 550 },
+        );
+        return callback(refusal);
+      }
+      callback();
+    },
     onData(stream, _session, callback) {
       const chunks: Buffer[] = [];
       stream.on('data', (chunk: Buffer) => chunks.push(chunk));

@@ -78,9 +78,19 @@ export function authRoutes(ctx: AppContext, auth: AuthService): Router {
       response: passwordResetAcceptedSchema,
       status: 202,
     },
-    async (req, res) => {
-      await auth.requestPasswordReset(res.locals.body.email, requestMeta(req));
+    (req, res) => {
+      const meta = requestMeta(req);
+      const { email } = res.locals.body;
+      // The answer leaves before the address is even looked up, so that it takes the same time
+      // whether or not the address has an account; the link, if any, is queued right after.
       res.status(202).json({ status: 'sent-if-known' });
+      setImmediate(() => {
+        try {
+          auth.requestPasswordReset(email, meta);
+        } catch (error) {
+          req.log.error({ err: error, requestId: meta.requestId }, 'password reset request failed');
+        }
+      });
     },
   );
 

@@ -10,6 +10,7 @@ import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction } from '../../db/client';
 import { AppError } from '../../http/app-error';
 import type { Principal } from '../../http/principal';
+import { queueMail } from '../../lib/email/outbox';
 import { newId } from '../../lib/ids';
 import { appendAudit } from '../audit/audit.repository';
 import {
@@ -209,8 +210,13 @@ export function createAuthService(ctx: AppContext) {
       return openSession({ ...user, passwordHash }, meta, 'auth.sign-in');
     },
 
-    /** Sends a reset link when the address belongs to an active account; says nothing either way. */
-    async requestPasswordReset(email: string, meta: RequestMeta): Promise<void> {
+    /**
+     * Queues a reset link when the address belongs to an active account; says nothing either way.
+     * The route answers before this runs, so the answer does not tell whether the address has
+     * an account; a request for no account is kept in the audit log. The outbox delivers the
+     * e-mail; nothing waits for SMTP.
+     */
+    requestPasswordReset(email: string, meta: RequestMeta): void {
       const now = ctx.now();
       const key = `reset:${email}`;
       if (
@@ -222,13 +228,20 @@ export function createAuthService(ctx: AppContext) {
       recordFailures(db, [key], now);
       const user = findUserByEmail(db, email);
       if (!user || user.disabledAt || !user.passwordHash) {
-        logger.info(
-          { email, ip: meta.ip, requestId: meta.requestId },
-          'password reset for no active account',
+        inTransaction(db, (tx) =>
+          appendAudit(tx, now, {
+            actorUserId: null,
+            action: 'user.password-reset-for-no-account',
+            entityType: 'user',
+            entityId: user?.id ?? null,
+            after: { email },
+            requestId: meta.requestId,
+            ip: meta.ip,
+          }),
         );
         return;
       }
-      const token = inTransaction(db, (tx) => {
+      inTransaction(db, (tx) => {
         const secret = issueUserToken(tx, user.id, 'password-reset', now);
         appendAudit(tx, now, {
           actorUserId: null,
@@ -238,17 +251,13 @@ export function createAuthService(ctx: AppContext) {
           requestId: meta.requestId,
           ip: meta.ip,
         });
-        return secret;
+        const link = `${publicOrigin(config.publicOrigins, config.port)}/reset-password#token=${secret}`;
+        queueMail(ctx, tx, {
+          kind: 'password-reset',
+          ...passwordResetEmail({ to: user.email, name: user.name, link }),
+          record: { type: 'user', id: user.id, label: `Password reset of ${user.name}` },
+        });
       });
-      const link = `${publicOrigin(config.publicOrigins, config.port)}/reset-password#token=${token}`;
-      try {
-        await ctx.mailer.send(passwordResetEmail({ to: user.email, name: user.name, link }));
-      } catch (error) {
-        logger.error(
-          { err: error, userId: user.id, requestId: meta.requestId },
-          'password reset e-mail failed',
-        );
-      }
     },
 
     async confirmPasswordReset(input: PasswordResetConfirm, meta: RequestMeta): Promise<void> {

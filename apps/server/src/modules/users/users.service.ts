@@ -7,9 +7,10 @@ import type {
   User,
 } from '@emberline/contracts/users';
 import type { AppContext, RequestMeta } from '../../context';
-import { inTransaction } from '../../db/client';
+import { inTransaction, type DbOrTx } from '../../db/client';
 import { AppError } from '../../http/app-error';
 import type { Principal } from '../../http/principal';
+import { queueMail } from '../../lib/email/outbox';
 import { newId } from '../../lib/ids';
 import { appendAudit } from '../audit/audit.repository';
 import { invitationEmail } from '../auth/auth-emails';
@@ -60,7 +61,7 @@ function assertRoleFitsOrganisation(
 }
 
 export function createUsersService(ctx: AppContext) {
-  const { db, config, logger } = ctx;
+  const { db, config } = ctx;
 
   function mustFind(id: string): UserWithOrganisation {
     const user = findUserById(db, id);
@@ -68,32 +69,26 @@ export function createUsersService(ctx: AppContext) {
     return user;
   }
 
-  async function sendInvitation(
-    user: UserWithOrganisation,
+  /** Queues the invitation e-mail with the link, in the transaction that issued its token. */
+  function queueInvitation(
+    tx: DbOrTx,
+    user: { id: string; email: string; name: string; role: Role; organisationName: string },
     invitedBy: string,
     token: string,
-    meta: RequestMeta,
-  ): Promise<boolean> {
+  ): string {
     const link = `${publicOrigin(config.publicOrigins, config.port)}/accept-invitation#token=${token}`;
-    try {
-      await ctx.mailer.send(
-        invitationEmail({
-          to: user.email,
-          name: user.name,
-          role: user.role,
-          organisationName: user.organisationName,
-          invitedBy,
-          link,
-        }),
-      );
-      return true;
-    } catch (error) {
-      logger.error(
-        { err: error, userId: user.id, requestId: meta.requestId },
-        'invitation e-mail failed',
-      );
-      return false;
-    }
+    return queueMail(ctx, tx, {
+      kind: 'invitation',
+      ...invitationEmail({
+        to: user.email,
+        name: user.name,
+        role: user.role,
+        organisationName: user.organisationName,
+        invitedBy,
+        link,
+      }),
+      record: { type: 'user', id: user.id, label: `Invitation of ${user.name}` },
+    });
   }
 
   return {
@@ -101,15 +96,14 @@ export function createUsersService(ctx: AppContext) {
       return listUsersWithSessionCounts(db, ctx.now()).map(toUser);
     },
 
-    async invite(
-      principal: Principal,
-      input: InviteUserInput,
-      meta: RequestMeta,
-    ): Promise<InviteUserResponse> {
-      assertRoleFitsOrganisation(input.role, findOrganisation(db, input.organisationId));
+    invite(principal: Principal, input: InviteUserInput, meta: RequestMeta): InviteUserResponse {
+      const organisation = assertRoleFitsOrganisation(
+        input.role,
+        findOrganisation(db, input.organisationId),
+      );
       const now = ctx.now();
       const id = newId();
-      const token = inTransaction(db, (tx) => {
+      const mailId = inTransaction(db, (tx) => {
         if (findUserByEmail(tx, input.email)) {
           throw AppError.conflict('That e-mail address already has an account', {
             fields: { email: ['That e-mail address already has an account'] },
@@ -139,23 +133,22 @@ export function createUsersService(ctx: AppContext) {
           requestId: meta.requestId,
           ip: meta.ip,
         });
-        return secret;
+        return queueInvitation(
+          tx,
+          { ...input, id, organisationName: organisation.name },
+          principal.user.name,
+          secret,
+        );
       });
-      const user = mustFind(id);
-      const emailSent = await sendInvitation(user, principal.user.name, token, meta);
-      return { user: toUser(user), emailSent };
+      return { user: toUser(mustFind(id)), mailId };
     },
 
-    async resendInvitation(
-      principal: Principal,
-      id: string,
-      meta: RequestMeta,
-    ): Promise<InviteUserResponse> {
+    resendInvitation(principal: Principal, id: string, meta: RequestMeta): InviteUserResponse {
       const user = mustFind(id);
       if (userStatus(user) !== 'invited')
         throw AppError.conflict('This user has already accepted the invitation or is disabled');
       const now = ctx.now();
-      const token = inTransaction(db, (tx) => {
+      const mailId = inTransaction(db, (tx) => {
         const secret = issueUserToken(tx, id, 'invitation', now);
         appendAudit(tx, now, {
           actorUserId: principal.user.id,
@@ -165,10 +158,9 @@ export function createUsersService(ctx: AppContext) {
           requestId: meta.requestId,
           ip: meta.ip,
         });
-        return secret;
+        return queueInvitation(tx, user, principal.user.name, secret);
       });
-      const emailSent = await sendInvitation(user, principal.user.name, token, meta);
-      return { user: toUser(user), emailSent };
+      return { user: toUser(user), mailId };
     },
 
     update(principal: Principal, id: string, input: UpdateUserInput, meta: RequestMeta): User {

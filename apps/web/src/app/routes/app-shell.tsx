@@ -7,6 +7,7 @@ import { UploadPanel } from '../../components/layout/upload-panel';
 import { navigation } from '../../config/navigation';
 import { useLogout } from '../../features/auth/api/auth';
 import { useSignedInUser } from '../../features/auth/hooks/use-signed-in-user';
+import { OutboxAttentionBanner } from '../../features/outbox/components/attention-banner';
 
 export function AppShell() {
   const user = useSignedInUser();
@@ -78,6 +79,7 @@ export function AppShell() {
           </div>
         </div>
       </header>
+      <OutboxAttentionBanner enabled={can(user.role, 'read:outbox')} />
       <main id="main" className="mx-auto w-full max-w-7xl flex-1 px-6 py-8">
         <Outlet />
       </main>

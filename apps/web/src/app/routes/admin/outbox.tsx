@@ -1,13 +1,16 @@
-import { OutboxView } from '../../../features/outbox/components/outbox-view';
+import { CaughtMail } from '../../../features/outbox/components/caught-mail';
+import { OutboxMessages } from '../../../features/outbox/components/outbox-messages';
 
 export function AdminOutboxRoute() {
   return (
-    <>
-      <p className="mb-4 text-sm text-soot-600">
-        Until a real SMTP relay is configured, Emberline keeps every message it sends here, and
-        nothing leaves this machine.
+    <div className="flex flex-col gap-8">
+      <p className="text-sm text-soot-600">
+        Every e-mail is kept here from the moment it is written until the mail server takes it; one
+        that fails is tried again after 1, 2, 4, 8, 16 and 32 minutes, then waits for you.
+        Single-use links are withheld: only their recipient sees them.
       </p>
-      <OutboxView />
-    </>
+      <OutboxMessages />
+      <CaughtMail />
+    </div>
   );
 }

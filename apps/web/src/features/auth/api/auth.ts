@@ -46,7 +46,13 @@ export function useLogin() {
 export function useLogout() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: () => api.post<void>('/auth/logout'),
+    mutationFn: async () => {
+      // Reads the page started (a banner's count, a list) finish first: ended mid-way by the
+      // sign-out, they would be refused and shown as errors for a moment.
+      for (let waited = 0; queryClient.isFetching() > 0 && waited < 2_000; waited += 25)
+        await new Promise((resolve) => setTimeout(resolve, 25));
+      await api.post<void>('/auth/logout');
+    },
     onSettled: () => {
       queryClient.clear();
       queryClient.setQueryData(authKeys.me(), null);

@@ -26,24 +26,17 @@ export function InviteUserForm({ organisations }: { organisations: Organisation[
   const onSubmit = form.handleSubmit((values) => {
     setResult(null);
     invite.mutate(values, {
-      onSuccess: ({ user, emailSent }) => {
+      onSuccess: ({ user }) => {
         form.reset({
           email: '',
           name: '',
           role: values.role,
           organisationId: values.organisationId,
         });
-        setResult(
-          emailSent
-            ? {
-                tone: 'success',
-                text: `Invitation sent to ${user.email}. The link works once and expires in 7 days.`,
-              }
-            : {
-                tone: 'caution',
-                text: `${user.email} was added, but the e-mail could not be sent. Use “Resend invitation” once mail works again.`,
-              },
-        );
+        setResult({
+          tone: 'success',
+          text: `Invitation to ${user.email} is on its way; the Outbox shows when the mail server took it. The link works once and expires in 7 days.`,
+        });
       },
       onError: (error) => {
         const message = applyServerErrors(form, error);
