@@ -34,6 +34,7 @@ const architecture = {
       },
       { type: 'server-db', pattern: 'apps/server/src/db' },
       { type: 'server-images', pattern: 'apps/server/src/lib/images' },
+      { type: 'server-email', pattern: 'apps/server/src/lib/email' },
       { type: 'server-module', pattern: 'apps/server/src/modules/*', capture: ['module'] },
       { type: 'server', pattern: 'apps/server/src' },
       { type: 'package', pattern: 'packages/*', capture: ['package'] },
@@ -84,6 +85,28 @@ const architecture = {
             from: { element: { types: { noneOf: ['server-images'] } } },
             disallow: { to: { module: { source: 'sharp' } } },
             message: 'Only lib/images calls sharp: add what you need there',
+          },
+          {
+            from: { element: { types: { noneOf: ['server-email'] } } },
+            disallow: { to: { module: { source: 'nodemailer' } } },
+            message:
+              'Only lib/email talks SMTP: queue a message with queueMail in the transaction of the change',
+          },
+          {
+            from: { element: { types: { noneOf: ['server-email'] } } },
+            disallow: {
+              to: {
+                element: { type: 'server-email' },
+                file: { path: '**/lib/email/{mailer,delivery}.ts' },
+              },
+            },
+            message:
+              'Modules never send directly: queue a message with queueMail (lib/email/outbox.ts); the delivery worker sends it',
+          },
+          {
+            // The runtime is where the mailer and its worker are made and started.
+            from: { file: { path: 'apps/server/src/bootstrap.ts' } },
+            allow: { to: { element: { type: 'server-email' } } },
           },
           {
             from: { element: { type: 'server-module' } },

@@ -6,6 +6,9 @@ import { AppError } from '../../http/app-error';
 import { newId } from '../ids';
 import { insertOutboxMessage } from './outbox.repository';
 
+/** What a message says and to whom, as a module's e-mail template writes it. */
+export type MailContent = Pick<QueuedMail, 'to' | 'subject' | 'text' | 'html' | 'attachments'>;
+
 /** A message as a module hands it to the outbox. */
 export interface QueuedMail {
   /** What the message is: invitation, password-reset, report, reminder, alert. */

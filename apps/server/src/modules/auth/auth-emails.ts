@@ -1,5 +1,5 @@
 import { roleLabels, type Role } from '@emberline/contracts/roles';
-import type { OutgoingMail } from '../../lib/email/mailer';
+import type { MailContent } from '../../lib/email/outbox';
 
 function escapeHtml(value: string): string {
   return value.replace(/[&<>"']/g, (char) => `&#${char.charCodeAt(0)};`);
@@ -17,7 +17,7 @@ export function invitationEmail(input: {
   organisationName: string;
   invitedBy: string;
   link: string;
-}): OutgoingMail {
+}): MailContent {
   const lines = [
     `Hello ${input.name},`,
     `${input.invitedBy} has invited you to Emberline as ${roleLabels[input.role].toLowerCase()} for ${input.organisationName}.`,
@@ -31,11 +31,7 @@ export function invitationEmail(input: {
   };
 }
 
-export function passwordResetEmail(input: {
-  to: string;
-  name: string;
-  link: string;
-}): OutgoingMail {
+export function passwordResetEmail(input: { to: string; name: string; link: string }): MailContent {
   const lines = [
     `Hello ${input.name},`,
     'Someone asked to reset the password of your Emberline account. Open the link below to choose a new one. It works once and expires in 1 hour.',
