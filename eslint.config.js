@@ -192,6 +192,24 @@ export default tseslint.config(
     rules: { 'no-restricted-syntax': ['error', ...accessChecks] },
   },
   {
+    // Shared web code knows no feature's address: a feature builds its URLs through apiUrl in its
+    // own api/ file and hands them over (the upload queue is given each file's URL).
+    files: ['apps/web/src/{lib,components,config}/**/*.{ts,tsx}'],
+    ignores: ['apps/web/src/lib/api-client.ts'],
+    rules: {
+      // The access checks again: a later block's rule replaces an earlier one's, it does not add.
+      'no-restricted-syntax': [
+        'error',
+        ...accessChecks,
+        {
+          selector: 'Literal[value=/^\\/api\\//], TemplateElement[value.raw=/^\\/api\\//]',
+          message:
+            'Shared code holds no API address: build it in the feature’s api/ file (apiUrl) and pass it in',
+        },
+      ],
+    },
+  },
+  {
     // Pure domain packages: no I/O, no framework.
     files: ['packages/**/*.ts'],
     rules: {
