@@ -1,0 +1,98 @@
+import { describe, expect, it } from 'vitest';
+import { canonicalJson, canonicalSha256 } from '../../apps/server/src/lib/canonical';
+import {
+  dispositionContent,
+  GENESIS_SHA256,
+  signatureHeader,
+  type DispositionSubject,
+} from '../../packages/domain/src/signature-content';
+
+// A hand-made, invented disposition: every value below is made up for this check.
+const subject: DispositionSubject = {
+  finding: {
+    id: 'finding-1',
+    number: 3,
+    inspectionId: 'inspection-1',
+    imageSha256: 'a'.repeat(64),
+    shape: {
+      kind: 'polyline',
+      points: [
+        [10, 20],
+        [30, 40],
+      ],
+    },
+    calibration: { kind: 'reference', p1: [0, 0], p2: [100, 0], lengthMm: 10 },
+    row: 'hpt1-blade',
+    position: 7,
+    zone: 'leading-edge',
+    damage: 'crack',
+    method: 'image',
+    lengthMm: 2.5,
+    areaMm2: null,
+    perimeterMm: null,
+    maxExtentMm: null,
+    widthMm: null,
+    depthMm: null,
+    count: null,
+    uncertaintyMm: 0.125,
+    uncertaintyMm2: null,
+  },
+  evaluation: {
+    category: 'repeat-inspection',
+    measuredCategory: 'repeat-inspection',
+    indeterminate: false,
+    ruleId: 'R1',
+    reasons: ['within-repeat'],
+    repeatInterval: { cycles: 400, hours: null, days: null },
+    beyondAction: null,
+  },
+  decision: { kind: 'repeat-inspection', repeatInterval: { cycles: 400, hours: null, days: null } },
+  rationale: 'Within the repeat band.',
+  concession: false,
+  concessionRef: null,
+  supersedesId: null,
+  supersedeReason: null,
+  limitSet: { id: 'limit-set-1', revision: 'X-1', contentSha256: 'b'.repeat(64) },
+};
+
+describe('the signed content of a disposition (DESIGN §5.5)', () => {
+  it('is the canonical text below, whose SHA-256 an independent tool gives', () => {
+    const content = dispositionContent({
+      ...subject,
+      // A field the builder does not name never reaches the signed content.
+      finding: { ...subject.finding, notes: 'not signed' } as DispositionSubject['finding'],
+    });
+    const text = canonicalJson(content);
+    expect(text).toBe(EXPECTED_TEXT);
+    // Computed with GNU coreutils: printf '%s' "$EXPECTED_TEXT" | sha256sum
+    expect(canonicalSha256(content)).toBe(EXPECTED_SHA256);
+  });
+
+  it('chains its header: the first record follows 64 zeros', () => {
+    const header = signatureHeader({
+      seq: 1,
+      kind: 'disposition',
+      subjectId: 'disposition-1',
+      signer: {
+        id: 'user-1',
+        name: 'Invented Engineer',
+        role: 'engineer',
+        authorisationRef: 'AUTH-1',
+      },
+      signedAt: '2026-12-03T10:00:00.000Z',
+      meaning: 'I decide.',
+      contentSha256: EXPECTED_SHA256,
+      prevSha256: GENESIS_SHA256,
+    });
+    expect(canonicalJson(header)).toBe(EXPECTED_HEADER);
+    // Computed with GNU coreutils: printf '%s' "$EXPECTED_HEADER" | sha256sum
+    expect(canonicalSha256(header)).toBe(EXPECTED_HEADER_SHA256);
+  });
+});
+
+const EXPECTED_TEXT =
+  '{"concession":false,"concessionRef":null,"decision":{"kind":"repeat-inspection","repeatInterval":{"cycles":400,"days":null,"hours":null}},"evaluation":{"beyondAction":null,"category":"repeat-inspection","indeterminate":false,"measuredCategory":"repeat-inspection","reasons":["within-repeat"],"repeatInterval":{"cycles":400,"days":null,"hours":null},"ruleId":"R1"},"finding":{"areaMm2":null,"calibration":{"kind":"reference","lengthMm":10,"p1":[0,0],"p2":[100,0]},"count":null,"damage":"crack","depthMm":null,"id":"finding-1","imageSha256":"aaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaa","inspectionId":"inspection-1","lengthMm":2.5,"maxExtentMm":null,"method":"image","number":3,"perimeterMm":null,"position":7,"row":"hpt1-blade","shape":{"kind":"polyline","points":[[10,20],[30,40]]},"uncertaintyMm":0.125,"uncertaintyMm2":null,"widthMm":null,"zone":"leading-edge"},"limitSet":{"contentSha256":"bbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbb","id":"limit-set-1","revision":"X-1"},"rationale":"Within the repeat band.","supersedeReason":null,"supersedesId":null}';
+const EXPECTED_SHA256 = '96ef82155dac51dd04c5fea3d118c60c496b2743e7c4f194b4e131798723de43';
+const EXPECTED_HEADER =
+  '{"contentSha256":"96ef82155dac51dd04c5fea3d118c60c496b2743e7c4f194b4e131798723de43","kind":"disposition","meaning":"I decide.","prevSha256":"0000000000000000000000000000000000000000000000000000000000000000","seq":1,"signedAt":"2026-12-03T10:00:00.000Z","signer":{"authorisationRef":"AUTH-1","id":"user-1","name":"Invented Engineer","role":"engineer"},"subjectId":"disposition-1"}';
+const EXPECTED_HEADER_SHA256 = 'b00139798744168b235f87713832e3bcbac23aba1f6c73ff4c315066988269a2';
