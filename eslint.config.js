@@ -222,7 +222,8 @@ export default tseslint.config(
     },
   },
   {
-    files: ['scripts/**', 'tests/**'],
+    // Scripts, tests and the command-line tools speak on the console.
+    files: ['scripts/**', 'tests/**', 'apps/server/src/cli/**'],
     rules: { 'no-console': 'off' },
   },
 );

@@ -24,6 +24,7 @@ import { healthRoutes } from './modules/health/health.routes';
 import { installationRoutes } from './modules/installation/installation.routes';
 import { openApiRoutes } from './modules/openapi/openapi.routes';
 import { organisationsRoutes } from './modules/organisations/organisations.routes';
+import { recordsRoutes } from './modules/records/records.routes';
 import { outboxRoutes } from './modules/outbox/outbox.routes';
 import { usersRoutes } from './modules/users/users.routes';
 import { utilizationRoutes } from './modules/utilization/utilization.routes';
@@ -53,6 +54,7 @@ export function createApiRouter(ctx: AppContext): Router {
   api.use(limitSetsRoutes(ctx));
   api.use(outboxRoutes(ctx));
   api.use(auditRoutes(ctx));
+  api.use(recordsRoutes(ctx));
   api.use(calculationsRoutes());
   api.use(openApiRoutes());
   return api;

@@ -12,6 +12,7 @@ import { createDelivery, type Delivery } from './lib/email/delivery';
 import { createMailer } from './lib/email/mailer';
 import { startSmtpFake, type SmtpFake } from './lib/email/smtp-fake';
 import type { Logger } from './lib/logger';
+import { loadRecordsKey } from './lib/records/records-key';
 import { createLocalStorage } from './lib/storage/local-storage';
 import { knownImageHashes } from './modules/images/images.repository';
 import { countUsers } from './modules/users/users.repository';
@@ -97,6 +98,7 @@ export async function prepareRuntime(
     logger,
     caughtMail: smtpFake ? caughtMailStore(path.join(config.dataDir, 'mail')) : null,
     sessionKey: sessionKey(config, logger),
+    recordsKey: loadRecordsKey(config, logger),
     storage,
     now,
   };

@@ -1,6 +1,7 @@
 import type { Config } from './config/env';
 import type { Db } from './db/client';
 import type { CaughtMailStore } from './lib/email/caught-mail';
+import type { RecordsKey } from './lib/records/records-key';
 import type { Logger } from './lib/logger';
 import type { ImageStorage } from './lib/storage/local-storage';
 
@@ -12,6 +13,8 @@ export interface AppContext {
   /** The outbox of the local SMTP fake; null when a real relay is configured. */
   caughtMail: CaughtMailStore | null;
   sessionKey: Uint8Array;
+  /** Seals the signature chain (DESIGN §5.5). */
+  recordsKey: RecordsKey;
   storage: ImageStorage;
   now: () => Date;
 }

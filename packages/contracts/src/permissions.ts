@@ -35,6 +35,8 @@ export const permissionGrants = {
   'read:outbox': ['admin'],
   'manage:outbox': ['admin'],
   'read:audit-log': ['admin'],
+  // The records check: the signature chain walked and every seal recomputed.
+  'verify:records': ['admin', 'engineer'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Permission = keyof typeof permissionGrants;

@@ -208,6 +208,23 @@ export function outcomeContent(subject: OutcomeSubject) {
   };
 }
 
+export interface PublicationSubject {
+  limitSetId: string;
+  modelId: string;
+  revision: string;
+  /** The hash of the revision's particulars and rules as published. */
+  contentSha256: string;
+}
+
+export function publicationContent(subject: PublicationSubject) {
+  return {
+    limitSetId: subject.limitSetId,
+    modelId: subject.modelId,
+    revision: subject.revision,
+    contentSha256: subject.contentSha256,
+  };
+}
+
 export interface ReleaseSubject {
   inspectionId: string;
   outcomeSignatureSha256: string;

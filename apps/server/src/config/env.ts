@@ -80,6 +80,8 @@ const envSchema = z.object({
   SMTP_USER: z.string().optional(),
   SMTP_PASSWORD: z.string().optional(),
   MAIL_FROM: z.string().default('Emberline <no-reply@emberline.invalid>'),
+  // The key that seals the signature chain; keep it outside the data directory in production.
+  RECORDS_KEY_FILE: z.string().min(1).optional(),
   MAIL_MAX_ATTACHMENTS_MB: positiveInt('MAIL_MAX_ATTACHMENTS_MB').max(200).default(25),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
@@ -105,6 +107,8 @@ export interface Config {
   jsonLimit: string;
   smtp: { host: string; port: number; secure: boolean; user?: string; password?: string } | null;
   mailFrom: string;
+  /** Where the records key is; null: one made inside the data directory (tampering undetectable). */
+  recordsKeyFile: string | null;
   /** The most the attachments of one message may weigh, in bytes. */
   mailMaxAttachmentBytes: number;
   logLevel: string;
@@ -156,6 +160,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       : null,
     mailFrom: e.MAIL_FROM,
     mailMaxAttachmentBytes: e.MAIL_MAX_ATTACHMENTS_MB * 1024 * 1024,
+    recordsKeyFile: e.RECORDS_KEY_FILE ? path.resolve(e.RECORDS_KEY_FILE) : null,
     logLevel: e.LOG_LEVEL,
   };
 }

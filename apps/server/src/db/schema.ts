@@ -526,3 +526,32 @@ export const outboxAttachments = sqliteTable(
   },
   (table) => [index('outbox_attachments_message_idx').on(table.messageId)],
 );
+
+/**
+ * The append-only record of signatures (DESIGN §5.5): each row chained to the one before by
+ * `prevSha256`, its own `sha256` over its header, and a `mac` under the records key. SQLite
+ * refuses UPDATE and DELETE (db/triggers.ts).
+ */
+export const signatures = sqliteTable(
+  'signatures',
+  {
+    /** 1, 2, 3, … without gaps: a missing number is a removed record. */
+    seq: integer().primaryKey(),
+    id: text().notNull().unique(),
+    kind: text({
+      enum: ['disposition', 'withdrawal', 'outcome', 'release', 'limit-check', 'publication'],
+    }).notNull(),
+    subjectId: text().notNull(),
+    signer: text({ mode: 'json' })
+      .$type<{ id: string; name: string; role: string; authorisationRef: string | null }>()
+      .notNull(),
+    signedAt: text().notNull(),
+    meaning: text().notNull(),
+    content: text({ mode: 'json' }).notNull(),
+    contentSha256: text().notNull(),
+    prevSha256: text().notNull(),
+    sha256: text().notNull().unique(),
+    mac: text().notNull(),
+  },
+  (table) => [index('signatures_subject_idx').on(table.kind, table.subjectId)],
+);

@@ -48,6 +48,8 @@ export const triggers: Record<string, string> = {
   limit_rules_frozen_delete: `BEFORE DELETE ON limit_rules
     WHEN (SELECT status FROM limit_sets WHERE id = OLD.limit_set_id) <> 'draft'
     BEGIN ${frozen}; END`,
+  signatures_no_update: `BEFORE UPDATE ON signatures BEGIN SELECT RAISE(ABORT, 'signatures are append-only'); END`,
+  signatures_no_delete: `BEFORE DELETE ON signatures BEGIN SELECT RAISE(ABORT, 'signatures are append-only'); END`,
   findings_no_delete: `BEFORE DELETE ON findings
     BEGIN SELECT RAISE(ABORT, 'findings are voided with a reason, never deleted'); END`,
 };

@@ -47,6 +47,7 @@ export const routePolicy = {
   'GET /outbox/caught': 'read:outbox',
   'GET /outbox/caught/:id': 'read:outbox',
   'GET /audit-log': 'read:audit-log',
+  'GET /records/verification': 'verify:records',
   'GET /inspections': 'read:inspection',
   'POST /inspections': 'create:inspection',
   'GET /inspections/:id': 'read:inspection',

@@ -7,10 +7,12 @@ import type {
   LimitSetSummary,
 } from '@emberline/contracts/limit-sets';
 import type { Rule } from '@emberline/contracts/limits';
+import { publicationContent } from '@emberline/domain/signature-content';
 import { ruleProblems, validateRuleZones, validateRules } from '@emberline/domain/rules';
 import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction } from '../../db/client';
 import { AppError } from '../../http/app-error';
+import { appendSignature } from '../records/records.service';
 import type { Principal } from '../../http/principal';
 import { canonicalSha256 } from '../../lib/canonical';
 import { newId } from '../../lib/ids';
@@ -349,13 +351,34 @@ export function createLimitSetsService(ctx: AppContext) {
       const reopened = openInspectionIds(db, row.modelId);
       inTransaction(db, (tx) => {
         publishLimitSet(tx, id, row.modelId, { at: now, by: principal.user.id, contentSha256 });
+        const signature = appendSignature(ctx, tx, {
+          kind: 'publication',
+          subjectId: id,
+          signer: {
+            id: principal.user.id,
+            name: principal.user.name,
+            role: principal.user.role,
+            authorisationRef: null,
+          },
+          content: publicationContent({
+            limitSetId: id,
+            modelId: row.modelId,
+            revision: row.revision,
+            contentSha256,
+          }),
+        });
         for (const inspectionId of reopened) evaluateInspection(tx, inspectionId, now);
         appendAudit(tx, now, {
           actorUserId: principal.user.id,
           action: 'limit-set.published',
           entityType: 'limit-set',
           entityId: id,
-          after: { revision: row.revision, contentSha256, reevaluatedInspections: reopened.length },
+          after: {
+            revision: row.revision,
+            contentSha256,
+            signatureSha256: signature.sha256,
+            reevaluatedInspections: reopened.length,
+          },
           requestId: meta.requestId,
           ip: meta.ip,
         });

@@ -1,0 +1,33 @@
+// Walks the signature chain of an installation and names every record that does not check out.
+// Exits 1 on any problem, so that a scheduled run can raise the alarm. Usage: pnpm verify-records
+import path from 'node:path';
+import { ConfigError, loadConfig } from '../config/env';
+import { openDatabase } from '../db/client';
+import { runMigrations } from '../db/migrate';
+import { createLogger } from '../lib/logger';
+import { loadRecordsKey } from '../lib/records/records-key';
+import { createRecordsService } from '../modules/records/records.service';
+
+try {
+  const config = loadConfig();
+  const handle = openDatabase(path.join(config.dataDir, 'emberline.sqlite'));
+  runMigrations(handle.db);
+  const recordsKey = loadRecordsKey(config, createLogger('error', false));
+  const result = createRecordsService({ db: handle.db, recordsKey }).verify();
+  handle.close();
+  console.log(
+    `Checked ${result.checked.signatures} signatures in ${config.dataDir}; chain head ${
+      result.head ? `${result.head.seq} ${result.head.sha256}` : 'none (no signature yet)'
+    }.`,
+  );
+  if (result.keyInsideDataDir)
+    console.log(
+      'Warning: the records key is inside the data directory, so whoever can write there could forge records undetected. Set RECORDS_KEY_FILE.',
+    );
+  for (const problem of result.problems) console.log(`PROBLEM ${problem.message}`);
+  console.log(result.ok ? 'Every record checks out.' : `${result.problems.length} problems found.`);
+  process.exit(result.ok ? 0 : 1);
+} catch (error) {
+  console.error(error instanceof ConfigError || error instanceof Error ? error.message : error);
+  process.exit(2);
+}

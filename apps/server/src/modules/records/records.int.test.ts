@@ -1,0 +1,194 @@
+import { spawnSync } from 'node:child_process';
+import request from 'supertest';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { canonicalSha256 } from '../../lib/canonical';
+import { rawConnection, inTransaction } from '../../db/client';
+import { signatureHeader } from '@emberline/domain/signature-content';
+import { demoAccounts, DEMO_PASSWORD, startTestApp, type TestApp } from '../../../test/test-app';
+import { DEMO_DRAFT_LIMIT_SET_ID } from '../../demo/demo-limits';
+import { appendSignature } from './records.service';
+import { macOf } from './signature-chain';
+
+let t: TestApp;
+beforeEach(async () => {
+  t = await startTestApp({ delivery: 'manual' });
+});
+afterEach(() => t.close());
+
+const signer = {
+  id: 'user-engineer',
+  name: 'Invented Signer',
+  role: 'engineer',
+  authorisationRef: null,
+};
+
+/** Three signatures of invented content, appended as the services append them. */
+function signThree() {
+  const { ctx } = t.runtime;
+  return [1, 2, 3].map((n) =>
+    inTransaction(ctx.db, (tx) =>
+      appendSignature(ctx, tx, {
+        kind: 'limit-check',
+        subjectId: `subject-${n}`,
+        signer,
+        content: { checked: n, note: `invented content ${n}` },
+      }),
+    ),
+  );
+}
+
+async function verification() {
+  const engineer = await t.signIn(demoAccounts.engineer);
+  const response = await request(t.app).get('/api/v1/records/verification').set('Cookie', engineer);
+  expect(response.status).toBe(200);
+  return response.body as {
+    ok: boolean;
+    checked: { signatures: number };
+    head: { seq: number; sha256: string } | null;
+    problems: { kind: string; id: string; message: string }[];
+  };
+}
+
+/** Tampering as someone with the database file would: triggers dropped first. */
+function tamper(sql: string, ...params: unknown[]) {
+  const sqlite = rawConnection(t.runtime.ctx.db);
+  sqlite.exec(
+    'DROP TRIGGER IF EXISTS signatures_no_update; DROP TRIGGER IF EXISTS signatures_no_delete;',
+  );
+  sqlite.prepare(sql).run(...params);
+}
+
+describe('the signature chain', () => {
+  it('signs a publication into the chain, and the records check finds it whole', async () => {
+    const engineer = await t.signIn(demoAccounts.engineer);
+    const published = await request(t.app)
+      .post(`/api/v1/limit-sets/${DEMO_DRAFT_LIMIT_SET_ID}/publication`)
+      .set('Cookie', engineer)
+      .send({ password: DEMO_PASSWORD });
+    expect(published.status).toBe(200);
+    const row = rawConnection(t.runtime.ctx.db)
+      .prepare("select * from signatures where kind = 'publication'")
+      .get() as { seq: number; subject_id: string; content: string; prev_sha256: string };
+    expect(row).toMatchObject({
+      seq: 1,
+      subject_id: DEMO_DRAFT_LIMIT_SET_ID,
+      prev_sha256: '0'.repeat(64),
+    });
+    expect(JSON.parse(row.content)).toMatchObject({
+      revision: 'D-2',
+      limitSetId: DEMO_DRAFT_LIMIT_SET_ID,
+    });
+    signThree();
+    const result = await verification();
+    expect(result).toMatchObject({ ok: true, checked: { signatures: 4 }, problems: [] });
+    expect(result.head?.seq).toBe(4);
+  });
+
+  it('has SQLite refuse to change or remove a signature', () => {
+    signThree();
+    const sqlite = rawConnection(t.runtime.ctx.db);
+    expect(() => sqlite.prepare("update signatures set meaning = 'x' where seq = 2").run()).toThrow(
+      /append-only/,
+    );
+    expect(() => sqlite.prepare('delete from signatures where seq = 3').run()).toThrow(
+      /append-only/,
+    );
+  });
+
+  it('names a byte changed in what a signature covers, after the trigger was dropped', async () => {
+    const [, second] = signThree();
+    tamper(
+      "update signatures set content = replace(content, 'invented', 'Invented') where seq = 2",
+    );
+    const result = await verification();
+    expect(result.ok).toBe(false);
+    expect(result.problems).toEqual([
+      {
+        kind: 'signature',
+        id: second!.id,
+        message: expect.stringMatching(/^Signature 2 \(limit-check\): what it covers was changed/),
+      },
+    ]);
+  });
+
+  it('names a record removed from the middle as a gap', async () => {
+    signThree();
+    tamper('delete from signatures where seq = 2');
+    const result = await verification();
+    expect(result.problems.map((problem) => problem.message)).toEqual([
+      expect.stringMatching(/^Signature 3 .*records 2 to 2 are missing/),
+      expect.stringMatching(/^Signature 3 .*does not follow the record before it/),
+    ]);
+  });
+
+  it('shows a cut-off tail through the chain head printed before', async () => {
+    signThree();
+    const before = (await verification()).head;
+    tamper('delete from signatures where seq = 3');
+    const after = await verification();
+    // The rest still checks out: only the head printed elsewhere (on a report) tells.
+    expect(after.ok).toBe(true);
+    expect(after.head).not.toEqual(before);
+    expect(after.head?.seq).toBe(2);
+  });
+
+  it('names a record recomputed without the records key as forged', async () => {
+    const [, second] = signThree();
+    // Whoever rewrites a record can recompute every hash, but not the seal without the key.
+    const sqlite = rawConnection(t.runtime.ctx.db);
+    const row = sqlite.prepare('select * from signatures where seq = 2').get() as Record<
+      string,
+      string
+    >;
+    const content = { checked: 2, note: 'rewritten' };
+    const header = signatureHeader({
+      seq: 2,
+      kind: 'limit-check',
+      subjectId: row.subject_id!,
+      signer,
+      signedAt: row.signed_at!,
+      meaning: row.meaning!,
+      contentSha256: canonicalSha256(content),
+      prevSha256: row.prev_sha256!,
+    });
+    const sha256 = canonicalSha256(header);
+    tamper(
+      'update signatures set content = ?, content_sha256 = ?, sha256 = ?, mac = ? where seq = 2',
+      JSON.stringify(content),
+      header.contentSha256,
+      sha256,
+      macOf(Buffer.from('a key that is not the records key'), sha256),
+    );
+    const result = await verification();
+    expect(result.problems.map((problem) => [problem.id, problem.message])).toEqual([
+      [second!.id, expect.stringMatching(/seal was not made with the records key/)],
+      [
+        expect.any(String),
+        expect.stringMatching(/^Signature 3 .*does not follow the record before it/),
+      ],
+    ]);
+  });
+
+  it('has `pnpm verify-records` exit 0 on a whole chain and 1 naming a broken record', () => {
+    signThree();
+    const run = () =>
+      spawnSync(process.execPath, ['--import', 'tsx', 'apps/server/src/cli/verify-records.ts'], {
+        env: { ...process.env, DATA_DIR: t.dataDir },
+        encoding: 'utf8',
+      });
+    const whole = run();
+    expect(whole.stdout).toContain('Checked 3 signatures');
+    expect(whole.status).toBe(0);
+    tamper("update signatures set meaning = 'I agree to nothing.' where seq = 1");
+    const broken = run();
+    expect(broken.stdout).toMatch(/PROBLEM Signature 1 \(limit-check\): its signer, time, meaning/);
+    expect(broken.status).toBe(1);
+  }, 30_000);
+
+  it('is for engineers and admins: a planner is refused', async () => {
+    const planner = await t.signIn(demoAccounts.planner);
+    expect(
+      (await request(t.app).get('/api/v1/records/verification').set('Cookie', planner)).status,
+    ).toBe(403);
+  });
+});

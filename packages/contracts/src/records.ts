@@ -1,0 +1,15 @@
+import { z } from 'zod';
+
+/** The records check (DESIGN §5.5): every signature walked, hashed and its seal recomputed. */
+export const recordsVerificationSchema = z.object({
+  ok: z.boolean(),
+  checked: z.object({ signatures: z.number().int() }),
+  /** The last record of the chain, as reports print it, so that a cut-off tail shows. */
+  head: z.object({ seq: z.number().int(), sha256: z.string() }).nullable(),
+  /** The records key was made inside the data directory: tampering there cannot be detected. */
+  keyInsideDataDir: z.boolean(),
+  problems: z.array(
+    z.object({ kind: z.enum(['signature', 'audit']), id: z.string(), message: z.string() }),
+  ),
+});
+export type RecordsVerification = z.infer<typeof recordsVerificationSchema>;
