@@ -81,6 +81,18 @@ export default defineConfig({
       {
         extends: true,
         test: {
+          // Timings compared with each other, run last and alone so that the suite does not skew them.
+          name: 'timing',
+          root: '.',
+          include: ['tests/timing/**/*.test.ts'],
+          environment: 'node',
+          testTimeout: 60_000,
+          sequence: { groupOrder: 2 },
+        },
+      },
+      {
+        extends: true,
+        test: {
           name: 'fault',
           root: '.',
           include: ['tests/fault/**/*.test.ts'],

@@ -62,7 +62,8 @@ export async function prepareRuntime(
   now: () => Date = () => new Date(),
 ): Promise<Runtime> {
   assertWritable(config.dataDir);
-  const handle = openDatabase(path.join(config.dataDir, 'emberline.sqlite'));
+  const recordsKey = loadRecordsKey(config, logger);
+  const handle = openDatabase(path.join(config.dataDir, 'emberline.sqlite'), recordsKey.key);
   runMigrations(handle.db);
 
   let demoLoaded = false;
@@ -98,7 +99,7 @@ export async function prepareRuntime(
     logger,
     caughtMail: smtpFake ? caughtMailStore(path.join(config.dataDir, 'mail')) : null,
     sessionKey: sessionKey(config, logger),
-    recordsKey: loadRecordsKey(config, logger),
+    recordsKey,
     storage,
     now,
   };

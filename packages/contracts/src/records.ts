@@ -1,9 +1,12 @@
 import { z } from 'zod';
 
-/** The records check (DESIGN §5.5): every signature walked, hashed and its seal recomputed. */
+/**
+ * The records check (DESIGN §5.5): both chains (signatures and the audit log) walked, every
+ * number present, every hash and seal recomputed.
+ */
 export const recordsVerificationSchema = z.object({
   ok: z.boolean(),
-  checked: z.object({ signatures: z.number().int() }),
+  checked: z.object({ signatures: z.number().int(), auditRows: z.number().int() }),
   /** The last record of the chain, as reports print it, so that a cut-off tail shows. */
   head: z.object({ seq: z.number().int(), sha256: z.string() }).nullable(),
   /** The records key was made inside the data directory: tampering there cannot be detected. */

@@ -9,6 +9,8 @@ import { loadConfig } from '../config/env';
 import { inTransaction, openDatabase } from '../db/client';
 import { runMigrations } from '../db/migrate';
 import { newId } from '../lib/ids';
+import { createLogger } from '../lib/logger';
+import { loadRecordsKey } from '../lib/records/records-key';
 import { appendAudit } from '../modules/audit/audit.repository';
 import { publicOrigin } from '../modules/auth/auth.service';
 import { issueUserToken } from '../modules/auth/user-tokens.service';
@@ -35,7 +37,10 @@ if (!email.success || !values.name) {
 
 const config = loadConfig();
 fs.mkdirSync(config.dataDir, { recursive: true });
-const handle = openDatabase(path.join(config.dataDir, 'emberline.sqlite'));
+const handle = openDatabase(
+  path.join(config.dataDir, 'emberline.sqlite'),
+  loadRecordsKey(config, createLogger('error', false)).key,
+);
 runMigrations(handle.db);
 if (findUserByEmail(handle.db, email.data)) {
   console.error(`${email.data} already has an account.`);

@@ -1,5 +1,6 @@
 // Walks the signature chain of an installation and names every record that does not check out.
 // Exits 1 on any problem, so that a scheduled run can raise the alarm. Usage: pnpm verify-records
+import fs from 'node:fs';
 import path from 'node:path';
 import { ConfigError, loadConfig } from '../config/env';
 import { openDatabase } from '../db/client';
@@ -10,13 +11,14 @@ import { createRecordsService } from '../modules/records/records.service';
 
 try {
   const config = loadConfig();
-  const handle = openDatabase(path.join(config.dataDir, 'emberline.sqlite'));
-  runMigrations(handle.db);
+  fs.mkdirSync(config.dataDir, { recursive: true });
   const recordsKey = loadRecordsKey(config, createLogger('error', false));
+  const handle = openDatabase(path.join(config.dataDir, 'emberline.sqlite'), recordsKey.key);
+  runMigrations(handle.db);
   const result = createRecordsService({ db: handle.db, recordsKey }).verify();
   handle.close();
   console.log(
-    `Checked ${result.checked.signatures} signatures in ${config.dataDir}; chain head ${
+    `Checked ${result.checked.signatures} signatures and ${result.checked.auditRows} audit rows in ${config.dataDir}; signature chain head ${
       result.head ? `${result.head.seq} ${result.head.sha256}` : 'none (no signature yet)'
     }.`,
   );

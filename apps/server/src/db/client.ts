@@ -1,3 +1,4 @@
+import { createHmac } from 'node:crypto';
 import Database from 'better-sqlite3';
 import { drizzle, type BetterSQLite3Database } from 'drizzle-orm/better-sqlite3';
 import * as schema from './schema';
@@ -15,10 +16,15 @@ export interface DatabaseHandle {
 /**
  * Opens the one writer connection with the pragmas Emberline relies on: WAL for concurrent readers,
  * synchronous=FULL so an acknowledged upload or signature survives a power cut, foreign keys on,
- * and a busy timeout instead of immediate SQLITE_BUSY errors.
+ * and a busy timeout instead of immediate SQLITE_BUSY errors. `records_mac(hash)` seals audit rows
+ * with the records key.
  */
-export function openDatabase(file: string): DatabaseHandle {
+export function openDatabase(file: string, recordsKey: Buffer): DatabaseHandle {
   const sqlite = new Database(file);
+  // The seal of the audit chain is made inside the insert, so that no audit row exists unsealed.
+  sqlite.function('records_mac', { deterministic: true }, (hash: unknown) =>
+    createHmac('sha256', recordsKey).update(String(hash), 'utf8').digest('hex'),
+  );
   sqlite.pragma('journal_mode = WAL');
   sqlite.pragma('synchronous = FULL');
   sqlite.pragma('foreign_keys = ON');

@@ -1,5 +1,6 @@
 import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
 import { paths } from '../config/paths';
+import { chainEarlierAuditRows } from './audit-chain';
 import { rawConnection, type Db } from './client';
 import { dropTriggers, ensureTriggers } from './triggers';
 
@@ -20,6 +21,7 @@ export function runMigrations(db: Db, migrationsFolder: string = paths.migration
       throw new Error(
         `a migration left ${broken.length} rows whose references point nowhere (first in ${broken[0]!.table})`,
       );
+    chainEarlierAuditRows(sqlite);
   } finally {
     sqlite.pragma('foreign_keys = ON');
     ensureTriggers(sqlite);

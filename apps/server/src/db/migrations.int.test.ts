@@ -15,6 +15,8 @@ import { paths } from '../config/paths';
 import { DEMO_LIMIT_SET_ID } from '../demo/demo-limits';
 import { openDatabase } from './client';
 import { runMigrations } from './migrate';
+
+const testKey = Buffer.from('an invented records key for this test only');
 import { triggers } from './triggers';
 
 const guarded = ['limit_sets', 'limit_rules', 'findings', 'audit_log'];
@@ -126,7 +128,7 @@ const triggerNames = (sqlite: Database.Database) =>
 describe('migrating a populated database', () => {
   it('keeps its rows and its triggers when a migration rebuilds the guarded tables', async () => {
     const file = await populatedDatabase();
-    const handle = openDatabase(file);
+    const handle = openDatabase(file, testKey);
     const before = counts(handle.sqlite);
     expect(before.findings).toBe(3);
     expect(before.limit_rules).toBeGreaterThan(40);
@@ -136,7 +138,7 @@ describe('migrating a populated database', () => {
     // limit_sets, and SQLite will not rename the rebuilt table under it.
     const copy = path.join(makeDataDir(), 'copy.sqlite');
     await handle.sqlite.backup(copy);
-    const bare = openDatabase(copy);
+    const bare = openDatabase(copy, testKey);
     expect(() => migrate(bare.db, { migrationsFolder: folder })).toThrow();
     bare.close();
 

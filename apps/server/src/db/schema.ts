@@ -107,10 +107,17 @@ export const auditLog = sqliteTable(
     after: text({ mode: 'json' }),
     requestId: text(),
     ip: text(),
+    /** The audit chain (DESIGN §5.5): 1, 2, 3, … without gaps, each row hashed over the last. */
+    seq: integer(),
+    prevHash: text(),
+    hash: text(),
+    /** HMAC-SHA256 of `hash` under the records key, made by SQLite's `records_mac` (db/client.ts). */
+    mac: text(),
   },
   (table) => [
     index('audit_log_entity_idx').on(table.entityType, table.entityId),
     index('audit_log_at_idx').on(table.at),
+    uniqueIndex('audit_log_seq_idx').on(table.seq),
   ],
 );
 

@@ -1,6 +1,8 @@
-import { and, desc, eq, lt, type SQL } from 'drizzle-orm';
+import { and, desc, eq, isNotNull, isNull, lt, sql, type SQL } from 'drizzle-orm';
+import { GENESIS_SHA256 } from '@emberline/domain/signature-content';
 import type { DbOrTx } from '../../db/client';
 import { auditLog, users } from '../../db/schema';
+import { auditRowHash } from '../../lib/records/audit-hash';
 
 export interface AuditRecord {
   actorUserId: string | null;
@@ -13,21 +15,54 @@ export interface AuditRecord {
   ip?: string | null;
 }
 
-/** Appends one entry. The table refuses updates and deletes by trigger. */
+/**
+ * Appends one entry to the audit chain: numbered after the last, hashed over it, sealed by SQLite's
+ * `records_mac` with the records key. Callers are inside a `BEGIN IMMEDIATE` transaction, so no
+ * other writer takes the same number. The table refuses updates and deletes by trigger.
+ */
 export function appendAudit(db: DbOrTx, at: Date, record: AuditRecord): void {
+  const last = db
+    .select({ seq: auditLog.seq, hash: auditLog.hash })
+    .from(auditLog)
+    .where(isNotNull(auditLog.seq))
+    .orderBy(desc(auditLog.seq))
+    .limit(1)
+    .get();
+  const fields = {
+    seq: (last?.seq ?? 0) + 1,
+    at,
+    actorUserId: record.actorUserId,
+    action: record.action,
+    entityType: record.entityType,
+    entityId: record.entityId,
+    before: record.before ?? null,
+    after: record.after ?? null,
+    requestId: record.requestId ?? null,
+    ip: record.ip ?? null,
+    prevHash: last?.hash ?? GENESIS_SHA256,
+  };
+  const hash = auditRowHash(fields);
   db.insert(auditLog)
-    .values({
-      at,
-      actorUserId: record.actorUserId,
-      action: record.action,
-      entityType: record.entityType,
-      entityId: record.entityId,
-      before: record.before ?? null,
-      after: record.after ?? null,
-      requestId: record.requestId ?? null,
-      ip: record.ip ?? null,
-    })
+    .values({ ...fields, hash, mac: sql`records_mac(${hash})` })
     .run();
+}
+
+export type AuditChainRow = typeof auditLog.$inferSelect;
+
+/** Audit rows outside the chain: written behind the product's back after it was chained. */
+export function listUnchainedAudit(db: DbOrTx, limit: number): AuditChainRow[] {
+  return db.select().from(auditLog).where(isNull(auditLog.seq)).limit(limit).all();
+}
+
+/** The chained rows after `seq`, in order, a page at a time; and how many rows are unchained. */
+export function listAuditChainAfter(db: DbOrTx, seq: number, limit: number): AuditChainRow[] {
+  return db
+    .select()
+    .from(auditLog)
+    .where(and(isNotNull(auditLog.seq), sql`${auditLog.seq} > ${seq}`))
+    .orderBy(auditLog.seq)
+    .limit(limit)
+    .all();
 }
 
 export function listAudit(

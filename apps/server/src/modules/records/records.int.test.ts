@@ -8,6 +8,9 @@ import { demoAccounts, DEMO_PASSWORD, startTestApp, type TestApp } from '../../.
 import { DEMO_DRAFT_LIMIT_SET_ID } from '../../demo/demo-limits';
 import { appendSignature } from './records.service';
 import { macOf } from './signature-chain';
+import { runMigrations } from '../../db/migrate';
+import { appendAudit } from '../audit/audit.repository';
+import { auditRowHash } from '../../lib/records/audit-hash';
 
 let t: TestApp;
 beforeEach(async () => {
@@ -43,7 +46,7 @@ async function verification() {
   expect(response.status).toBe(200);
   return response.body as {
     ok: boolean;
-    checked: { signatures: number };
+    checked: { signatures: number; auditRows: number };
     head: { seq: number; sha256: string } | null;
     problems: { kind: string; id: string; message: string }[];
   };
@@ -190,5 +193,110 @@ describe('the signature chain', () => {
     expect(
       (await request(t.app).get('/api/v1/records/verification').set('Cookie', planner)).status,
     ).toBe(403);
+  });
+});
+
+describe('the audit chain', () => {
+  const sqlite = () => rawConnection(t.runtime.ctx.db);
+  const auditCount = () =>
+    (sqlite().prepare('select count(*) as n from audit_log').get() as { n: number }).n;
+  const untriggered = (sql: string, ...params: unknown[]) => {
+    sqlite().exec(
+      'DROP TRIGGER IF EXISTS audit_log_no_update; DROP TRIGGER IF EXISTS audit_log_no_delete;',
+    );
+    sqlite()
+      .prepare(sql)
+      .run(...params);
+  };
+
+  it('chains every audit row as it is written, and the records check walks them all', async () => {
+    const result = await verification();
+    expect(result.ok).toBe(true);
+    expect(result.checked.auditRows).toBe(auditCount());
+    expect(result.checked.auditRows).toBeGreaterThan(0);
+    expect(() => sqlite().prepare('update audit_log set action = action').run()).toThrow(
+      /append-only/,
+    );
+    expect(() => sqlite().prepare('delete from audit_log where seq = 1').run()).toThrow(
+      /append-only/,
+    );
+  });
+
+  it('chains the rows written before the chain existed, in id order, when it migrates', async () => {
+    untriggered('update audit_log set seq = null, prev_hash = null, hash = null, mac = null');
+    runMigrations(t.runtime.ctx.db);
+    const rows = sqlite().prepare('select id, seq from audit_log order by id').all() as {
+      id: number;
+      seq: number;
+    }[];
+    expect(rows.map((row) => row.seq)).toEqual(rows.map((_, index) => index + 1));
+    expect(await verification()).toMatchObject({ ok: true, problems: [] });
+  });
+
+  it('names a changed row, a removed row, a forged row and a row outside the chain', async () => {
+    const { ctx } = t.runtime;
+    for (let n = 0; n < 5; n += 1)
+      inTransaction(ctx.db, (tx) =>
+        appendAudit(tx, ctx.now(), {
+          actorUserId: null,
+          action: 'test.invented-change',
+          entityType: 'test',
+          entityId: `entry-${n}`,
+          after: { n },
+        }),
+      );
+    expect(auditCount()).toBeGreaterThanOrEqual(6);
+    untriggered("update audit_log set action = 'user.nothing-happened' where seq = 2");
+    untriggered('delete from audit_log where seq = 4');
+    const last = sqlite()
+      .prepare('select seq, hash from audit_log order by seq desc limit 1')
+      .get() as { seq: number; hash: string };
+    // A forger who knows the scheme but not the records key.
+    const forged = {
+      seq: last.seq + 1,
+      at: new Date('2026-06-01T09:00:00Z'),
+      actorUserId: null,
+      action: 'user.role-changed',
+      entityType: 'user',
+      entityId: 'user-planner',
+      before: null,
+      after: { role: 'admin' },
+      requestId: null,
+      ip: null,
+      prevHash: last.hash,
+    };
+    const hash = auditRowHash(forged);
+    sqlite()
+      .prepare(
+        `insert into audit_log (at, action, entity_type, entity_id, after, seq, prev_hash, hash, mac)
+         values (?, ?, ?, ?, ?, ?, ?, ?, ?)`,
+      )
+      .run(
+        forged.at.getTime(),
+        forged.action,
+        forged.entityType,
+        forged.entityId,
+        JSON.stringify(forged.after),
+        forged.seq,
+        forged.prevHash,
+        hash,
+        macOf(Buffer.from('not the records key'), hash),
+      );
+    sqlite()
+      .prepare(
+        "insert into audit_log (at, action, entity_type) values (1, 'user.slipped-in', 'user')",
+      )
+      .run();
+    const messages = (await verification()).problems
+      .filter((problem) => problem.kind === 'audit')
+      .map((problem) => problem.message);
+    expect(messages).toEqual(
+      expect.arrayContaining([
+        expect.stringMatching(/outside the audit chain/),
+        expect.stringMatching(/it was changed after it was written/),
+        expect.stringMatching(/rows 4 to 4 of the chain are missing/),
+        expect.stringMatching(/seal was not made with the records key/),
+      ]),
+    );
   });
 });

@@ -47,10 +47,14 @@ export function useLogout() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: async () => {
-      // Reads the page started (a banner's count, a list) finish first: ended mid-way by the
-      // sign-out, they would be refused and shown as errors for a moment.
-      for (let waited = 0; queryClient.isFetching() > 0 && waited < 2_000; waited += 25)
+      // The signed-in screens go first, so that nothing starts a new read; the reads already on
+      // their way finish while the session lasts. Ended mid-way by the sign-out, they would be
+      // refused (401) and shown as errors for a moment.
+      queryClient.setQueryData(authKeys.me(), null);
+      for (let waited = 0; waited < 2_000; waited += 25) {
         await new Promise((resolve) => setTimeout(resolve, 25));
+        if (queryClient.isFetching() === 0) break;
+      }
       await api.post<void>('/auth/logout');
     },
     onSettled: () => {
