@@ -49,6 +49,8 @@ test('the admin pages have no serious accessibility violation', async ({ page })
     '/admin/organisations',
     '/admin/engine-models/model-vt300-v1',
     '/admin/audit-log',
+    '/admin/outbox',
+    '/admin/records',
   ]) {
     await page.goto(path);
     await page.waitForLoadState('networkidle');

@@ -151,3 +151,14 @@ async function tokenFromOutbox(
   }
   throw new Error(`no "${subject}" message to ${to}`);
 }
+
+test('an admin checks the records: both chains check out, and the key kept with them is named', async ({
+  page,
+}) => {
+  await signIn(page, 'admin@demo.test');
+  await page.goto('/admin/records');
+  await expect(page.getByText('Every record checks out')).toBeVisible();
+  await expect(page.getByText('The records key is kept with the records')).toBeVisible();
+  await expect(page.getByText('Audit rows checked')).toBeVisible();
+  await page.screenshot({ path: 'test-results/records-check.png', fullPage: true });
+});

@@ -145,6 +145,12 @@ const router = createBrowserRouter([
               Component: (await import('./routes/admin/audit-log')).AdminAuditLogRoute,
             }),
           },
+          {
+            path: 'records',
+            lazy: async () => ({
+              Component: (await import('./routes/admin/records')).AdminRecordsRoute,
+            }),
+          },
         ],
       },
       { path: '*', element: <NotFoundRoute /> },

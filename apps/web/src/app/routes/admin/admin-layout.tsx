@@ -8,6 +8,7 @@ const sections = [
   { to: '/admin/engine-models', label: 'Engine models' },
   { to: '/admin/outbox', label: 'Outbox' },
   { to: '/admin/audit-log', label: 'Audit log' },
+  { to: '/admin/records', label: 'Records check' },
 ];
 
 export function AdminLayout() {

@@ -1,0 +1,57 @@
+import { Button } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
+import { LoadingLine } from '../../../components/ui/page';
+import { formatCount } from '../../../lib/format';
+import { useRecordsVerification } from '../api/records';
+
+/**
+ * The records check: every signature and audit row walked, hashed and its seal recomputed, and
+ * each broken record named in words. The chain head is what reports print, so that a cut-off tail
+ * shows when the two are compared.
+ */
+export function RecordsCheck() {
+  const check = useRecordsVerification();
+  if (check.isPending) return <LoadingLine label="Checking every record…" />;
+  if (check.error) return <Notice tone="error">{check.error.message}</Notice>;
+  const result = check.data;
+  return (
+    <div className="flex flex-col gap-4">
+      {result.keyInsideDataDir ? (
+        <Notice tone="caution" title="The records key is kept with the records">
+          It was made inside the data directory, so whoever can write there could forge a record and
+          seal it again undetected. Set RECORDS_KEY_FILE to a key kept elsewhere.
+        </Notice>
+      ) : null}
+      {result.ok ? (
+        <Notice tone="success" title="Every record checks out">
+          {formatCount(result.checked.signatures)} signatures and{' '}
+          {formatCount(result.checked.auditRows)} audit rows are present, unchanged and sealed with
+          the records key.
+        </Notice>
+      ) : (
+        <Notice tone="error" title={`${result.problems.length} records do not check out`}>
+          <ul className="mt-1 list-disc pl-5">
+            {result.problems.map((problem) => (
+              <li key={`${problem.kind}-${problem.id}-${problem.message}`}>{problem.message}</li>
+            ))}
+          </ul>
+        </Notice>
+      )}
+      <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm text-soot-700">
+        <dt>Signatures checked</dt>
+        <dd>{formatCount(result.checked.signatures)}</dd>
+        <dt>Audit rows checked</dt>
+        <dd>{formatCount(result.checked.auditRows)}</dd>
+        <dt>Chain head</dt>
+        <dd className="break-all font-mono text-xs">
+          {result.head ? `${result.head.seq} · ${result.head.sha256}` : 'no signature yet'}
+        </dd>
+      </dl>
+      <div>
+        <Button variant="secondary" busy={check.isFetching} onClick={() => void check.refetch()}>
+          Check again
+        </Button>
+      </div>
+    </div>
+  );
+}
