@@ -1,9 +1,39 @@
 import { z } from 'zod';
 import { emailSchema } from './auth';
+import { isoDateSchema } from './forecast';
 import { roleSchema } from './roles';
 
 export const userStatusSchema = z.enum(['active', 'invited', 'disabled']);
 export type UserStatus = z.infer<typeof userStatusSchema>;
+
+const referenceSchema = z.string().trim().min(1, { message: 'Give the reference' }).max(100);
+
+/**
+ * An engineer's authority to sign dispositions (DESIGN §5.5): the reference of the authorisation,
+ * the engine models it covers and the day it expires. Set by an administrator other than its holder.
+ */
+export const authorisationSchema = z.strictObject({
+  ref: referenceSchema,
+  models: z
+    .array(z.string().min(1).max(64))
+    .min(1, { message: 'Name at least one engine model' })
+    .max(50),
+  expiresOn: isoDateSchema,
+});
+export type Authorisation = z.infer<typeof authorisationSchema>;
+
+/** An inspector's qualification (the reference of the borescope certificate and its expiry). */
+export const qualificationSchema = z.strictObject({
+  ref: referenceSchema,
+  expiresOn: isoDateSchema,
+});
+export type Qualification = z.infer<typeof qualificationSchema>;
+
+export const credentialsInputSchema = z.strictObject({
+  authorisation: authorisationSchema.nullable(),
+  qualification: qualificationSchema.nullable(),
+});
+export type CredentialsInput = z.infer<typeof credentialsInputSchema>;
 
 /** A user as the API shows it: never a password hash. */
 export const userSchema = z.object({
@@ -17,6 +47,8 @@ export const userSchema = z.object({
   activeSessions: z.number().int(),
   lastSignInAt: z.string().nullable(),
   createdAt: z.string(),
+  authorisation: authorisationSchema.nullable(),
+  qualification: qualificationSchema.nullable(),
 });
 export type User = z.infer<typeof userSchema>;
 

@@ -39,6 +39,14 @@ export const users = sqliteTable(
     lastSignInAt: integer({ mode: 'timestamp_ms' }),
     passwordChangedAt: integer({ mode: 'timestamp_ms' }),
     createdAt: createdAt(),
+    /** An engineer's authority to sign: `{ref, models, expiresOn}`, set by another administrator. */
+    authorisation: text({ mode: 'json' }).$type<{
+      ref: string;
+      models: string[];
+      expiresOn: string;
+    }>(),
+    /** An inspector's qualification: `{ref, expiresOn}`. */
+    qualification: text({ mode: 'json' }).$type<{ ref: string; expiresOn: string }>(),
   },
   (table) => [index('users_organisation_idx').on(table.organisationId)],
 );

@@ -19,6 +19,7 @@ export const routePolicy = {
   'GET /users': 'manage:user',
   'POST /users': 'manage:user',
   'PATCH /users/:id': 'manage:user',
+  'PUT /users/:id/credentials': 'manage:user',
   'POST /users/:id/invitation': 'manage:user',
   'DELETE /users/:id/sessions': 'manage:user',
   'GET /organisations': 'read:organisation',

@@ -22,6 +22,8 @@ export function toUser(row: UserWithOrganisation & { activeSessions?: number }):
     activeSessions: row.activeSessions ?? 0,
     lastSignInAt: row.lastSignInAt?.toISOString() ?? null,
     createdAt: row.createdAt.toISOString(),
+    authorisation: row.authorisation,
+    qualification: row.qualification,
   };
 }
 

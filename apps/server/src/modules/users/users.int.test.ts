@@ -326,3 +326,57 @@ describe('the outbox', () => {
     ).toBe(404);
   });
 });
+
+describe('authorisations and qualifications', () => {
+  const credentials = (id: string, body: object, cookie = admin) =>
+    request(t.app).put(`/api/v1/users/${id}/credentials`).set('Cookie', cookie).send(body);
+  const authorisation = { ref: 'AUTH-DEMO-7', models: ['model-vt300-v1'], expiresOn: '2027-06-30' };
+
+  it('records an engineer’s authorisation and an inspector’s qualification, with an audit row', async () => {
+    const engineer = await credentials('user-engineer', { authorisation, qualification: null });
+    expect(engineer.status).toBe(200);
+    expect(engineer.body.user).toMatchObject({ authorisation, qualification: null });
+    const inspector = await credentials('user-inspector', {
+      authorisation: null,
+      qualification: { ref: 'BSI-L2-DEMO', expiresOn: '2027-03-31' },
+    });
+    expect(inspector.body.user.qualification).toEqual({
+      ref: 'BSI-L2-DEMO',
+      expiresOn: '2027-03-31',
+    });
+    const listed = await request(t.app).get('/api/v1/users').set('Cookie', admin);
+    expect(
+      listed.body.items.find((user: { id: string }) => user.id === 'user-engineer').authorisation,
+    ).toEqual(authorisation);
+    const audit = await request(t.app)
+      .get('/api/v1/audit-log?entityType=user')
+      .set('Cookie', admin);
+    expect(audit.body.items[0]).toMatchObject({
+      action: 'user.credentials-changed',
+      entityId: 'user-inspector',
+    });
+  });
+
+  it('leaves nobody to grant themselves the authority to sign', async () => {
+    const own = await credentials('user-admin', { authorisation, qualification: null });
+    expect(own.status).toBe(403);
+    expect(own.body.error.message).toMatch(/another administrator/);
+  });
+
+  it('refuses an authorisation for a role that does not sign, and one for a model that does not exist', async () => {
+    const planner = await credentials('user-planner', { authorisation, qualification: null });
+    expect(planner.status).toBe(422);
+    expect(planner.body.error.details.fields.authorisation[0]).toMatch(/for engineers/);
+    const unknown = await credentials('user-engineer', {
+      authorisation: { ...authorisation, models: ['model-nowhere'] },
+      qualification: null,
+    });
+    expect(unknown.status).toBe(422);
+    expect(unknown.body.error.message).toMatch(/no engine model "model-nowhere"/);
+    const badDate = await credentials('user-engineer', {
+      authorisation: { ...authorisation, expiresOn: '31/12/2027' },
+      qualification: null,
+    });
+    expect(badDate.status).toBe(400);
+  });
+});

@@ -21,6 +21,8 @@ const withOrganisation = {
   lastSignInAt: users.lastSignInAt,
   passwordChangedAt: users.passwordChangedAt,
   createdAt: users.createdAt,
+  authorisation: users.authorisation,
+  qualification: users.qualification,
   organisationName: organisations.name,
   organisationKind: organisations.kind,
 };

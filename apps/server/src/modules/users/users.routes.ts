@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import {
+  credentialsInputSchema,
   idParamsSchema,
   inviteUserInputSchema,
   inviteUserResponseSchema,
@@ -53,6 +54,28 @@ export function usersRoutes(ctx: AppContext): Router {
     (req, res) => {
       res.json({
         user: users.update(
+          principalOf(res),
+          res.locals.params.id,
+          res.locals.body,
+          requestMeta(req),
+        ),
+      });
+    },
+  );
+
+  route(
+    router,
+    'PUT /users/:id/credentials',
+    {
+      summary:
+        'Record an engineer’s authorisation to sign and an inspector’s qualification (another administrator)',
+      params: idParamsSchema,
+      body: credentialsInputSchema,
+      response: z.object({ user: userSchema }),
+    },
+    (req, res) => {
+      res.json({
+        user: users.setCredentials(
           principalOf(res),
           res.locals.params.id,
           res.locals.body,

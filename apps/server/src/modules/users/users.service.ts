@@ -1,6 +1,7 @@
-import { organisationKindOf } from '@emberline/contracts/permissions';
-import type { Role } from '@emberline/contracts/roles';
+import { can, organisationKindOf } from '@emberline/contracts/permissions';
+import { roleLabels, type Role } from '@emberline/contracts/roles';
 import type {
+  CredentialsInput,
   InviteUserInput,
   InviteUserResponse,
   UpdateUserInput,
@@ -17,6 +18,7 @@ import { invitationEmail } from '../auth/auth-emails';
 import { publicOrigin } from '../auth/auth.service';
 import { revokeUserSessions } from '../auth/sessions.repository';
 import { issueUserToken } from '../auth/user-tokens.service';
+import { findEngineModel } from '../engine-models/engine-models.repository';
 import { findOrganisation, type OrganisationRow } from '../organisations/organisations.repository';
 import {
   findUserByEmail,
@@ -161,6 +163,56 @@ export function createUsersService(ctx: AppContext) {
         return queueInvitation(tx, user, principal.user.name, secret);
       });
       return { user: toUser(user), mailId };
+    },
+
+    /**
+     * Records an engineer's authorisation to sign and an inspector's qualification. Set by an
+     * administrator other than their holder: nobody grants themselves the authority to sign.
+     */
+    setCredentials(
+      principal: Principal,
+      id: string,
+      input: CredentialsInput,
+      meta: RequestMeta,
+    ): User {
+      const before = mustFind(id);
+      if (before.id === principal.user.id)
+        throw AppError.forbidden(
+          'Your own authorisation and qualification are recorded by another administrator.',
+        );
+      const refuse = (field: string, message: string) =>
+        AppError.unprocessable(message, { fields: { [field]: [message] }, form: [] });
+      if (input.authorisation && !can(before.role, 'review:inspection'))
+        throw refuse(
+          'authorisation',
+          `A ${roleLabels[before.role].toLowerCase()} does not sign dispositions: an authorisation is for engineers.`,
+        );
+      if (input.qualification && !can(before.role, 'create:inspection'))
+        throw refuse(
+          'qualification',
+          `A ${roleLabels[before.role].toLowerCase()} does not inspect: a qualification is for inspectors.`,
+        );
+      const unknown = input.authorisation?.models.find((model) => !findEngineModel(db, model));
+      if (unknown)
+        throw refuse('authorisation', `There is no engine model "${unknown}" to authorise.`);
+      const now = ctx.now();
+      inTransaction(db, (tx) => {
+        updateUser(tx, id, {
+          authorisation: input.authorisation,
+          qualification: input.qualification,
+        });
+        appendAudit(tx, now, {
+          actorUserId: principal.user.id,
+          action: 'user.credentials-changed',
+          entityType: 'user',
+          entityId: id,
+          before: { authorisation: before.authorisation, qualification: before.qualification },
+          after: input,
+          requestId: meta.requestId,
+          ip: meta.ip,
+        });
+      });
+      return toUser(mustFind(id));
     },
 
     update(principal: Principal, id: string, input: UpdateUserInput, meta: RequestMeta): User {

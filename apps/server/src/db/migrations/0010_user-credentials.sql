@@ -1,0 +1,2 @@
+ALTER TABLE `users` ADD `authorisation` text;--> statement-breakpoint
+ALTER TABLE `users` ADD `qualification` text;
