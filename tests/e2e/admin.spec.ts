@@ -162,3 +162,29 @@ test('an admin checks the records: both chains check out, and the key kept with 
   await expect(page.getByText('Audit rows checked')).toBeVisible();
   await page.screenshot({ path: 'test-results/records-check.png', fullPage: true });
 });
+
+test('an admin records an engineer’s authorisation to sign, but never their own', async ({
+  page,
+}) => {
+  await signIn(page, 'admin@demo.test');
+  await page.goto('/admin/users');
+  const engineer = page.getByTestId('credentials-engineer@demo.test');
+  await expect(engineer).toContainText('No authorisation to sign');
+  await engineer.getByRole('button', { name: 'Edit' }).click();
+  const form = page.getByRole('form', {
+    name: 'Authorisation and qualification of Priya Castellane',
+  });
+  await form.getByLabel('Reference (empty: none)').fill('AUTH-DEMO-7');
+  await form.getByLabel(/Expires on/).fill('2027-06-30');
+  await form.getByRole('checkbox').first().check();
+  await form.getByRole('button', { name: 'Save' }).click();
+  await expect(engineer).toContainText('Authorisation AUTH-DEMO-7');
+  await expect(engineer).toContainText('until 30 Jun 2027');
+  await expect(page.getByTestId('credentials-admin@demo.test')).toContainText(
+    'Recorded by another administrator',
+  );
+  await page
+    .getByRole('heading', { name: 'Authorisations and qualifications' })
+    .scrollIntoViewIfNeeded();
+  await page.screenshot({ path: 'test-results/admin-credentials.png' });
+});

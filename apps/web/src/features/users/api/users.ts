@@ -1,5 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type {
+  CredentialsInput,
   InviteUserInput,
   InviteUserResponse,
   UpdateUserInput,
@@ -56,6 +57,15 @@ export function useEndSessions() {
   return useMutation({
     mutationFn: (id: string) =>
       api.delete<{ ended: number }>(`/users/${encodeURIComponent(id)}/sessions`),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: userKeys.all }),
+  });
+}
+
+export function useSetCredentials() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, credentials }: { id: string; credentials: CredentialsInput }) =>
+      api.put<{ user: User }>(`/users/${encodeURIComponent(id)}/credentials`, credentials),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: userKeys.all }),
   });
 }
