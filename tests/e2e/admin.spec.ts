@@ -174,9 +174,14 @@ test('an admin records an engineer’s authorisation to sign, but never their ow
   const form = page.getByRole('form', {
     name: 'Authorisation and qualification of Priya Castellane',
   });
-  await form.getByLabel('Reference (empty: none)').fill('AUTH-DEMO-7');
-  await form.getByLabel(/Expires on/).fill('2027-06-30');
-  await form.getByRole('checkbox').first().check();
+  await form.getByLabel('Holds an authorisation to sign').check();
+  // Refused at the fields before anything is sent: a reference, a model and a date are needed.
+  await form.getByRole('button', { name: 'Save' }).click();
+  await expect(form.getByText('Give the reference')).toBeVisible();
+  await expect(form.getByText('Name at least one engine model')).toBeVisible();
+  await form.getByLabel('Authorisation reference').fill('AUTH-DEMO-7');
+  await form.getByLabel('Authorisation expires on').fill('2027-06-30');
+  await form.getByLabel(/Vantor VT-300/).check();
   await form.getByRole('button', { name: 'Save' }).click();
   await expect(engineer).toContainText('Authorisation AUTH-DEMO-7');
   await expect(engineer).toContainText('until 30 Jun 2027');

@@ -1,16 +1,45 @@
 import { useState } from 'react';
 import { can } from '@emberline/contracts/permissions';
 import { roleLabels } from '@emberline/contracts/roles';
-import type { User } from '@emberline/contracts/users';
+import {
+  credentialsInputSchema,
+  type CredentialsInput,
+  type User,
+} from '@emberline/contracts/users';
+import type { UseFormReturn } from 'react-hook-form';
 import { Button } from '../../../components/ui/button';
-import { Input } from '../../../components/ui/field';
+import { Field, Input } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
+import { applyServerErrors, useZodForm } from '../../../lib/form';
 import { formatDate } from '../../../lib/format';
 import { useSetCredentials, useUsers } from '../api/users';
 
 export interface ModelChoice {
   id: string;
   name: string;
+}
+
+/** A reference and its expiry: the shape an authorisation and a qualification share. */
+function ReferenceFields({
+  what,
+  form,
+  name,
+}: {
+  what: string;
+  form: UseFormReturn<CredentialsInput, unknown, CredentialsInput>;
+  name: 'authorisation' | 'qualification';
+}) {
+  const errors = form.formState.errors[name];
+  return (
+    <>
+      <Field label={`${what} reference`} error={errors?.ref}>
+        {(props) => <Input {...props} {...form.register(`${name}.ref`)} />}
+      </Field>
+      <Field label={`${what} expires on`} error={errors?.expiresOn}>
+        {(props) => <Input {...props} type="date" {...form.register(`${name}.expiresOn`)} />}
+      </Field>
+    </>
+  );
 }
 
 function CredentialsForm({
@@ -25,87 +54,104 @@ function CredentialsForm({
   const save = useSetCredentials();
   const signs = can(user.role, 'review:inspection');
   const inspects = can(user.role, 'create:inspection');
-  const [authRef, setAuthRef] = useState(user.authorisation?.ref ?? '');
-  const [authModels, setAuthModels] = useState<string[]>(user.authorisation?.models ?? []);
-  const [authExpires, setAuthExpires] = useState(user.authorisation?.expiresOn ?? '');
-  const [qualRef, setQualRef] = useState(user.qualification?.ref ?? '');
-  const [qualExpires, setQualExpires] = useState(user.qualification?.expiresOn ?? '');
+  const form = useZodForm(credentialsInputSchema, {
+    defaultValues: { authorisation: user.authorisation, qualification: user.qualification },
+  });
+  const [problem, setProblem] = useState<string | null>(null);
+  const authorisation = form.watch('authorisation');
+  const qualification = form.watch('qualification');
+  const { errors } = form.formState;
+  const onSubmit = form.handleSubmit((credentials) => {
+    setProblem(null);
+    save.mutate(
+      { id: user.id, credentials },
+      {
+        onSuccess: onDone,
+        onError: (error) => setProblem(applyServerErrors(form, error)),
+      },
+    );
+  });
   return (
     <form
       aria-label={`Authorisation and qualification of ${user.name}`}
       className="flex flex-col gap-3 rounded-md border border-soot-200 bg-soot-50 p-3"
-      onSubmit={(event) => {
-        event.preventDefault();
-        save.mutate(
-          {
-            id: user.id,
-            credentials: {
-              authorisation:
-                signs && authRef.trim()
-                  ? { ref: authRef.trim(), models: authModels, expiresOn: authExpires }
-                  : null,
-              qualification:
-                inspects && qualRef.trim() ? { ref: qualRef.trim(), expiresOn: qualExpires } : null,
-            },
-          },
-          { onSuccess: onDone },
-        );
-      }}
+      onSubmit={onSubmit}
+      noValidate
     >
       {signs ? (
-        <fieldset className="flex flex-wrap items-end gap-3">
+        <fieldset className="flex flex-col gap-3">
           <legend className="mb-1 text-sm font-semibold">Authorisation to sign</legend>
-          <label className="flex flex-col gap-1 text-sm">
-            Reference (empty: none)
-            <Input value={authRef} onChange={(event) => setAuthRef(event.target.value)} />
-          </label>
-          <label className="flex flex-col gap-1 text-sm">
-            Expires on (day month year)
-            <Input
-              type="date"
-              value={authExpires}
-              onChange={(event) => setAuthExpires(event.target.value)}
+          <label className="flex items-center gap-2 text-sm">
+            <input
+              type="checkbox"
+              checked={authorisation !== null}
+              onChange={(event) =>
+                form.setValue(
+                  'authorisation',
+                  event.target.checked ? { ref: '', models: [], expiresOn: '' } : null,
+                )
+              }
             />
+            Holds an authorisation to sign
           </label>
-          <div className="flex flex-col gap-1 text-sm">
-            Engine models
-            {models.map((model) => (
-              <label key={model.id} className="flex items-center gap-2">
-                <input
-                  type="checkbox"
-                  checked={authModels.includes(model.id)}
-                  onChange={(event) =>
-                    setAuthModels(
-                      event.target.checked
-                        ? [...authModels, model.id]
-                        : authModels.filter((id) => id !== model.id),
-                    )
-                  }
-                />
-                {model.name}
-              </label>
-            ))}
-          </div>
+          {authorisation ? (
+            <div className="grid gap-3 md:grid-cols-3">
+              <ReferenceFields what="Authorisation" form={form} name="authorisation" />
+              <fieldset className="flex flex-col gap-1 text-sm">
+                <legend className="font-medium text-soot-800">Engine models covered</legend>
+                {models.map((model) => (
+                  <label key={model.id} className="flex items-center gap-2">
+                    <input
+                      type="checkbox"
+                      checked={authorisation.models.includes(model.id)}
+                      onChange={(event) =>
+                        // Set as a list: a lone registered checkbox would give a string.
+                        form.setValue(
+                          'authorisation.models',
+                          event.target.checked
+                            ? [...authorisation.models, model.id]
+                            : authorisation.models.filter((id) => id !== model.id),
+                          { shouldValidate: form.formState.isSubmitted },
+                        )
+                      }
+                    />
+                    {model.name}
+                  </label>
+                ))}
+                {errors.authorisation?.models?.message ? (
+                  <p role="alert" className="text-sm text-red-700">
+                    {errors.authorisation.models.message}
+                  </p>
+                ) : null}
+              </fieldset>
+            </div>
+          ) : null}
         </fieldset>
       ) : null}
       {inspects ? (
-        <fieldset className="flex flex-wrap items-end gap-3">
+        <fieldset className="flex flex-col gap-3">
           <legend className="mb-1 text-sm font-semibold">Inspector qualification</legend>
-          <label className="flex flex-col gap-1 text-sm">
-            Reference (empty: none)
-            <Input value={qualRef} onChange={(event) => setQualRef(event.target.value)} />
-          </label>
-          <label className="flex flex-col gap-1 text-sm">
-            Expires on (day month year)
-            <Input
-              type="date"
-              value={qualExpires}
-              onChange={(event) => setQualExpires(event.target.value)}
+          <label className="flex items-center gap-2 text-sm">
+            <input
+              type="checkbox"
+              checked={qualification !== null}
+              onChange={(event) =>
+                form.setValue(
+                  'qualification',
+                  event.target.checked ? { ref: '', expiresOn: '' } : null,
+                )
+              }
             />
+            Holds a qualification
           </label>
+          {qualification ? (
+            <div className="grid gap-3 md:grid-cols-3">
+              <ReferenceFields what="Qualification" form={form} name="qualification" />
+            </div>
+          ) : null}
         </fieldset>
       ) : null}
-      {save.error ? <Notice tone="error">{save.error.message}</Notice> : null}
+      {problem ? <Notice tone="error">{problem}</Notice> : null}
       <div className="flex gap-2">
         <Button type="submit" busy={save.isPending}>
           Save

@@ -5,6 +5,7 @@ import type { User } from '@emberline/contracts/users';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { LoadingLine } from '../../../components/ui/page';
+import { formatDateTime } from '../../../lib/format';
 import { useEndSessions, useResendInvitation, useUpdateUser, useUsers } from '../api/users';
 
 const statusStyles: Record<User['status'], string> = {
@@ -12,12 +13,6 @@ const statusStyles: Record<User['status'], string> = {
   invited: 'bg-sky-100 text-sky-900',
   disabled: 'bg-soot-200 text-soot-700',
 };
-
-function formatDateTime(value: string | null): string {
-  return value
-    ? new Date(value).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })
-    : 'Never';
-}
 
 export function UsersTable({ currentUserId }: { currentUserId: string }) {
   const users = useUsers();
@@ -120,7 +115,9 @@ export function UsersTable({ currentUserId }: { currentUserId: string }) {
                     </span>
                   </td>
                   <td className="py-3 pr-4 font-mono">{user.activeSessions}</td>
-                  <td className="py-3 pr-4 text-soot-700">{formatDateTime(user.lastSignInAt)}</td>
+                  <td className="py-3 pr-4 text-soot-700">
+                    {user.lastSignInAt ? formatDateTime(user.lastSignInAt) : 'Never'}
+                  </td>
                   <td className="py-3">
                     <div className="flex flex-wrap gap-2">
                       {user.status === 'invited' ? (
