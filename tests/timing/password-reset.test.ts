@@ -16,7 +16,7 @@ const demoAccounts = {
 const makeDataDir = () => fs.mkdtempSync(path.join(os.tmpdir(), 'emberline-timing-'));
 
 describe('password reset requests', () => {
-  it('answer within the same time for an unknown and a known address (median of ten, within 20 %)', async () => {
+  it('answer within the same time for an unknown and a known address (thirty of each, shifted less than 20 % or 1 ms)', async () => {
     // Timed over HTTP against a server in its own process, as anyone probing addresses would.
     const port = await freePort();
     const server = await startServerProcess(makeDataDir(), port, { FROM_SOURCES: '1' });
@@ -37,7 +37,8 @@ describe('password reset requests', () => {
         return elapsed;
       };
       for (let warm = 0; warm < 5; warm += 1) await time(`warm-up-${warm}@demo.test`);
-      // Five accounts twice each: never throttled, so every known address gets its link.
+      // Thirty of each, interleaved: a median of ten moved by ±20 % between quiet runs. Six
+      // requests per account, so the sixth meets the limit of five links an hour, as a prober's would.
       const accounts = [
         demoAccounts.admin,
         demoAccounts.inspector,
@@ -47,25 +48,34 @@ describe('password reset requests', () => {
       ];
       const known: number[] = [];
       const unknown: number[] = [];
-      for (let round = 0; round < 10; round += 1) {
+      for (let round = 0; round < 30; round += 1) {
         known.push(await time(accounts[round % accounts.length]!));
         unknown.push(await time(`nobody-${round}@demo.test`));
       }
       const median = (values: number[]) => {
         const sorted = [...values].sort((a, b) => a - b);
-        return (sorted[4]! + sorted[5]!) / 2;
+        const middle = sorted.length / 2;
+        return sorted.length % 2
+          ? sorted[Math.floor(middle)]!
+          : (sorted[middle - 1]! + sorted[middle]!) / 2;
       };
-      const ratio = median(known) / median(unknown);
+      // The shift between the two sets (Hodges–Lehmann: the median of every known − unknown
+      // difference) resists the single slow answers a shared two-core machine gives either side.
+      // Allowed: 20 % of the typical answer, and never less than 1 ms, which is the spread of the
+      // median itself between quiet runs here; a link issued before answering (a token, an audit
+      // row and a rendered e-mail) or an SMTP wait costs more than that.
+      const shift = median(known.flatMap((k) => unknown.map((u) => k - u)));
+      const allowed = Math.max(1, 0.2 * median(unknown));
       console.warn(
-        `reset answers: known ${median(known).toFixed(2)} ms, unknown ${median(unknown).toFixed(2)} ms (median of 10)`,
+        `reset answers: known ${median(known).toFixed(2)} ms, unknown ${median(unknown).toFixed(2)} ms, ` +
+          `shift ${shift.toFixed(2)} ms, allowed ±${allowed.toFixed(2)} ms (30 of each)`,
       );
-      expect(ratio).toBeGreaterThan(0.8);
-      expect(ratio).toBeLessThan(1.2);
+      expect(Math.abs(shift)).toBeLessThan(allowed);
 
       const cookie = await signInCookie(base, demoAccounts.admin);
       const outbox = await fetch(`${base}/outbox/messages?pageSize=100`, { headers: { cookie } });
       const items = ((await outbox.json()) as { items: { kind: string }[] }).items;
-      expect(items.filter((item) => item.kind === 'password-reset')).toHaveLength(10);
+      expect(items.filter((item) => item.kind === 'password-reset')).toHaveLength(25);
     } finally {
       await new Promise<void>((resolve) => {
         server.once('exit', () => resolve());

@@ -82,15 +82,16 @@ export function authRoutes(ctx: AppContext, auth: AuthService): Router {
       const meta = requestMeta(req);
       const { email } = res.locals.body;
       // The answer leaves before the address is even looked up, so that it takes the same time
-      // whether or not the address has an account; the link, if any, is queued right after.
-      res.status(202).json({ status: 'sent-if-known' });
-      setImmediate(() => {
+      // whether or not the address has an account; the link, if any, is queued once the answer
+      // has been handed to the connection.
+      res.once('finish', () => {
         try {
           auth.requestPasswordReset(email, meta);
         } catch (error) {
           req.log.error({ err: error, requestId: meta.requestId }, 'password reset request failed');
         }
       });
+      res.status(202).json({ status: 'sent-if-known' });
     },
   );
 
