@@ -52,6 +52,7 @@ const subject: DispositionSubject = {
   concessionRef: null,
   supersedesId: null,
   supersedeReason: null,
+  recurrence: { candidateFindingId: 'finding-0', answer: 'same-damage' },
   limitSet: { id: 'limit-set-1', revision: 'X-1', contentSha256: 'b'.repeat(64) },
 };
 
@@ -91,8 +92,8 @@ describe('the signed content of a disposition (DESIGN §5.5)', () => {
 });
 
 const EXPECTED_TEXT =
-  '{"concession":false,"concessionRef":null,"decision":{"kind":"repeat-inspection","repeatInterval":{"cycles":400,"days":null,"hours":null}},"evaluation":{"beyondAction":null,"category":"repeat-inspection","indeterminate":false,"measuredCategory":"repeat-inspection","reasons":["within-repeat"],"repeatInterval":{"cycles":400,"days":null,"hours":null},"ruleId":"R1"},"finding":{"areaMm2":null,"calibration":{"kind":"reference","lengthMm":10,"p1":[0,0],"p2":[100,0]},"count":null,"damage":"crack","depthMm":null,"id":"finding-1","imageSha256":"aaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaa","inspectionId":"inspection-1","lengthMm":2.5,"maxExtentMm":null,"method":"image","number":3,"perimeterMm":null,"position":7,"row":"hpt1-blade","shape":{"kind":"polyline","points":[[10,20],[30,40]]},"uncertaintyMm":0.125,"uncertaintyMm2":null,"widthMm":null,"zone":"leading-edge"},"limitSet":{"contentSha256":"bbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbb","id":"limit-set-1","revision":"X-1"},"rationale":"Within the repeat band.","supersedeReason":null,"supersedesId":null}';
-const EXPECTED_SHA256 = '96ef82155dac51dd04c5fea3d118c60c496b2743e7c4f194b4e131798723de43';
+  '{"concession":false,"concessionRef":null,"decision":{"kind":"repeat-inspection","repeatInterval":{"cycles":400,"days":null,"hours":null}},"evaluation":{"beyondAction":null,"category":"repeat-inspection","indeterminate":false,"measuredCategory":"repeat-inspection","reasons":["within-repeat"],"repeatInterval":{"cycles":400,"days":null,"hours":null},"ruleId":"R1"},"finding":{"areaMm2":null,"calibration":{"kind":"reference","lengthMm":10,"p1":[0,0],"p2":[100,0]},"count":null,"damage":"crack","depthMm":null,"id":"finding-1","imageSha256":"aaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaaa","inspectionId":"inspection-1","lengthMm":2.5,"maxExtentMm":null,"method":"image","number":3,"perimeterMm":null,"position":7,"row":"hpt1-blade","shape":{"kind":"polyline","points":[[10,20],[30,40]]},"uncertaintyMm":0.125,"uncertaintyMm2":null,"widthMm":null,"zone":"leading-edge"},"limitSet":{"contentSha256":"bbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbbb","id":"limit-set-1","revision":"X-1"},"rationale":"Within the repeat band.","recurrence":{"answer":"same-damage","candidateFindingId":"finding-0"},"supersedeReason":null,"supersedesId":null}';
+const EXPECTED_SHA256 = 'f1884cc21e26d69b495c6706e3922e4f49e1145a4753d8bbc683312664e0a3f4';
 const EXPECTED_HEADER =
-  '{"contentSha256":"96ef82155dac51dd04c5fea3d118c60c496b2743e7c4f194b4e131798723de43","kind":"disposition","meaning":"I decide.","prevSha256":"0000000000000000000000000000000000000000000000000000000000000000","seq":1,"signedAt":"2026-12-03T10:00:00.000Z","signer":{"authorisationRef":"AUTH-1","id":"user-1","name":"Invented Engineer","role":"engineer"},"subjectId":"disposition-1"}';
-const EXPECTED_HEADER_SHA256 = 'b00139798744168b235f87713832e3bcbac23aba1f6c73ff4c315066988269a2';
+  '{"contentSha256":"f1884cc21e26d69b495c6706e3922e4f49e1145a4753d8bbc683312664e0a3f4","kind":"disposition","meaning":"I decide.","prevSha256":"0000000000000000000000000000000000000000000000000000000000000000","seq":1,"signedAt":"2026-12-03T10:00:00.000Z","signer":{"authorisationRef":"AUTH-1","id":"user-1","name":"Invented Engineer","role":"engineer"},"subjectId":"disposition-1"}';
+const EXPECTED_HEADER_SHA256 = '5a1ac2a6243952d95f3f52fecbb5a85320146d77993e8c85d8020568edc41888';

@@ -20,6 +20,7 @@ import { findingsRoutes } from './modules/findings/findings.routes';
 import { limitSetsRoutes } from './modules/limit-sets/limit-sets.routes';
 import { imagesRoutes } from './modules/images/images.routes';
 import { inspectionsRoutes } from './modules/inspections/inspections.routes';
+import { reviewRoutes } from './modules/review/review.routes';
 import { healthRoutes } from './modules/health/health.routes';
 import { installationRoutes } from './modules/installation/installation.routes';
 import { openApiRoutes } from './modules/openapi/openapi.routes';
@@ -55,6 +56,7 @@ export function createApiRouter(ctx: AppContext): Router {
   api.use(outboxRoutes(ctx));
   api.use(auditRoutes(ctx));
   api.use(recordsRoutes(ctx));
+  api.use(reviewRoutes(ctx));
   api.use(calculationsRoutes());
   api.use(openApiRoutes());
   return api;

@@ -144,8 +144,19 @@ export const inspectionSchema = z.object({
   state: inspectionStateSchema,
   flags: z.array(inspectionFlagSchema),
   imageCount: z.number().int(),
-  /** Why an engineer sent it back to draft, until it is submitted again. */
+  /** Why an engineer sent it back to draft, who and when, until it is submitted again. */
   returnedReason: z.string().nullable(),
+  returnedByName: z.string().nullable(),
+  returnedAt: z.string().nullable(),
+  /** When it was last submitted for review. */
+  submittedAt: z.string().nullable(),
+  /** The report revision of its latest release; 0 before the first. */
+  releaseRevision: z.number().int(),
+  /**
+   * Submitted or later, and judged against a limit revision that is no longer the one in force
+   * (DESIGN §5.5): the engineer decides what the newer revision changes.
+   */
+  newerRevisionInForce: z.boolean(),
   createdAt: z.string(),
 });
 export type Inspection = z.infer<typeof inspectionSchema>;
@@ -164,5 +175,7 @@ export const returnToDraftInputSchema = z.strictObject({
     .trim()
     .min(5, { message: 'Say what the inspector should look at again' })
     .max(1000),
+  /** Needed when signed dispositions are withdrawn by sending it back. */
+  password: z.string().max(200).optional(),
 });
 export type ReturnToDraftInput = z.infer<typeof returnToDraftInputSchema>;

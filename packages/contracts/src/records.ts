@@ -6,7 +6,14 @@ import { z } from 'zod';
  */
 export const recordsVerificationSchema = z.object({
   ok: z.boolean(),
-  checked: z.object({ signatures: z.number().int(), auditRows: z.number().int() }),
+  checked: z.object({
+    signatures: z.number().int(),
+    auditRows: z.number().int(),
+    /** Current dispositions compared with the live rows they cover. */
+    dispositions: z.number().int(),
+    /** Originals of signed findings hashed again. */
+    originals: z.number().int(),
+  }),
   /** The last record of the chain, as reports print it, so that a cut-off tail shows. */
   head: z.object({ seq: z.number().int(), sha256: z.string() }).nullable(),
   /** The records key was made inside the data directory: tampering there cannot be detected. */

@@ -94,7 +94,10 @@ export interface DispositionSubject {
   concessionRef: string | null;
   supersedesId: string | null;
   supersedeReason: string | null;
-  limitSet: { id: string; revision: string; contentSha256: string };
+  /** The engineer's answer when an earlier finding looked like the same damage. */
+  recurrence: { candidateFindingId: string; answer: 'same-damage' | 'new-damage' } | null;
+  /** The revision the verdict was judged against; null when none was in force. */
+  limitSet: { id: string; revision: string; contentSha256: string } | null;
 }
 
 const interval = (value: Interval | null) =>
@@ -153,7 +156,11 @@ export function dispositionContent(subject: DispositionSubject) {
     concessionRef: subject.concessionRef,
     supersedesId: subject.supersedesId,
     supersedeReason: subject.supersedeReason,
-    limitSet: {
+    recurrence: subject.recurrence && {
+      candidateFindingId: subject.recurrence.candidateFindingId,
+      answer: subject.recurrence.answer,
+    },
+    limitSet: subject.limitSet && {
       id: subject.limitSet.id,
       revision: subject.limitSet.revision,
       contentSha256: subject.limitSet.contentSha256,

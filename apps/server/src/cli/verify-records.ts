@@ -1,4 +1,4 @@
-// Walks the signature chain of an installation and names every record that does not check out.
+// Walks the signature and audit chains of an installation and names every record that does not check out.
 // Exits 1 on any problem, so that a scheduled run can raise the alarm. Usage: pnpm verify-records
 import fs from 'node:fs';
 import path from 'node:path';
@@ -6,19 +6,21 @@ import { ConfigError, loadConfig } from '../config/env';
 import { openDatabase } from '../db/client';
 import { runMigrations } from '../db/migrate';
 import { createLogger } from '../lib/logger';
+import { createLocalStorage } from '../lib/storage/local-storage';
 import { loadRecordsKey } from '../lib/records/records-key';
 import { createRecordsService } from '../modules/records/records.service';
 
 try {
   const config = loadConfig();
+  const storage = await createLocalStorage(config.dataDir);
   fs.mkdirSync(config.dataDir, { recursive: true });
   const recordsKey = loadRecordsKey(config, createLogger('error', false));
   const handle = openDatabase(path.join(config.dataDir, 'emberline.sqlite'), recordsKey.key);
   runMigrations(handle.db);
-  const result = createRecordsService({ db: handle.db, recordsKey }).verify();
+  const result = await createRecordsService({ db: handle.db, recordsKey, storage }).verify();
   handle.close();
   console.log(
-    `Checked ${result.checked.signatures} signatures and ${result.checked.auditRows} audit rows in ${config.dataDir}; signature chain head ${
+    `Checked ${result.checked.signatures} signatures, ${result.checked.auditRows} audit rows, ${result.checked.dispositions} current dispositions and ${result.checked.originals} signed originals in ${config.dataDir}; signature chain head ${
       result.head ? `${result.head.seq} ${result.head.sha256}` : 'none (no signature yet)'
     }.`,
   );

@@ -268,8 +268,17 @@ export const inspections = sqliteTable(
     rows: text({ mode: 'json' }).notNull().$type<string[]>(),
     state: text({ enum: ['draft', 'submitted', 'dispositioned', 'released'] }).notNull(),
     flags: text({ mode: 'json' }).notNull().$type<StoredFlag[]>(),
-    /** Why an engineer last sent it back to draft; cleared when it is submitted again. */
+    /** Why an engineer last sent it back to draft, who and when; kept until it is submitted again. */
     returnedReason: text(),
+    returnedBy: text().references(() => users.id),
+    returnedAt: integer({ mode: 'timestamp_ms' }),
+    /** When it was last submitted, and the limit revision it keeps from then on (DESIGN §5.5). */
+    submittedAt: integer({ mode: 'timestamp_ms' }),
+    limitSetId: text().references(() => limitSets.id),
+    /** The signature of the current outcome, and of the current release with its revision. */
+    outcomeSignatureId: text(),
+    releaseSignatureId: text(),
+    releaseRevision: integer().notNull().default(0),
     createdBy: text()
       .notNull()
       .references(() => users.id),
@@ -569,4 +578,44 @@ export const signatures = sqliteTable(
     mac: text().notNull(),
   },
   (table) => [index('signatures_subject_idx').on(table.kind, table.subjectId)],
+);
+
+/**
+ * An engineer's signed decision on one recorded finding (DESIGN §5.5). Rows are only added; the
+ * one column that changes is `state`, once, from `current` to `superseded` or `withdrawn`
+ * (db/triggers.ts). The signature row holds what was signed.
+ */
+export const dispositions = sqliteTable(
+  'dispositions',
+  {
+    id: text().primaryKey(),
+    findingId: text()
+      .notNull()
+      .references(() => findings.id),
+    inspectionId: text()
+      .notNull()
+      .references(() => inspections.id),
+    decision: text({ mode: 'json' }).notNull().$type<Record<string, unknown>>(),
+    kind: text({ enum: ['serviceable', 'repeat-inspection', 'remove'] }).notNull(),
+    rationale: text().notNull(),
+    concession: integer({ mode: 'boolean' }).notNull(),
+    concessionRef: text(),
+    supersedesId: text(),
+    supersedeReason: text(),
+    /** The earlier finding the engineer confirmed as the same damage, or null. */
+    recurrence: text({ mode: 'json' }).$type<{
+      candidateFindingId: string;
+      answer: 'same-damage' | 'new-damage';
+    }>(),
+    state: text({ enum: ['current', 'superseded', 'withdrawn'] }).notNull(),
+    signatureId: text().notNull(),
+    signedBy: text()
+      .notNull()
+      .references(() => users.id),
+    signedAt: integer({ mode: 'timestamp_ms' }).notNull(),
+  },
+  (table) => [
+    index('dispositions_finding_idx').on(table.findingId),
+    index('dispositions_inspection_idx').on(table.inspectionId, table.state),
+  ],
 );

@@ -25,6 +25,54 @@ const limitSetContent = [
   'created_at',
 ];
 
+/*
+ * Locks of a submitted inspection (DESIGN §5.5): its particulars, images, findings and coverage
+ * refuse change until an engineer sends it back to draft. A message starting `locked:` reaches the
+ * user as a 409 in these words (middleware/error-handler.ts).
+ */
+const locked =
+  "SELECT RAISE(ABORT, 'locked: this inspection has been submitted for review and is locked; an engineer can send it back to draft')";
+const stateOf = (column: string) =>
+  `(SELECT state FROM inspections WHERE id = ${column}) <> 'draft'`;
+
+/** The particulars of an inspection: every column but its review state and the review's marks. */
+const inspectionParticulars = [
+  'id',
+  'engine_id',
+  'date',
+  'reason',
+  'reason_detail',
+  'csn',
+  'tsn',
+  'inspector_name',
+  'qualification_ref',
+  'qualification_expires_on',
+  'probe',
+  'probe_calibration_due_on',
+  'rows',
+  'flags',
+  'created_by',
+  'created_at',
+];
+
+/** Every column of a disposition but its state, which changes once, from current. */
+const dispositionContent = [
+  'id',
+  'finding_id',
+  'inspection_id',
+  'decision',
+  'kind',
+  'rationale',
+  'concession',
+  'concession_ref',
+  'supersedes_id',
+  'supersede_reason',
+  'recurrence',
+  'signature_id',
+  'signed_by',
+  'signed_at',
+];
+
 export const triggers: Record<string, string> = {
   audit_log_no_update: `BEFORE UPDATE ON audit_log BEGIN SELECT RAISE(ABORT, 'audit_log is append-only'); END`,
   audit_log_no_delete: `BEFORE DELETE ON audit_log BEGIN SELECT RAISE(ABORT, 'audit_log is append-only'); END`,
@@ -52,6 +100,23 @@ export const triggers: Record<string, string> = {
   signatures_no_delete: `BEFORE DELETE ON signatures BEGIN SELECT RAISE(ABORT, 'signatures are append-only'); END`,
   findings_no_delete: `BEFORE DELETE ON findings
     BEGIN SELECT RAISE(ABORT, 'findings are voided with a reason, never deleted'); END`,
+  inspections_locked: `BEFORE UPDATE ON inspections WHEN OLD.state <> 'draft' AND NOT (
+      ${inspectionParticulars.map((column) => `NEW.${column} IS OLD.${column}`).join(' AND ')}
+    ) BEGIN ${locked}; END`,
+  images_locked_insert: `BEFORE INSERT ON images WHEN ${stateOf('NEW.inspection_id')} BEGIN ${locked}; END`,
+  images_locked_update: `BEFORE UPDATE ON images WHEN ${stateOf('OLD.inspection_id')} BEGIN ${locked}; END`,
+  images_locked_delete: `BEFORE DELETE ON images WHEN ${stateOf('OLD.inspection_id')} BEGIN ${locked}; END`,
+  findings_locked_insert: `BEFORE INSERT ON findings WHEN ${stateOf('NEW.inspection_id')} BEGIN ${locked}; END`,
+  findings_locked_update: `BEFORE UPDATE ON findings WHEN ${stateOf('OLD.inspection_id')} BEGIN ${locked}; END`,
+  row_coverage_locked_insert: `BEFORE INSERT ON row_coverage WHEN ${stateOf('NEW.inspection_id')} BEGIN ${locked}; END`,
+  row_coverage_locked_update: `BEFORE UPDATE ON row_coverage WHEN ${stateOf('OLD.inspection_id')} BEGIN ${locked}; END`,
+  row_coverage_locked_delete: `BEFORE DELETE ON row_coverage WHEN ${stateOf('OLD.inspection_id')} BEGIN ${locked}; END`,
+  dispositions_no_delete: `BEFORE DELETE ON dispositions
+    BEGIN SELECT RAISE(ABORT, 'dispositions are superseded or withdrawn, never deleted'); END`,
+  dispositions_state_only: `BEFORE UPDATE ON dispositions WHEN NOT (
+      OLD.state = 'current' AND NEW.state IN ('superseded', 'withdrawn') AND
+      ${dispositionContent.map((column) => `NEW.${column} IS OLD.${column}`).join(' AND ')}
+    ) BEGIN SELECT RAISE(ABORT, 'a signed disposition cannot change; supersede it with a new one'); END`,
 };
 
 /**

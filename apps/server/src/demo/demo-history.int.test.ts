@@ -94,4 +94,33 @@ describe('the demo history', () => {
       ).status,
     ).toBe(404);
   });
+
+  it('signs the released inspections of VT3-D0103 through the review service, and leaves VT3-D0201 to the reviewer', async () => {
+    for (const id of ['inspection-d0103-h1', 'inspection-d0103-h2']) {
+      const review = await request(t.app)
+        .get(`/api/v1/inspections/${id}/dispositions`)
+        .set('Cookie', engineer);
+      expect(review.body.left.findings).toEqual([]);
+      expect(review.body.items.length).toBeGreaterThan(0);
+      for (const item of review.body.items)
+        expect(item.signature).toMatchObject({
+          signerName: 'Anselm Ruddock',
+          authorisationRef: 'DEMO-AUTH-E-0087',
+        });
+      expect(review.body.releases).toEqual([
+        expect.objectContaining({ revision: 1, current: true }),
+      ]);
+    }
+    const queue = await request(t.app).get('/api/v1/review-queue').set('Cookie', engineer);
+    expect(
+      queue.body.items.map((item: { inspection: { id: string } }) => item.inspection.id),
+    ).toEqual(['inspection-d0201-demo']);
+    expect(queue.body.items[0].worstVerdict).toBe('beyond-limits');
+    const admin = await t.signIn(demoAccounts.admin);
+    const verification = await request(t.app)
+      .get('/api/v1/records/verification')
+      .set('Cookie', admin);
+    expect(verification.body).toMatchObject({ ok: true, problems: [] });
+    expect(verification.body.checked.dispositions).toBeGreaterThan(0);
+  });
 });

@@ -12,10 +12,13 @@ import { processImage, rasteriseSvg, type ProcessedImage } from '../lib/images/i
 import { appendAudit } from '../modules/audit/audit.repository';
 import { createCoverageService } from '../modules/coverage/coverage.service';
 import { createFindingsService } from '../modules/findings/findings.service';
+import { createInspectionsService } from '../modules/inspections/inspections.service';
+import { createReviewService } from '../modules/review/review.service';
+import { defaultDecision } from '@emberline/domain/decisions';
+import { dispositionInputSchema, outcomeInputSchema } from '@emberline/contracts/review';
 import { insertImage } from '../modules/images/images.repository';
 import {
   insertInspection,
-  setInspectionState,
 } from '../modules/inspections/inspections.repository';
 import {
   borescopeScene,
@@ -403,8 +406,12 @@ function demoPrincipal(id: string): Principal {
 export async function loadDemoHistory(ctx: AppContext): Promise<void> {
   const today = ctx.now().toISOString().slice(0, 10);
   const inspector = demoPrincipal('user-inspector');
+  const signer = demoPrincipal('user-engineer2');
   const findings = createFindingsService(ctx);
   const coverage = createCoverageService(ctx);
+  const inspections = createInspectionsService(ctx);
+  // The demo loader is trusted code that signs for an invented engineer: no password to ask.
+  const review = createReviewService(ctx, { confirmPassword: async () => {} });
   const recorded = new Map<string, string>();
 
   // Every still is rendered and processed first, a few at a time: rendering dominates the load.
@@ -496,17 +503,35 @@ export async function loadDemoHistory(ctx: AppContext): Promise<void> {
     for (const [row, rowCoverage] of Object.entries(spec.coverage))
       coverage.record(inspector, spec.id, row, coverageInputSchema.parse(rowCoverage), loader);
 
-    if (spec.state !== 'draft') {
-      inTransaction(ctx.db, (tx) => {
-        setInspectionState(tx, spec.id, spec.state, null);
-        appendAudit(tx, ctx.now(), {
-          actorUserId: null,
-          action: 'demo.inspection-state',
-          entityType: 'inspection',
-          entityId: spec.id,
-          after: { state: spec.state },
-        });
-      });
+    // Submitted, dispositioned and released through the same services as a person would: the
+    // signatures and the audit rows they leave verify like any other. Recorded by the inspector,
+    // signed by another person (DESIGN §5.5, separation of duties).
+    if (spec.state !== 'draft') inspections.submit(inspector, spec.id, loader);
+    if (spec.state === 'released') {
+      for (const finding of findings.list(inspector, spec.id).items) {
+        if (finding.status !== 'recorded') continue;
+        const decision = finding.evaluation && defaultDecision(finding.evaluation);
+        await review.dispose(
+          signer,
+          finding.id,
+          dispositionInputSchema.parse({
+            decision: decision ?? { kind: 'serviceable' },
+            rationale: decision
+              ? 'As the verdict calls for under the invented demo limits.'
+              : 'Reviewed on the image: no limit applies (invented demo decision).',
+            concessionRef: decision ? null : 'DEMO-CONCESSION-001 (invented)',
+            password: 'not asked of the demo loader',
+          }),
+          loader,
+        );
+      }
+      await review.outcome(
+        signer,
+        spec.id,
+        outcomeInputSchema.parse({ password: 'not asked of the demo loader' }),
+        loader,
+      );
+      await review.release(signer, spec.id, 'not asked of the demo loader', loader);
     }
   }
   inTransaction(ctx.db, (tx) => {

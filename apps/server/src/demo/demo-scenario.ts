@@ -5,7 +5,7 @@ import { appendAudit } from '../modules/audit/audit.repository';
 import { insertOrganisation } from '../modules/organisations/organisations.repository';
 import { insertUser } from '../modules/users/users.repository';
 import { addDays } from '@emberline/domain/dates';
-import { demoEngines, loadDemoFleet } from './demo-fleet';
+import { DEMO_MODEL_ID, demoEngines, loadDemoFleet } from './demo-fleet';
 import { loadDemoLimits } from './demo-limits';
 
 /** The password of every demo account. */
@@ -50,6 +50,20 @@ export const demoUsers: {
     organisationId: 'org-home',
   },
   {
+    id: 'user-engineer2',
+    email: 'engineer2@demo.test',
+    name: 'Anselm Ruddock',
+    role: 'engineer',
+    organisationId: 'org-home',
+  },
+  {
+    id: 'user-inspector2',
+    email: 'inspector2@demo.test',
+    name: 'Greta Solberg',
+    role: 'inspector',
+    organisationId: 'org-home',
+  },
+  {
     id: 'user-planner',
     email: 'planner@demo.test',
     name: 'Jonah Whitlaw',
@@ -72,6 +86,37 @@ export const demoUsers: {
   },
 ];
 
+/**
+ * The invented authorisations of the demo engineers and qualifications of the demo inspectors,
+ * recorded as the demo administrator would (DESIGN §5.5: signing needs a current authorisation).
+ */
+function demoCredentials(userId: string, today: string) {
+  switch (userId) {
+    case 'user-engineer':
+      return {
+        authorisation: {
+          ref: 'DEMO-AUTH-E-0112',
+          models: [DEMO_MODEL_ID],
+          expiresOn: addDays(today, 400),
+        },
+      };
+    case 'user-engineer2':
+      return {
+        authorisation: {
+          ref: 'DEMO-AUTH-E-0087',
+          models: [DEMO_MODEL_ID],
+          expiresOn: addDays(today, 250),
+        },
+      };
+    case 'user-inspector':
+      return { qualification: { ref: 'DEMO-BSI-L2-0457', expiresOn: addDays(today, 300) } };
+    case 'user-inspector2':
+      return { qualification: { ref: 'DEMO-BSI-L2-0519', expiresOn: addDays(today, 500) } };
+    default:
+      return {};
+  }
+}
+
 /** Loads the demo scenario into an empty database, in one transaction. */
 export async function loadDemoScenario(
   db: Db,
@@ -83,12 +128,14 @@ export async function loadDemoScenario(
   inTransaction(db, (tx) => {
     for (const organisation of demoOrganisations)
       insertOrganisation(tx, { ...organisation, createdAt: options.now });
+    const today = options.now.toISOString().slice(0, 10);
     demoUsers.forEach((user) => {
       insertUser(tx, {
         ...user,
         passwordHash: hash,
         passwordChangedAt: options.now,
         createdAt: options.now,
+        ...demoCredentials(user.id, today),
       });
     });
     loadDemoFleet(tx, options.now);

@@ -4,7 +4,8 @@ import type { Principal } from './principal';
 /**
  * The one record-level access rule (the customer tenancy rule), on top of the route's permission:
  * a caller holding `read:all-organisations` sees every record; anyone else sees only their own
- * organisation's engines, and of its inspections only the released ones. A record the caller may
+ * organisation's engines, and of its inspections only those released at least once (a
+ * correction after release keeps the earlier release in view until the next one). A record the caller may
  * not see answers 404, never the record.
  */
 export interface RecordScope {
@@ -33,11 +34,11 @@ export function seesOrganisationRecord(
 /** Whether the caller may see an inspection, and what belongs to it (images, findings, reports). */
 export function seesInspection(
   principal: Principal,
-  inspection: { organisationId: string; state: string },
+  inspection: { organisationId: string; releaseRevision: number },
 ): boolean {
   const scope = recordScope(principal);
   return (
     seesOrganisationRecord(principal, inspection) &&
-    (!scope.releasedOnly || inspection.state === 'released')
+    (!scope.releasedOnly || inspection.releaseRevision > 0)
   );
 }

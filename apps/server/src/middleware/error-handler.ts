@@ -10,8 +10,18 @@ interface HttpishError {
   expose?: boolean;
 }
 
+/** A lock SQLite enforced (db/triggers.ts): a change to a submitted inspection, in words. */
+function fromLockTrigger(error: { code?: unknown; message?: unknown }): AppError | null {
+  if (error.code !== 'SQLITE_CONSTRAINT_TRIGGER' || typeof error.message !== 'string') return null;
+  if (!error.message.startsWith('locked: ')) return null;
+  const words = error.message.slice('locked: '.length);
+  return AppError.conflict(`${words.charAt(0).toUpperCase()}${words.slice(1)}.`);
+}
+
 /** Errors thrown by body parsing and similar middleware, mapped into AppErrors. */
 function fromMiddleware(error: HttpishError): AppError | null {
+  const lock = fromLockTrigger(error as { code?: unknown; message?: unknown });
+  if (lock) return lock;
   switch (error.type) {
     case 'entity.too.large':
       return new AppError(413, 'payload_too_large', 'The request is too large');

@@ -1,14 +1,6 @@
 import { roleLabels, type Role } from '@emberline/contracts/roles';
+import { mailLayout as layout } from '../../lib/email/layout';
 import type { MailContent } from '../../lib/email/outbox';
-
-function escapeHtml(value: string): string {
-  return value.replace(/[&<>"']/g, (char) => `&#${char.charCodeAt(0)};`);
-}
-
-function layout(paragraphs: string[], link: { href: string; label: string }): string {
-  const body = paragraphs.map((text) => `<p>${escapeHtml(text)}</p>`).join('');
-  return `<!doctype html><html><body style="font-family:system-ui,sans-serif;color:#1c1917">${body}<p><a href="${escapeHtml(link.href)}">${escapeHtml(link.label)}</a></p></body></html>`;
-}
 
 export function invitationEmail(input: {
   to: string;

@@ -24,9 +24,9 @@ import { passwordResetEmail } from './auth-emails';
 import {
   clearFailures,
   countFailuresSince,
-  pruneFailures,
   recordFailures,
 } from './login-failures.repository';
+import { assertNotThrottled, countFailure } from './password-check';
 import { hashPassword, verifyPassword } from './passwords';
 import { signSessionToken, verifySessionToken } from './session-token';
 import {
@@ -85,38 +85,15 @@ export function createAuthService(ctx: AppContext) {
     return { user: toSessionUser(user), token, expiresAt };
   }
 
-  function assertNotThrottled(email: string, ip: string, meta: RequestMeta): void {
-    const since = new Date(ctx.now().getTime() - config.loginWindowMs);
-    const accountFailures = countFailuresSince(db, `account:${email}`, since);
-    const ipFailures = countFailuresSince(db, `ip:${ip}`, since);
-    if (accountFailures >= config.loginMaxFailures || ipFailures >= config.loginMaxFailuresPerIp) {
-      logger.warn(
-        { email, ip, requestId: meta.requestId, at: ctx.now().toISOString() },
-        'sign-in throttled',
-      );
-      const minutes = Math.round(config.loginWindowMs / 60_000);
-      throw new AppError(
-        429,
-        'too_many_attempts',
-        `Too many failed sign-ins. Wait ${minutes} minutes and try again, or reset your password.`,
-        undefined,
-        { 'Retry-After': String(Math.round(config.loginWindowMs / 1000)) },
-      );
-    }
-  }
-
   return {
     async login(input: LoginInput, meta: RequestMeta): Promise<IssuedSession> {
       // Checked before bcrypt: bcryptjs is pure JavaScript, and a flood must not reach it.
-      assertNotThrottled(input.email, meta.ip, meta);
+      assertNotThrottled(ctx, input.email, meta);
       const user = findUserByEmail(db, input.email);
       const passwordMatches = await verifyPassword(input.password, user?.passwordHash ?? null);
       if (!user || !passwordMatches || user.disabledAt) {
         const now = ctx.now();
-        inTransaction(db, (tx) => {
-          pruneFailures(tx, new Date(now.getTime() - config.loginWindowMs));
-          recordFailures(tx, [`account:${input.email}`, `ip:${meta.ip}`], now);
-        });
+        countFailure(ctx, input.email, meta);
         logger.warn(
           {
             email: input.email,

@@ -485,7 +485,10 @@ export function createFindingsService(ctx: AppContext) {
       const { organisationId } = visibleInspection(db, principal, finding.inspectionId);
       return seriesFindings(db, finding.seriesId)
         .filter((entry) =>
-          seesInspection(principal, { organisationId, state: entry.inspection.state }),
+          seesInspection(principal, {
+            organisationId,
+            releaseRevision: entry.inspection.releaseRevision,
+          }),
         )
         .map(toSeriesEntry);
     },

@@ -1,12 +1,16 @@
-import { and, count, desc, eq, ne, type SQL } from 'drizzle-orm';
+import { and, count, desc, eq, gt, sql, type SQL } from 'drizzle-orm';
 import type { DbOrTx } from '../../db/client';
-import { engines, images, inspections } from '../../db/schema';
+import { engines, images, inspections, users } from '../../db/schema';
 
 export type InspectionRecord = typeof inspections.$inferSelect;
 export type InspectionRow = InspectionRecord & {
   engineSerialNumber: string;
   organisationId: string;
+  modelId: string;
   imageCount: number;
+  returnedByName: string | null;
+  /** The revision in force for the engine's model now. */
+  inForceLimitSetId: string | null;
 };
 
 function selectInspections(db: DbOrTx, where: SQL | undefined) {
@@ -20,11 +24,17 @@ function selectInspections(db: DbOrTx, where: SQL | undefined) {
       inspection: inspections,
       engineSerialNumber: engines.serialNumber,
       organisationId: engines.organisationId,
+      modelId: engines.modelId,
       imageCount: counts.n,
+      returnedByName: users.name,
+      inForceLimitSetId: sql<
+        string | null
+      >`(SELECT ls.id FROM limit_sets ls WHERE ls.model_id = ${engines.modelId} AND ls.status = 'published')`,
     })
     .from(inspections)
     .innerJoin(engines, eq(engines.id, inspections.engineId))
     .leftJoin(counts, eq(counts.inspectionId, inspections.id))
+    .leftJoin(users, eq(users.id, inspections.returnedBy))
     .where(where)
     .orderBy(desc(inspections.date), desc(inspections.createdAt))
     .all()
@@ -32,7 +42,10 @@ function selectInspections(db: DbOrTx, where: SQL | undefined) {
       ...row.inspection,
       engineSerialNumber: row.engineSerialNumber,
       organisationId: row.organisationId,
+      modelId: row.modelId,
       imageCount: row.imageCount ?? 0,
+      returnedByName: row.returnedByName,
+      inForceLimitSetId: row.inForceLimitSetId,
     }));
 }
 
@@ -43,7 +56,7 @@ export function listInspections(
   const conditions: SQL[] = [];
   if (filter.engineId) conditions.push(eq(inspections.engineId, filter.engineId));
   if (filter.organisationId) conditions.push(eq(engines.organisationId, filter.organisationId));
-  if (filter.releasedOnly) conditions.push(eq(inspections.state, 'released'));
+  if (filter.releasedOnly) conditions.push(gt(inspections.releaseRevision, 0));
   return selectInspections(db, conditions.length ? and(...conditions) : undefined);
 }
 
@@ -55,13 +68,29 @@ export function insertInspection(db: DbOrTx, row: typeof inspections.$inferInser
   db.insert(inspections).values(row).run();
 }
 
+/** A review step: the new state and the marks it sets (submission, return, outcome, release). */
 export function setInspectionState(
   db: DbOrTx,
   id: string,
   state: InspectionRecord['state'],
-  returnedReason: string | null,
+  marks: Partial<
+    Pick<
+      InspectionRecord,
+      | 'returnedReason'
+      | 'returnedBy'
+      | 'returnedAt'
+      | 'submittedAt'
+      | 'limitSetId'
+      | 'outcomeSignatureId'
+      | 'releaseSignatureId'
+      | 'releaseRevision'
+    >
+  > = {},
 ): void {
-  db.update(inspections).set({ state, returnedReason }).where(eq(inspections.id, id)).run();
+  db.update(inspections)
+    .set({ state, ...marks })
+    .where(eq(inspections.id, id))
+    .run();
 }
 
 export function updateInspectionFlags(
@@ -72,13 +101,16 @@ export function updateInspectionFlags(
   db.update(inspections).set({ flags }).where(eq(inspections.id, id)).run();
 }
 
-/** Inspections of a model's engines that are not released: their findings are still open. */
-export function openInspectionIds(db: DbOrTx, modelId: string): string[] {
+/**
+ * The drafts of a model's engines: the inspections a newly published revision judges again. From
+ * submission on an inspection keeps the revision it was judged against (DESIGN §5.5).
+ */
+export function draftInspectionIds(db: DbOrTx, modelId: string): string[] {
   return db
     .select({ id: inspections.id })
     .from(inspections)
     .innerJoin(engines, eq(engines.id, inspections.engineId))
-    .where(and(eq(engines.modelId, modelId), ne(inspections.state, 'released')))
+    .where(and(eq(engines.modelId, modelId), eq(inspections.state, 'draft')))
     .all()
     .map((row) => row.id);
 }

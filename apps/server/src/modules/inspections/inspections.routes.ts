@@ -6,7 +6,6 @@ import {
   inspectionInputSchema,
   inspectionListQuerySchema,
   inspectionListResponseSchema,
-  returnToDraftInputSchema,
 } from '@emberline/contracts/inspections';
 import { z } from 'zod';
 import { idParamsSchema } from '@emberline/contracts/users';
@@ -92,27 +91,6 @@ export function inspectionsRoutes(ctx: AppContext): Router {
     },
     (req, res) => {
       res.json(inspections.submit(principalOf(res), res.locals.params.id, requestMeta(req)));
-    },
-  );
-
-  route(
-    router,
-    'POST /inspections/:id/return',
-    {
-      summary: 'Send a submitted inspection back to draft, with the reason',
-      params: idParamsSchema,
-      body: returnToDraftInputSchema,
-      response: inspectionDetailSchema,
-    },
-    (req, res) => {
-      res.json(
-        inspections.returnToDraft(
-          principalOf(res),
-          res.locals.params.id,
-          res.locals.body.reason,
-          requestMeta(req),
-        ),
-      );
     },
   );
 

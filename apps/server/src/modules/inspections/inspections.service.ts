@@ -14,8 +14,11 @@ import { newId } from '../../lib/ids';
 import { appendAudit } from '../audit/audit.repository';
 import { listModelRows } from '../engine-models/engine-models.repository';
 import { createEnginesService } from '../engines/engines.service';
+import { listFindings } from '../findings/findings.repository';
 import { listImages } from '../images/images.repository';
+import { publishedLimitSet } from '../limit-sets/limit-sets.repository';
 import { toImage } from '../images/image-view';
+import { alertBeyondLimits } from '../review/review-alerts';
 import { listUtilization } from '../utilization/utilization.repository';
 import { draftInspection, visibleInspection } from './inspection-access';
 import {
@@ -48,6 +51,15 @@ export function toInspection(row: InspectionRow): Inspection {
     flags: row.flags as InspectionFlag[],
     imageCount: row.imageCount,
     returnedReason: row.returnedReason,
+    returnedByName: row.returnedReason ? row.returnedByName : null,
+    returnedAt: row.returnedReason && row.returnedAt ? row.returnedAt.toISOString() : null,
+    submittedAt: row.submittedAt?.toISOString() ?? null,
+    releaseRevision: row.releaseRevision,
+    newerRevisionInForce:
+      row.state !== 'draft' &&
+      row.limitSetId !== null &&
+      row.inForceLimitSetId !== null &&
+      row.limitSetId !== row.inForceLimitSetId,
     createdAt: row.createdAt.toISOString(),
   };
 }
@@ -176,45 +188,32 @@ export function createInspectionsService(ctx: AppContext) {
           'An inspection goes for review with its images: upload at least one first.',
         );
       const now = ctx.now();
+      const engine = engines.visibleEngine(principal, inspection.engineId);
+      // From submission on, the inspection keeps the revision it was judged against.
+      const judgedAgainst =
+        listFindings(db, id).find((finding) => finding.status === 'recorded' && finding.limitSetId)
+          ?.limitSetId ??
+        publishedLimitSet(db, engine.modelId)?.id ??
+        null;
       inTransaction(db, (tx) => {
-        setInspectionState(tx, id, 'submitted', null);
+        setInspectionState(tx, id, 'submitted', {
+          submittedAt: now,
+          limitSetId: judgedAgainst,
+          returnedReason: null,
+          returnedBy: null,
+          returnedAt: null,
+        });
         appendAudit(tx, now, {
           actorUserId: principal.user.id,
           action: 'inspection.submitted',
           entityType: 'inspection',
           entityId: id,
           before: { state: 'draft' },
-          after: { state: 'submitted' },
+          after: { state: 'submitted', limitSetId: judgedAgainst },
           requestId: meta.requestId,
           ip: meta.ip,
         });
-      });
-      return this.detail(principal, id);
-    },
-
-    /** An engineer sends a submitted inspection back to draft, saying why. */
-    returnToDraft(
-      principal: Principal,
-      id: string,
-      reason: string,
-      meta: RequestMeta,
-    ): InspectionDetail {
-      const inspection = visibleInspection(db, principal, id);
-      if (inspection.state !== 'submitted')
-        throw AppError.conflict('Only a submitted inspection can be sent back to draft.');
-      const now = ctx.now();
-      inTransaction(db, (tx) => {
-        setInspectionState(tx, id, 'draft', reason);
-        appendAudit(tx, now, {
-          actorUserId: principal.user.id,
-          action: 'inspection.returned-to-draft',
-          entityType: 'inspection',
-          entityId: id,
-          before: { state: 'submitted' },
-          after: { state: 'draft', reason },
-          requestId: meta.requestId,
-          ip: meta.ip,
-        });
+        alertBeyondLimits(ctx, tx, findInspection(tx, id)!, principal.user.name);
       });
       return this.detail(principal, id);
     },

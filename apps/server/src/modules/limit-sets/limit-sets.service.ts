@@ -12,12 +12,12 @@ import { ruleProblems, validateRuleZones, validateRules } from '@emberline/domai
 import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction } from '../../db/client';
 import { AppError } from '../../http/app-error';
-import { appendSignature } from '../records/records.service';
+import { appendSignature } from '../records/signature-writer';
 import type { Principal } from '../../http/principal';
 import { canonicalSha256 } from '../../lib/canonical';
 import { newId } from '../../lib/ids';
 import { appendAudit } from '../audit/audit.repository';
-import { verifyPassword } from '../auth/passwords';
+import { confirmPassword } from '../auth/password-check';
 import { findEngineModel, listModelRows } from '../engine-models/engine-models.repository';
 import {
   currentFindings,
@@ -25,8 +25,7 @@ import {
   listCurrentInspections,
 } from '../findings/findings.repository';
 import { evaluateInspection } from '../findings/inspection-evaluation';
-import { openInspectionIds } from '../inspections/inspections.repository';
-import { findUserById } from '../users/users.repository';
+import { draftInspectionIds } from '../inspections/inspections.repository';
 import {
   findLimitSet,
   insertLimitSet,
@@ -326,8 +325,9 @@ export function createLimitSetsService(ctx: AppContext) {
 
     /**
      * Puts a draft in force: the engineer's password again, the SHA-256 of the canonical JSON of
-     * the revision recorded, the revision in force superseded, and every open inspection of the
-     * model's engines judged again against the new one.
+     * the revision recorded, the revision in force superseded, and every draft inspection of the
+     * model's engines judged again against the new one; submitted and later ones keep their
+     * revision and show that a newer one is in force.
      */
     async publish(
       principal: Principal,
@@ -336,19 +336,14 @@ export function createLimitSetsService(ctx: AppContext) {
       meta: RequestMeta,
     ): Promise<LimitSet> {
       const row = draft(id);
-      const user = findUserById(db, principal.user.id);
-      if (!(await verifyPassword(password, user?.passwordHash ?? null)))
-        throw AppError.unprocessable('That is not your password: publishing needs it again', {
-          fields: { password: ['Not your password'] },
-          form: [],
-        });
+      await confirmPassword(ctx, principal, password, meta, 'publishing needs it again');
       const rules = listRules(db, id);
       if (rules.length === 0)
         throw AppError.unprocessable('A revision without rules cannot be published');
       checkRules(row.modelId, rules);
       const contentSha256 = canonicalSha256(limitSetContent(row, rules));
       const now = ctx.now();
-      const reopened = openInspectionIds(db, row.modelId);
+      const reopened = draftInspectionIds(db, row.modelId);
       inTransaction(db, (tx) => {
         publishLimitSet(tx, id, row.modelId, { at: now, by: principal.user.id, contentSha256 });
         const signature = appendSignature(ctx, tx, {

@@ -6,7 +6,7 @@ import { rawConnection, inTransaction } from '../../db/client';
 import { signatureHeader } from '@emberline/domain/signature-content';
 import { demoAccounts, DEMO_PASSWORD, startTestApp, type TestApp } from '../../../test/test-app';
 import { DEMO_DRAFT_LIMIT_SET_ID } from '../../demo/demo-limits';
-import { appendSignature } from './records.service';
+import { appendSignature } from './signature-writer';
 import { macOf } from './signature-chain';
 import { runMigrations } from '../../db/migrate';
 import { appendAudit } from '../audit/audit.repository';

@@ -1,4 +1,4 @@
-import { asc, desc, gt } from 'drizzle-orm';
+import { and, asc, desc, eq, gt, inArray } from 'drizzle-orm';
 import type { DbOrTx } from '../../db/client';
 import { signatures } from '../../db/schema';
 import type { SignatureRecord } from './signature-chain';
@@ -26,5 +26,29 @@ export function listSignaturesAfter(db: DbOrTx, seq: number, limit: number): Sig
     .where(gt(signatures.seq, seq))
     .orderBy(asc(signatures.seq))
     .limit(limit)
+    .all() as SignatureRecord[];
+}
+
+export function findSignatures(db: DbOrTx, ids: readonly string[]): SignatureRecord[] {
+  if (ids.length === 0) return [];
+  return db
+    .select()
+    .from(signatures)
+    .where(inArray(signatures.id, [...ids]))
+    .orderBy(asc(signatures.seq))
+    .all() as SignatureRecord[];
+}
+
+/** The signatures of one kind about one subject (an inspection's outcomes, say), oldest first. */
+export function signaturesOf(
+  db: DbOrTx,
+  kind: SignatureRecord['kind'],
+  subjectId: string,
+): SignatureRecord[] {
+  return db
+    .select()
+    .from(signatures)
+    .where(and(eq(signatures.kind, kind), eq(signatures.subjectId, subjectId)))
+    .orderBy(asc(signatures.seq))
     .all() as SignatureRecord[];
 }

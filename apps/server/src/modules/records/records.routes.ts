@@ -11,11 +11,12 @@ export function recordsRoutes(ctx: AppContext): Router {
     router,
     'GET /records/verification',
     {
-      summary: 'Walk the signature chain: every record present, hashed and sealed as signed',
+      summary:
+        'Walk both chains, compare signed dispositions with their rows and re-hash signed originals',
       response: recordsVerificationSchema,
     },
-    (_req, res) => {
-      res.json(records.verify());
+    async (_req, res) => {
+      res.json(await records.verify());
     },
   );
   return router;

@@ -1,41 +1,15 @@
 import type { RecordsVerification } from '@emberline/contracts/records';
-import type { SignatureKind } from '@emberline/contracts/review';
-import { GENESIS_SHA256, type Signer } from '@emberline/domain/signature-content';
+import { GENESIS_SHA256 } from '@emberline/domain/signature-content';
 import type { AppContext } from '../../context';
-import type { DbOrTx } from '../../db/client';
-import { newId } from '../../lib/ids';
 import { auditRowHash } from '../../lib/records/audit-hash';
 import { listAuditChainAfter, listUnchainedAudit } from '../audit/audit.repository';
-import { insertSignature, lastSignature, listSignaturesAfter } from './records.repository';
-import {
-  checkSignatureChain,
-  macOf,
-  sealSignature,
-  type RecordProblem,
-  type SignatureRecord,
-} from './signature-chain';
+import { checkSignedDispositions } from '../review/disposition-check';
+import { listSignaturesAfter } from './records.repository';
+import { checkSignatureChain, macOf, type RecordProblem } from './signature-chain';
 
 const PAGE = 500;
 
-/**
- * Appends a signature to the chain inside the caller's transaction (a `BEGIN IMMEDIATE` one, so
- * that no other writer takes the same `seq`): the signature exists exactly when what it signs does.
- */
-export function appendSignature(
-  ctx: Pick<AppContext, 'recordsKey' | 'now'>,
-  tx: DbOrTx,
-  input: { kind: SignatureKind; subjectId: string; signer: Signer; content: unknown },
-): SignatureRecord {
-  const record = sealSignature(
-    lastSignature(tx),
-    { ...input, id: newId(), signedAt: ctx.now() },
-    ctx.recordsKey.key,
-  );
-  insertSignature(tx, record);
-  return record;
-}
-
-export function createRecordsService(ctx: Pick<AppContext, 'db' | 'recordsKey'>) {
+export function createRecordsService(ctx: Pick<AppContext, 'db' | 'recordsKey' | 'storage'>) {
   /** Walks the audit chain the way the signature chain is walked. */
   function verifyAudit(problems: RecordProblem[]): number {
     const say = (id: number, message: string) =>
@@ -65,8 +39,11 @@ export function createRecordsService(ctx: Pick<AppContext, 'db' | 'recordsKey'>)
   }
 
   return {
-    /** Walks the whole signature chain and names every record that does not check out. */
-    verify(): RecordsVerification {
+    /**
+     * Walks both chains, compares each current disposition with the rows it covers and re-hashes
+     * the originals of signed findings; names every record that does not check out.
+     */
+    async verify(): Promise<RecordsVerification> {
       const chain = checkSignatureChain(ctx.recordsKey.key);
       let checked = 0;
       for (let page = listSignaturesAfter(ctx.db, 0, PAGE); page.length > 0;) {
@@ -77,9 +54,25 @@ export function createRecordsService(ctx: Pick<AppContext, 'db' | 'recordsKey'>)
       const head = chain.head();
       const problems: RecordProblem[] = [...chain.problems];
       const auditRows = verifyAudit(problems);
+      const signed = checkSignedDispositions(ctx.db, problems);
+      for (const [sha256, label] of signed.originals) {
+        const file = ctx.storage.originalPath(sha256);
+        const actual = (await ctx.storage.exists(file)) ? await ctx.storage.hash(file) : null;
+        if (actual !== sha256)
+          problems.push({
+            kind: 'signature',
+            id: sha256,
+            message: `${label} is ${actual === null ? 'missing' : 'not the file that was signed: its bytes changed'}.`,
+          });
+      }
       return {
         ok: problems.length === 0,
-        checked: { signatures: checked, auditRows },
+        checked: {
+          signatures: checked,
+          auditRows,
+          dispositions: signed.checked,
+          originals: signed.originals.size,
+        },
         head: head && { seq: head.seq, sha256: head.sha256 },
         keyInsideDataDir: ctx.recordsKey.insideDataDir,
         problems,

@@ -149,7 +149,7 @@ describe('user administration', () => {
   it('lists users without any password hash', async () => {
     const response = await request(t.app).get('/api/v1/users').set('Cookie', admin);
     expect(response.status).toBe(200);
-    expect(response.body.items).toHaveLength(6);
+    expect(response.body.items).toHaveLength(8);
     expect(JSON.stringify(response.body)).not.toMatch(/\$2[aby]\$|passwordHash/);
   });
 

@@ -94,3 +94,24 @@ export function anyUserWithId(db: DbOrTx, ids: string[]): boolean {
 export function countUsers(db: DbOrTx): number {
   return db.select({ n: count() }).from(users).get()?.n ?? 0;
 }
+
+/** Active users of the home organisation holding one of `roles`, who can sign in. */
+export function listActiveHomeUsers(
+  db: DbOrTx,
+  roles: readonly UserRow['role'][],
+): { id: string; email: string; name: string }[] {
+  return db
+    .select({ id: users.id, email: users.email, name: users.name })
+    .from(users)
+    .innerJoin(organisations, eq(organisations.id, users.organisationId))
+    .where(
+      and(
+        eq(organisations.kind, 'home'),
+        inArray(users.role, [...roles]),
+        isNull(users.disabledAt),
+        sql`${users.passwordHash} IS NOT NULL`,
+      ),
+    )
+    .orderBy(asc(users.name))
+    .all();
+}

@@ -1,0 +1,50 @@
+import type { FindingEvaluation } from '@emberline/contracts/limits';
+import { permissionGrants } from '@emberline/contracts/permissions';
+import type { AppContext } from '../../context';
+import type { DbOrTx } from '../../db/client';
+import { queueMail } from '../../lib/email/outbox';
+import { publicOrigin } from '../auth/auth.service';
+import { listFindings } from '../findings/findings.repository';
+import { inspectionModelRows } from '../inspections/inspection-access';
+import type { InspectionRow } from '../inspections/inspections.repository';
+import { listActiveHomeUsers } from '../users/users.repository';
+import { beyondLimitsAlertEmail } from './review-emails';
+
+/**
+ * Alerts the home organisation's reviewers, inside the submission's transaction, when a submitted
+ * inspection holds a beyond-limits verdict: the message exists exactly when the submission does.
+ */
+export function alertBeyondLimits(
+  ctx: Pick<AppContext, 'config' | 'now'>,
+  tx: DbOrTx,
+  inspection: InspectionRow,
+  submittedBy: string,
+): void {
+  const beyond = listFindings(tx, inspection.id).filter(
+    (finding) => finding.status === 'recorded' && finding.category === 'beyond-limits',
+  );
+  if (beyond.length === 0) return;
+  const reviewers = listActiveHomeUsers(tx, permissionGrants['review:inspection']);
+  if (reviewers.length === 0) return;
+  const rows = new Map(inspectionModelRows(tx, inspection).map((row) => [row.key, row.label]));
+  queueMail(ctx, tx, {
+    kind: 'alert',
+    ...beyondLimitsAlertEmail({
+      to: reviewers.map((user) => user.email),
+      engineSerialNumber: inspection.engineSerialNumber,
+      inspectionDate: inspection.date,
+      submittedBy,
+      findings: beyond.map((finding) => ({
+        number: finding.number,
+        where: `${rows.get(finding.rowKey) ?? finding.rowKey} ${finding.position}, ${finding.zone.replace(/-/g, ' ')}`,
+        action: (finding.evaluation as unknown as FindingEvaluation | null)?.beyondAction ?? null,
+      })),
+      link: `${publicOrigin(ctx.config.publicOrigins, ctx.config.port)}/review/${inspection.id}`,
+    }),
+    record: {
+      type: 'inspection',
+      id: inspection.id,
+      label: `Inspection of ${inspection.engineSerialNumber} on ${inspection.date}`,
+    },
+  });
+}

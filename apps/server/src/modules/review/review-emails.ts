@@ -1,0 +1,34 @@
+import { cautions } from '@emberline/contracts/cautions';
+import type { BeyondAction } from '@emberline/contracts/limits';
+import { actionWords } from '@emberline/domain/decision-words';
+import { mailLayout } from '../../lib/email/layout';
+import type { MailContent } from '../../lib/email/outbox';
+
+/**
+ * The alert the home organisation's reviewers get when an inspection holding a beyond-limits
+ * verdict is submitted: the engine may have to come off wing before it flies again.
+ */
+export function beyondLimitsAlertEmail(input: {
+  to: string[];
+  engineSerialNumber: string;
+  inspectionDate: string;
+  submittedBy: string;
+  findings: { number: number; where: string; action: BeyondAction | null }[];
+  link: string;
+}): MailContent {
+  const findingLines = input.findings.map(
+    (finding) =>
+      `F${finding.number}, ${finding.where}: beyond limits${finding.action ? `, ${actionWords(finding.action)}` : ''}.`,
+  );
+  const lines = [
+    `${input.submittedBy} submitted the inspection of engine ${input.engineSerialNumber} of ${input.inspectionDate} for review. It holds ${input.findings.length === 1 ? 'a finding' : `${input.findings.length} findings`} beyond limits:`,
+    ...findingLines,
+    'Until an authorised engineer dispositions it, the fleet shows this engine as awaiting disposition, beyond limits.',
+  ];
+  return {
+    to: input.to,
+    subject: `Beyond limits: engine ${input.engineSerialNumber} awaits disposition`,
+    text: `${lines.join('\n\n')}\n\n${input.link}\n\n${cautions.dispositions}\n`,
+    html: mailLayout(lines, { href: input.link, label: 'Open the review' }, cautions.dispositions),
+  };
+}
