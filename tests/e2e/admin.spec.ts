@@ -168,14 +168,16 @@ test('an admin records an engineer’s authorisation to sign, but never their ow
 }) => {
   await signIn(page, 'admin@demo.test');
   await page.goto('/admin/users');
-  const engineer = page.getByTestId('credentials-engineer@demo.test');
-  await expect(engineer).toContainText('No authorisation to sign');
+  // The demo's second engineer holds an invented authorisation; the admin renews it.
+  const engineer = page.getByTestId('credentials-engineer2@demo.test');
+  await expect(engineer).toContainText('Authorisation DEMO-AUTH-E-0087');
   await engineer.getByRole('button', { name: 'Edit' }).click();
   const form = page.getByRole('form', {
-    name: 'Authorisation and qualification of Priya Castellane',
+    name: 'Authorisation and qualification of Anselm Ruddock',
   });
-  await form.getByLabel('Holds an authorisation to sign').check();
-  // Refused at the fields before anything is sent: a reference, a model and a date are needed.
+  // Refused at the fields before anything is sent: a reference and a model are needed.
+  await form.getByLabel('Authorisation reference').fill('');
+  await form.getByLabel(/Vantor VT-300/).uncheck();
   await form.getByRole('button', { name: 'Save' }).click();
   await expect(form.getByText('Give the reference')).toBeVisible();
   await expect(form.getByText('Name at least one engine model')).toBeVisible();

@@ -67,9 +67,9 @@ test('an unknown address shows the not-found page', async ({ page }) => {
 });
 
 test('screens of later releases say plainly that they are not built yet', async ({ page }) => {
-  await signIn(page, 'engineer@demo.test');
-  await page.getByRole('link', { name: 'Review queue' }).click();
-  await expect(page.getByRole('heading', { name: 'Review queue' })).toBeVisible();
+  await signIn(page, 'planner@demo.test');
+  await page.getByRole('link', { name: 'Planning board' }).click();
+  await expect(page.getByRole('heading', { name: 'Planning board' })).toBeVisible();
   await expect(page.getByText('Not built yet')).toBeVisible();
 });
 

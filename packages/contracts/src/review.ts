@@ -81,6 +81,9 @@ export const dispositionInputSchema = z.strictObject({
   password,
 });
 export type DispositionInput = z.input<typeof dispositionInputSchema>;
+/** The decision form: everything but the password, which the signing dialog asks for. */
+export const dispositionFormSchema = dispositionInputSchema.omit({ password: true });
+export type DispositionForm = z.input<typeof dispositionFormSchema>;
 export type ParsedDispositionInput = z.output<typeof dispositionInputSchema>;
 
 export const dispositionStates = ['current', 'superseded', 'withdrawn'] as const;
@@ -181,7 +184,7 @@ export const inspectionReviewSchema = z.object({
   /** What is left before the outcome can be signed. */
   left: z.object({
     findings: z.array(z.object({ findingId: z.string(), number: z.number().int() })),
-    flags: z.array(z.object({ code: z.string(), message: z.string() })),
+    flags: z.array(z.object({ code: z.enum(inspectionFlagCodes), message: z.string() })),
     coverageGaps: z.array(z.string()),
   }),
   /** Whether the caller may sign here, and if not, why (authorisation, separation of duties). */

@@ -5,6 +5,7 @@ import {
   type FindingInput,
 } from '@emberline/contracts/findings';
 import { addDays } from '@emberline/domain/dates';
+import { inspectionFlags } from '@emberline/domain/inspection-flags';
 import type { AppContext, RequestMeta } from '../context';
 import { inTransaction } from '../db/client';
 import type { Principal } from '../http/principal';
@@ -71,6 +72,8 @@ interface DemoInspection {
   reasonDetail: string;
   rows: string[];
   state: 'draft' | 'submitted' | 'released';
+  /** A probe whose calibration ran out this many days before the inspection, acknowledged thus. */
+  lapsedCalibration?: { daysBefore: number; acknowledgement: string };
   stills: DemoStill[];
   findings: DemoFinding[];
   coverage: Record<string, CoverageInput>;
@@ -268,6 +271,10 @@ const history: DemoInspection[] = [
     reasonDetail: 'Invented demo: EGT exceedance reported by the crew',
     rows: ['hpt1-ngv', 'hpt1-blade', 'lpt1-ngv'],
     state: 'submitted',
+    lapsedCalibration: {
+      daysBefore: 6,
+      acknowledgement: 'Spare probe DEMO-121 not on site; calibration renewal booked (invented)',
+    },
     stills: [
       { name: 'hpt1-ngv-pos09.jpg', row: 'hpt1-ngv', position: 9, seed: 401, marks: [burnSmall] },
       { name: 'hpt1-ngv-pos10.jpg', row: 'hpt1-ngv', position: 10, seed: 402, marks: [burnLarge] },
@@ -431,6 +438,9 @@ export async function loadDemoHistory(ctx: AppContext): Promise<void> {
     const prepared = spec.stills.map((still) => ready.get(still)!);
     for (const item of prepared) await ctx.storage.commitOriginal(item.file, item.sha256);
     const date = addDays(today, -spec.daysAgo);
+    const probeCalibrationDueOn = spec.lapsedCalibration
+      ? addDays(date, -spec.lapsedCalibration.daysBefore)
+      : addDays(today, 120);
     const now = ctx.now();
     const imageIds = prepared.map((_, index) => `${spec.id}-image-${index + 1}`);
     inTransaction(ctx.db, (tx) => {
@@ -446,10 +456,20 @@ export async function loadDemoHistory(ctx: AppContext): Promise<void> {
         qualificationRef: 'DEMO-BSI-L2-0457',
         qualificationExpiresOn: addDays(today, 300),
         probe: 'Demo probe VX-6, s/n DEMO-118',
-        probeCalibrationDueOn: addDays(today, 120),
+        probeCalibrationDueOn,
         rows: spec.rows,
         state: 'draft',
-        flags: [],
+        flags: inspectionFlags(
+          {
+            date,
+            csn: spec.csn,
+            tsn: spec.tsn,
+            qualificationExpiresOn: addDays(today, 300),
+            probeCalibrationDueOn,
+          },
+          { csn: spec.csn, tsn: spec.tsn, tsnCsnAsOf: date },
+          [],
+        ).map((flag) => ({ ...flag, acknowledgedAt: null, acknowledgedBy: null, note: null })),
         createdBy: 'user-inspector',
         createdAt: new Date(now.getTime() - spec.daysAgo * 86_400_000),
       });
@@ -506,6 +526,14 @@ export async function loadDemoHistory(ctx: AppContext): Promise<void> {
     // Submitted, dispositioned and released through the same services as a person would: the
     // signatures and the audit rows they leave verify like any other. Recorded by the inspector,
     // signed by another person (DESIGN §5.5, separation of duties).
+    if (spec.lapsedCalibration)
+      inspections.acknowledge(
+        inspector,
+        spec.id,
+        'probe-calibration-expired',
+        spec.lapsedCalibration.acknowledgement,
+        loader,
+      );
     if (spec.state !== 'draft') inspections.submit(inspector, spec.id, loader);
     if (spec.state === 'released') {
       for (const finding of findings.list(inspector, spec.id).items) {

@@ -56,13 +56,13 @@ const router = createBrowserRouter([
       },
       {
         path: 'review',
-        element: (
-          <NotBuiltYet
-            title="Review queue"
-            permission="review:inspection"
-            purpose="Submitted inspections waiting for an engineer’s disposition and signature."
-          />
-        ),
+        lazy: async () => ({ Component: (await import('./routes/review')).ReviewQueueRoute }),
+      },
+      {
+        path: 'review/:inspectionId',
+        lazy: async () => ({
+          Component: (await import('./routes/review-inspection')).ReviewInspectionRoute,
+        }),
       },
       {
         path: 'limits',

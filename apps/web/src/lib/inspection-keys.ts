@@ -7,4 +7,7 @@ export const inspectionKeys = {
   lists: () => [...inspectionKeys.all, 'list'] as const,
   list: (engineId: string) => [...inspectionKeys.lists(), engineId] as const,
   detail: (id: string) => [...inspectionKeys.all, 'detail', id] as const,
+  /** The review of one inspection: dispositions, outcomes, releases, withdrawals. */
+  review: (id: string) => [...inspectionKeys.all, 'review', id] as const,
+  queue: (filters: object) => [...inspectionKeys.all, 'queue', filters] as const,
 };

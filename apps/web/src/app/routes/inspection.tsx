@@ -19,6 +19,7 @@ import { ImageStrip } from '../../features/inspections/components/image-strip';
 import { ImageTagForm } from '../../features/inspections/components/image-tag-form';
 import { ReviewActions } from '../../features/inspections/components/review-actions';
 import { VideoFrames } from '../../features/inspections/components/video-frames';
+import { DecisionsSummary } from '../../features/review/components/decisions-summary';
 import { ApiError } from '../../lib/api-client';
 import { formatDate, formatHours } from '../../lib/format';
 
@@ -93,7 +94,7 @@ export function InspectionRoute() {
           <ReviewActions
             inspection={data}
             canSubmit={can(user.role, 'create:inspection')}
-            canReturn={can(user.role, 'review:inspection')}
+            canReview={can(user.role, 'review:inspection')}
             coverageGaps={coverage.data?.outcome.coverageGaps ?? []}
             findingCount={
               findings.data?.items.filter((item) => item.status === 'recorded').length ?? 0
@@ -101,6 +102,12 @@ export function InspectionRoute() {
           />
         </div>
       </Panel>
+      {data.state !== 'draft' ? (
+        <Panel className="flex flex-col gap-3">
+          <h2 className="text-lg font-semibold">Decisions</h2>
+          <DecisionsSummary inspectionId={data.id} />
+        </Panel>
+      ) : null}
       <Panel className="flex flex-col gap-4">
         <h2 className="text-lg font-semibold">
           Images <span className="text-sm font-normal text-soot-600">({data.images.length})</span>

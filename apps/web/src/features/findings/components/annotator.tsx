@@ -29,7 +29,7 @@ import { liveMeasurement, liveVerdict } from '../lib/live';
 import { DrawingLayer } from './drawing-layer';
 import { FindingFields } from './finding-fields';
 import { blankDetails } from '../lib/finding-details';
-import { reasonLabels } from '../lib/reason-labels';
+import { reasonLabels } from '../../../lib/reason-labels';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
 
 const mm = (value: number | null | undefined, digits = 3) =>

@@ -6,7 +6,7 @@ import { Input } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { useVoidFinding } from '../api/findings';
 import { formatKey } from '../../../lib/format';
-import { reasonLabels } from '../lib/reason-labels';
+import { reasonLabels } from '../../../lib/reason-labels';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
 import { FindingEditForm } from './finding-edit-form';
 

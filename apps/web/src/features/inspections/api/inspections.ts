@@ -77,15 +77,3 @@ export function useSubmitInspection(id: string) {
     },
   });
 }
-
-export function useReturnInspection(id: string) {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: (reason: string) =>
-      api.post<InspectionDetail>(`/inspections/${encodeURIComponent(id)}/return`, { reason }),
-    onSuccess: (detail) => {
-      queryClient.setQueryData(inspectionKeys.detail(id), detail);
-      void queryClient.invalidateQueries({ queryKey: inspectionKeys.lists() });
-    },
-  });
-}

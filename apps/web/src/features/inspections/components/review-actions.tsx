@@ -1,35 +1,36 @@
-import { useState } from 'react';
 import type { InspectionDetail } from '@emberline/contracts/inspections';
+import { Link } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
-import { Input } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
-import { useReturnInspection, useSubmitInspection } from '../api/inspections';
+import { formatDateTime } from '../../../lib/format';
+import { useSubmitInspection } from '../api/inspections';
 
-/** Submission by the inspector, and the engineer's way back to draft. */
+/** Submission by the inspector; the engineer's review opens from here once it is submitted. */
 export function ReviewActions({
   inspection,
   canSubmit,
-  canReturn,
+  canReview,
   coverageGaps = [],
   findingCount = 0,
 }: {
   inspection: InspectionDetail;
   canSubmit: boolean;
-  canReturn: boolean;
+  canReview: boolean;
   /** Rows listed but not fully viewed without a reason: shown before the inspection goes. */
   coverageGaps?: string[];
   findingCount?: number;
 }) {
   const submit = useSubmitInspection(inspection.id);
-  const sendBack = useReturnInspection(inspection.id);
-  const [reason, setReason] = useState('');
   const openFlags = inspection.flags.filter((flag) => !flag.acknowledgedAt).length;
 
   if (inspection.state === 'draft' && canSubmit) {
     return (
       <div className="flex flex-col gap-3">
         {inspection.returnedReason ? (
-          <Notice tone="caution" title="Sent back to draft by the reviewing engineer">
+          <Notice
+            tone="caution"
+            title={`Sent back to draft by ${inspection.returnedByName ?? 'the reviewing engineer'}, ${formatDateTime(inspection.returnedAt)}`}
+          >
             {inspection.returnedReason}
           </Notice>
         ) : null}
@@ -65,35 +66,41 @@ export function ReviewActions({
       </div>
     );
   }
+  const review = canReview ? (
+    <Link
+      to={`/review/${inspection.id}`}
+      className="self-start rounded-md bg-ember-700 px-3 py-1.5 text-sm font-medium text-white hover:bg-ember-800"
+    >
+      Open the review
+    </Link>
+  ) : null;
   if (inspection.state === 'submitted') {
     return (
       <div className="flex flex-col gap-3">
         <p className="text-sm">
-          Submitted for review: images, findings, coverage and flags are locked until an engineer
-          dispositions it or sends it back.
+          Submitted for review
+          {inspection.submittedAt ? ` on ${formatDateTime(inspection.submittedAt)}` : ''}: images,
+          findings, coverage and flags are locked until an engineer dispositions it or sends it
+          back.
         </p>
-        {canReturn ? (
-          <form
-            className="flex flex-wrap items-end gap-2"
-            onSubmit={(event) => {
-              event.preventDefault();
-              sendBack.mutate(reason);
-            }}
-          >
-            <label className="flex min-w-80 flex-1 flex-col gap-1 text-sm font-medium">
-              Reason for sending it back
-              <Input
-                value={reason}
-                onChange={(event) => setReason(event.target.value)}
-                placeholder="What the inspector should look at again"
-              />
-            </label>
-            <Button type="submit" variant="secondary" busy={sendBack.isPending}>
-              Send back to draft
-            </Button>
-          </form>
+        {inspection.newerRevisionInForce ? (
+          <Notice tone="caution">
+            A newer limit revision is in force than the one this inspection was judged against.
+          </Notice>
         ) : null}
-        {sendBack.error ? <Notice tone="error">{sendBack.error.message}</Notice> : null}
+        {review}
+      </div>
+    );
+  }
+  if (inspection.state === 'dispositioned' || inspection.state === 'released') {
+    return (
+      <div className="flex flex-col gap-3">
+        <p className="text-sm">
+          {inspection.state === 'released'
+            ? `Released to the engine’s owner (revision ${inspection.releaseRevision}). The decisions are signed; a correction supersedes one and is released again.`
+            : 'Its outcome is signed; it waits for release to the engine’s owner.'}
+        </p>
+        {review}
       </div>
     );
   }

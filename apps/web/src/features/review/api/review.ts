@@ -1,0 +1,110 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { SeriesEntry } from '@emberline/contracts/findings';
+import type { InspectionDetail } from '@emberline/contracts/inspections';
+import type { LimitSet } from '@emberline/contracts/limit-sets';
+import type {
+  Disposition,
+  DispositionInput,
+  InspectionReview,
+  OutcomeInput,
+  ReviewQueueItem,
+  ReviewQueueQuery,
+} from '@emberline/contracts/review';
+import { api } from '../../../lib/api-client';
+import { inspectionKeys } from '../../../lib/inspection-keys';
+
+const path = (id: string) => encodeURIComponent(id);
+
+export function useReviewQueue(query: ReviewQueueQuery) {
+  const params = new URLSearchParams(
+    Object.entries(query).filter((entry): entry is [string, string] => Boolean(entry[1])),
+  );
+  return useQuery({
+    queryKey: inspectionKeys.queue(query),
+    queryFn: () =>
+      api
+        .get<{ items: ReviewQueueItem[] }>(`/review-queue?${params.toString()}`)
+        .then((body) => body.items),
+  });
+}
+
+export const reviewQueryOptions = (inspectionId: string) =>
+  queryOptions({
+    queryKey: inspectionKeys.review(inspectionId),
+    queryFn: () => api.get<InspectionReview>(`/inspections/${path(inspectionId)}/dispositions`),
+  });
+
+export function useInspectionReview(inspectionId: string) {
+  return useQuery(reviewQueryOptions(inspectionId));
+}
+
+/** The limit revision a finding was judged against, for the values it was compared with. */
+export function useJudgedAgainst(limitSetId: string | null) {
+  return useQuery({
+    queryKey: ['limit-sets', 'detail', limitSetId],
+    queryFn: () => api.get<LimitSet>(`/limit-sets/${path(limitSetId ?? '')}`),
+    enabled: limitSetId !== null,
+    staleTime: Infinity,
+  });
+}
+
+/** The earlier findings of the same damage series, oldest first. */
+export function useDamageSeries(findingId: string | null) {
+  return useQuery({
+    queryKey: ['findings', 'series', findingId],
+    queryFn: () =>
+      api
+        .get<{ items: SeriesEntry[] }>(`/findings/${path(findingId ?? '')}/series`)
+        .then((body) => body.items),
+    enabled: findingId !== null,
+  });
+}
+
+/** Every signature changes the inspection, its review, the queue and the fleet's view of it. */
+function useSigned(inspectionId: string) {
+  const queryClient = useQueryClient();
+  return () =>
+    Promise.all([
+      queryClient.invalidateQueries({ queryKey: inspectionKeys.review(inspectionId) }),
+      queryClient.invalidateQueries({ queryKey: inspectionKeys.detail(inspectionId) }),
+      queryClient.invalidateQueries({ queryKey: [...inspectionKeys.all, 'queue'] }),
+      queryClient.invalidateQueries({ queryKey: inspectionKeys.lists() }),
+      queryClient.invalidateQueries({ queryKey: ['engines'] }),
+    ]);
+}
+
+export function useDispose(inspectionId: string) {
+  const signed = useSigned(inspectionId);
+  return useMutation({
+    mutationFn: ({ findingId, input }: { findingId: string; input: DispositionInput }) =>
+      api.post<Disposition>(`/findings/${path(findingId)}/dispositions`, input),
+    onSuccess: signed,
+  });
+}
+
+export function useSignOutcome(inspectionId: string) {
+  const signed = useSigned(inspectionId);
+  return useMutation({
+    mutationFn: (input: OutcomeInput) =>
+      api.post<InspectionReview>(`/inspections/${path(inspectionId)}/outcome`, input),
+    onSuccess: signed,
+  });
+}
+
+export function useRelease(inspectionId: string) {
+  const signed = useSigned(inspectionId);
+  return useMutation({
+    mutationFn: (password: string) =>
+      api.post<InspectionReview>(`/inspections/${path(inspectionId)}/release`, { password }),
+    onSuccess: signed,
+  });
+}
+
+export function useSendBack(inspectionId: string) {
+  const signed = useSigned(inspectionId);
+  return useMutation({
+    mutationFn: (input: { reason: string; password?: string }) =>
+      api.post<InspectionDetail>(`/inspections/${path(inspectionId)}/return`, input),
+    onSuccess: signed,
+  });
+}
