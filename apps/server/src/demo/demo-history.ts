@@ -18,9 +18,7 @@ import { createReviewService } from '../modules/review/review.service';
 import { defaultDecision } from '@emberline/domain/decisions';
 import { dispositionInputSchema, outcomeInputSchema } from '@emberline/contracts/review';
 import { insertImage } from '../modules/images/images.repository';
-import {
-  insertInspection,
-} from '../modules/inspections/inspections.repository';
+import { insertInspection } from '../modules/inspections/inspections.repository';
 import {
   borescopeScene,
   crackPoints,

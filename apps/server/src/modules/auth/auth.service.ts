@@ -21,11 +21,7 @@ import {
 } from '../users/users.repository';
 import { toSessionUser } from '../users/user-view';
 import { passwordResetEmail } from './auth-emails';
-import {
-  clearFailures,
-  countFailuresSince,
-  recordFailures,
-} from './login-failures.repository';
+import { clearFailures, countFailuresSince, recordFailures } from './login-failures.repository';
 import { assertNotThrottled, countFailure } from './password-check';
 import { hashPassword, verifyPassword } from './passwords';
 import { signSessionToken, verifySessionToken } from './session-token';
