@@ -40,6 +40,10 @@ test('the engineer works through VT3-D0201 from the queue: signs each finding (o
 }) => {
   test.setTimeout(120_000);
   await signIn(page, 'engineer@demo.test');
+  const fleetRow = page.getByTestId('engine-row').filter({ hasText: 'VT3-D0201' });
+  await expect(fleetRow.getByTestId('awaiting-disposition')).toHaveText(
+    /Awaiting disposition, beyond limits/,
+  );
   await page
     .getByRole('navigation', { name: 'Main' })
     .getByRole('link', { name: 'Review queue' })
@@ -117,6 +121,10 @@ test('the engineer works through VT3-D0201 from the queue: signs each finding (o
   await page.getByRole('button', { name: 'Release to the owner…' }).click();
   await sign(page, 'Sign the release', /I release this dispositioned inspection/);
   await expect(page.getByText(/Released \(revision 1\) by Priya Castellane/)).toBeVisible();
+
+  await page.goto('/fleet');
+  await expect(fleetRow).toBeVisible();
+  await expect(fleetRow.getByTestId('awaiting-disposition')).toHaveCount(0);
 
   // The owner sees the released inspection with its signed decisions.
   await page.getByRole('button', { name: 'Sign out' }).click();

@@ -10,12 +10,14 @@ import { freePort, signInCookie, startServerProcess } from '../../scripts/lib/se
 
 // QUALITY §3 kill test: concurrent uploads, the server killed (SIGKILL) at a random moment and
 // restarted, 20 rounds; every acknowledged upload must survive, and nothing may be left orphaned.
-// The same for e-mail (DESIGN §5.7): queued messages survive kills during delivery rounds.
+// The same for e-mail (DESIGN §5.7): queued messages survive kills during delivery rounds; and
+// for signatures (DESIGN §5.5): a kill during signing leaves the whole signature or none.
 
 const ROUNDS = 20;
 const UPLOADS_PER_ROUND = 4;
 const MAIL_ROUNDS = 8;
 const MAIL_PER_ROUND = 6;
+const SIGNING_ROUNDS = 20;
 
 function kill(child: ChildProcess): Promise<void> {
   return new Promise((resolve) => {
@@ -228,6 +230,144 @@ describe('e-mail survives a killed server', () => {
     );
     expect(cutWithMailWaiting, 'kills that fell while messages waited').toBeGreaterThan(0);
     expect(repeated, 'messages delivered twice').toBeLessThanOrEqual(MAIL_ROUNDS);
+
+    const db = new Database(path.join(dataDir, 'emberline.sqlite'));
+    expect(db.pragma('integrity_check', { simple: true })).toBe('ok');
+    db.close();
+  });
+});
+
+describe('signatures survive a killed server', () => {
+  it(`keeps the chain whole through ${SIGNING_ROUNDS} kills during signing: each signature all there or not at all`, async () => {
+    const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'emberline-kill-sign-'));
+    const port = await freePort();
+    const base = `http://127.0.0.1:${port}/api/v1`;
+    let server = await startServerProcess(dataDir, port, { FROM_SOURCES: '1' });
+    const inspector = await signInCookie(base, 'inspector@demo.test');
+    const post = (url: string, cookie: string, body: unknown) =>
+      fetch(`${base}${url}`, {
+        method: 'POST',
+        headers: { 'Content-Type': 'application/json', cookie },
+        body: JSON.stringify(body),
+      });
+
+    // A submitted inspection with one finding, recorded by the inspector.
+    const opened = await post('/inspections', inspector, {
+      engineId: 'engine-d0101',
+      date: '2026-05-20',
+      reason: 'scheduled',
+      csn: 14_125,
+      tsn: 22_600,
+      inspectorName: 'Tobias Rennick',
+      qualificationRef: 'BSI-L2-0457',
+      qualificationExpiresOn: '2030-03-31',
+      probe: 'Demo probe VX-6 s/n 118',
+      probeCalibrationDueOn: '2030-09-30',
+      rows: ['hpt1-ngv'],
+    });
+    const inspectionId = ((await opened.json()) as { id: string }).id;
+    const form = new FormData();
+    const jpeg = await sharp({
+      create: { width: 800, height: 600, channels: 3, background: { r: 90, g: 60, b: 30 } },
+    })
+      .jpeg()
+      .toBuffer();
+    form.append('files', new Blob([jpeg], { type: 'image/jpeg' }), 'still.jpg');
+    const uploaded = await fetch(`${base}/inspections/${inspectionId}/images`, {
+      method: 'POST',
+      headers: { cookie: inspector },
+      body: form,
+    });
+    const imageId = ((await uploaded.json()) as { images: { id: string }[] }).images[0]!.id;
+    const recorded = await post(`/inspections/${inspectionId}/findings`, inspector, {
+      imageId,
+      shape: {
+        kind: 'polyline',
+        points: [
+          [100, 300],
+          [140, 300],
+        ],
+      },
+      calibration: { kind: 'reference', p1: [100, 100], p2: [500, 100], lengthMm: 10 },
+      row: 'hpt1-ngv',
+      position: 4,
+      zone: 'leading-edge',
+      damage: 'crack',
+      method: 'image',
+    });
+    const findingId = ((await recorded.json()) as { id: string }).id;
+    await fetch(`${base}/inspections/${inspectionId}/coverage/hpt1-ngv`, {
+      method: 'PUT',
+      headers: { 'Content-Type': 'application/json', cookie: inspector },
+      body: JSON.stringify({
+        status: 'full',
+        viewedPositions: [],
+        noDamageFound: false,
+        reason: '',
+      }),
+    });
+    const detail = await fetch(`${base}/inspections/${inspectionId}`, {
+      headers: { cookie: inspector },
+    });
+    for (const flag of ((await detail.json()) as { flags: { code: string }[] }).flags)
+      await post(`/inspections/${inspectionId}/flags/${flag.code}/acknowledgement`, inspector, {
+        note: 'Checked against the engine log book',
+      });
+    const submitted = await post(`/inspections/${inspectionId}/submission`, inspector, {});
+    if (submitted.status !== 200) await kill(server);
+    expect(submitted.status).toBe(200);
+
+    let engineer = await signInCookie(base, 'engineer@demo.test');
+    const review = async () =>
+      (await (
+        await fetch(`${base}/inspections/${inspectionId}/dispositions`, {
+          headers: { cookie: engineer },
+        })
+      ).json()) as { items: { id: string; current: boolean }[] };
+    let acknowledged = 0;
+    let cut = 0;
+    for (let round = 0; round < SIGNING_ROUNDS; round += 1) {
+      const current = (await review()).items.find((item) => item.current) ?? null;
+      // A first disposition, then corrections of the current one: each a signature, each
+      // answered only once its disposition, its signature and its audit row are committed.
+      const signing = post(`/findings/${findingId}/dispositions`, engineer, {
+        decision: { kind: 'serviceable' },
+        rationale: `Round ${round}`,
+        supersedesId: current?.id ?? null,
+        supersedeReason: current ? `Corrected in round ${round}` : null,
+        password: 'emberline-demo',
+      }).then(
+        (response) => (response.status === 201 ? 'signed' : `answered ${response.status}`),
+        () => 'cut',
+      );
+      // The password check alone takes tens of milliseconds: kills fall before, during and after.
+      await new Promise((resolve) => setTimeout(resolve, Math.random() * (round % 2 ? 500 : 80)));
+      await kill(server);
+      const outcome = await signing;
+      if (outcome === 'signed') acknowledged += 1;
+      else if (outcome === 'cut') cut += 1;
+      else throw new Error(`round ${round}: the signature ${outcome}`);
+      server = await startServerProcess(dataDir, port, { FROM_SOURCES: '1' });
+      engineer = await signInCookie(base, 'engineer@demo.test');
+    }
+
+    // Every acknowledged signature is there; the chain is whole; exactly one disposition is current.
+    const admin = await signInCookie(base, 'admin@demo.test');
+    const verification = (await (
+      await fetch(`${base}/records/verification`, { headers: { cookie: admin } })
+    ).json()) as { ok: boolean; checked: { signatures: number }; problems: unknown[] };
+    const items = (await review()).items;
+    await kill(server);
+    console.log(
+      `kill test (signing): ${SIGNING_ROUNDS} kills, ${acknowledged} signatures answered, ${cut} cut, ${items.length} kept, chain ${verification.ok ? 'whole' : 'BROKEN'}`,
+    );
+    expect(verification.problems).toEqual([]);
+    expect(verification.ok).toBe(true);
+    expect(items.length).toBeGreaterThanOrEqual(acknowledged);
+    expect(items.length).toBeLessThanOrEqual(SIGNING_ROUNDS);
+    expect(verification.checked.signatures).toBe(items.length);
+    expect(items.filter((item) => item.current)).toHaveLength(1);
+    expect(cut, 'kills that fell during a signature').toBeGreaterThan(0);
 
     const db = new Database(path.join(dataDir, 'emberline.sqlite'));
     expect(db.pragma('integrity_check', { simple: true })).toBe('ok');

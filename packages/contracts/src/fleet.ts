@@ -190,6 +190,11 @@ export const engineSchema = z.object({
   tsnCsnAsOf: z.string(),
   status: engineStatusSchema,
   createdAt: z.string(),
+  /**
+   * A submitted inspection waiting for an engineer's disposition, and whether it holds a finding
+   * beyond limits; null when none waits (and always for customers, who see released ones only).
+   */
+  awaitingDisposition: z.object({ inspectionId: z.string(), beyondLimits: z.boolean() }).nullable(),
 });
 export type Engine = z.infer<typeof engineSchema>;
 

@@ -35,6 +35,8 @@ export const permissionGrants = {
   'read:outbox': ['admin'],
   'manage:outbox': ['admin'],
   'read:audit-log': ['admin'],
+  // The history of one record (inspection, finding, limit revision) in words: staff only.
+  'read:history': ['admin', 'inspector', 'engineer', 'planner'],
   // The records check: the signature chain walked and every seal recomputed.
   'verify:records': ['admin', 'engineer'],
 } as const satisfies Record<string, readonly Role[]>;

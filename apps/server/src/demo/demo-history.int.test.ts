@@ -1,3 +1,4 @@
+import { spawnSync } from 'node:child_process';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Finding, FindingListResponse } from '@emberline/contracts/findings';
@@ -122,5 +123,14 @@ describe('the demo history', () => {
       .set('Cookie', admin);
     expect(verification.body).toMatchObject({ ok: true, problems: [] });
     expect(verification.body.checked.dispositions).toBeGreaterThan(0);
-  });
+
+    // `pnpm verify-records` over the same data directory: green, exit 0.
+    const cli = spawnSync(
+      process.execPath,
+      ['--import', 'tsx', 'apps/server/src/cli/verify-records.ts'],
+      { env: { ...process.env, DATA_DIR: t.dataDir }, encoding: 'utf8' },
+    );
+    expect(cli.stdout).toContain('Every record checks out.');
+    expect(cli.status).toBe(0);
+  }, 30_000);
 });

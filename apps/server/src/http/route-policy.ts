@@ -8,6 +8,7 @@ import type { Access } from '@emberline/contracts/permissions';
 export const routePolicy = {
   'GET /health': 'public',
   'GET /installation': 'public',
+  'GET /installation/records-key': 'signed-in',
   'POST /auth/login': 'public',
   'POST /auth/logout': 'public',
   'GET /auth/me': 'signed-in',
@@ -48,6 +49,9 @@ export const routePolicy = {
   'GET /outbox/caught': 'read:outbox',
   'GET /outbox/caught/:id': 'read:outbox',
   'GET /audit-log': 'read:audit-log',
+  'GET /inspections/:id/history': 'read:history',
+  'GET /findings/:id/history': 'read:history',
+  'GET /limit-sets/:id/history': 'read:history',
   'GET /records/verification': 'verify:records',
   'GET /inspections': 'read:inspection',
   'POST /inspections': 'create:inspection',

@@ -1,4 +1,17 @@
-import { and, desc, eq, isNotNull, isNull, lt, sql, type SQL } from 'drizzle-orm';
+import {
+  and,
+  asc,
+  desc,
+  eq,
+  gte,
+  inArray,
+  isNotNull,
+  isNull,
+  lt,
+  or,
+  sql,
+  type SQL,
+} from 'drizzle-orm';
 import { GENESIS_SHA256 } from '@emberline/domain/signature-content';
 import type { DbOrTx } from '../../db/client';
 import { auditLog, users } from '../../db/schema';
@@ -67,10 +80,23 @@ export function listAuditChainAfter(db: DbOrTx, seq: number, limit: number): Aud
 
 export function listAudit(
   db: DbOrTx,
-  filter: { entityType?: string; before?: number; limit: number },
+  filter: {
+    entityType?: string | undefined;
+    entityId?: string | undefined;
+    actorUserId?: string | undefined;
+    from?: string | undefined;
+    to?: string | undefined;
+    before?: number | undefined;
+    limit: number;
+  },
 ) {
   const conditions: SQL[] = [];
   if (filter.entityType) conditions.push(eq(auditLog.entityType, filter.entityType));
+  if (filter.entityId) conditions.push(eq(auditLog.entityId, filter.entityId));
+  if (filter.actorUserId) conditions.push(eq(auditLog.actorUserId, filter.actorUserId));
+  if (filter.from) conditions.push(gte(auditLog.at, new Date(`${filter.from}T00:00:00Z`)));
+  if (filter.to)
+    conditions.push(lt(auditLog.at, new Date(Date.parse(`${filter.to}T00:00:00Z`) + 86_400_000)));
   if (filter.before) conditions.push(lt(auditLog.id, filter.before));
   return db
     .select({
@@ -90,5 +116,29 @@ export function listAudit(
     .where(conditions.length ? and(...conditions) : undefined)
     .orderBy(desc(auditLog.id))
     .limit(filter.limit)
+    .all();
+}
+
+/** The audit entries of some records, oldest first, with the actor's name: a history. */
+export function listHistory(db: DbOrTx, records: { entityType: string; ids: readonly string[] }[]) {
+  const wanted = records
+    .filter((record) => record.ids.length > 0)
+    .map((record) =>
+      and(eq(auditLog.entityType, record.entityType), inArray(auditLog.entityId, [...record.ids])),
+    );
+  if (wanted.length === 0) return [];
+  return db
+    .select({
+      id: auditLog.id,
+      at: auditLog.at,
+      actorName: users.name,
+      action: auditLog.action,
+      before: auditLog.before,
+      after: auditLog.after,
+    })
+    .from(auditLog)
+    .leftJoin(users, eq(users.id, auditLog.actorUserId))
+    .where(or(...wanted))
+    .orderBy(asc(auditLog.id))
     .all();
 }

@@ -1,5 +1,11 @@
 import { Router } from 'express';
-import { auditListQuerySchema, auditListResponseSchema } from '@emberline/contracts/audit';
+import {
+  auditListQuerySchema,
+  auditListResponseSchema,
+  historyResponseSchema,
+} from '@emberline/contracts/audit';
+import { idParamsSchema } from '@emberline/contracts/users';
+import { principalOf } from '../../http/principal';
 import type { AppContext } from '../../context';
 import { route } from '../../http/route';
 import { createAuditService } from './audit.service';
@@ -11,12 +17,48 @@ export function auditRoutes(ctx: AppContext): Router {
     router,
     'GET /audit-log',
     {
-      summary: 'The audit log, newest first',
+      summary: 'The audit log, newest first, filtered by record, person and days',
       query: auditListQuerySchema,
       response: auditListResponseSchema,
     },
     (_req, res) => {
       res.json(audit.list(res.locals.query));
+    },
+  );
+  route(
+    router,
+    'GET /inspections/:id/history',
+    {
+      summary: 'What happened to an inspection, its images and its findings, in words',
+      params: idParamsSchema,
+      response: historyResponseSchema,
+    },
+    (_req, res) => {
+      res.json({ items: audit.inspectionHistory(principalOf(res), res.locals.params.id) });
+    },
+  );
+  route(
+    router,
+    'GET /findings/:id/history',
+    {
+      summary: 'What happened to a finding, in words',
+      params: idParamsSchema,
+      response: historyResponseSchema,
+    },
+    (_req, res) => {
+      res.json({ items: audit.findingHistory(principalOf(res), res.locals.params.id) });
+    },
+  );
+  route(
+    router,
+    'GET /limit-sets/:id/history',
+    {
+      summary: 'What happened to a limit revision, in words',
+      params: idParamsSchema,
+      response: historyResponseSchema,
+    },
+    (_req, res) => {
+      res.json({ items: audit.limitSetHistory(res.locals.params.id) });
     },
   );
   return router;

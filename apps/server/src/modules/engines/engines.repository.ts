@@ -20,6 +20,15 @@ const columns = {
   tsnCsnAsOf: engines.tsnCsnAsOf,
   status: engines.status,
   createdAt: engines.createdAt,
+  // The latest inspection submitted and not yet dispositioned, and whether it holds a finding
+  // beyond limits: the fleet shows such an engine as awaiting disposition.
+  awaitingInspectionId: sql<string | null>`(SELECT i.id FROM inspections i
+    WHERE i.engine_id = ${engines.id} AND i.state = 'submitted'
+    ORDER BY i.date DESC, i.created_at DESC LIMIT 1)`,
+  awaitingBeyondLimits: sql<number>`EXISTS (SELECT 1 FROM inspections i
+    JOIN findings f ON f.inspection_id = i.id
+    WHERE i.engine_id = ${engines.id} AND i.state = 'submitted'
+      AND f.status = 'recorded' AND f.category = 'beyond-limits')`,
 };
 
 export interface EngineListRow {
@@ -36,6 +45,8 @@ export interface EngineListRow {
   tsnCsnAsOf: string;
   status: EngineRecord['status'];
   createdAt: Date;
+  awaitingInspectionId: string | null;
+  awaitingBeyondLimits: number;
 }
 
 const sortColumns: Record<EngineSortKey, AnySQLiteColumn[]> = {

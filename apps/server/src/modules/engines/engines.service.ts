@@ -26,8 +26,17 @@ import {
   type EngineListRow,
 } from './engines.repository';
 
-export function toEngine(row: EngineListRow): Engine {
-  return { ...row, createdAt: row.createdAt.toISOString() };
+/** An engine as the caller sees it: customers see released inspections only, so nothing waits. */
+export function toEngine(row: EngineListRow, principal: Principal): Engine {
+  const { awaitingInspectionId, awaitingBeyondLimits, ...engine } = row;
+  return {
+    ...engine,
+    createdAt: row.createdAt.toISOString(),
+    awaitingDisposition:
+      awaitingInspectionId && !recordScope(principal).releasedOnly
+        ? { inspectionId: awaitingInspectionId, beyondLimits: Boolean(awaitingBeyondLimits) }
+        : null,
+  };
 }
 
 export function createEnginesService(ctx: AppContext) {
@@ -80,12 +89,15 @@ export function createEnginesService(ctx: AppContext) {
         ...filters,
         scopeOrganisationId: recordScope(principal).organisationId ?? undefined,
       });
-      return { items: rows.map(toEngine), total, page, pageSize };
+      return { items: rows.map((row) => toEngine(row, principal)), total, page, pageSize };
     },
 
     detail(principal: Principal, id: string): EngineDetail {
       const row = visibleEngine(principal, id);
-      return { ...toEngine(row), utilization: dailyUtilization(listUtilization(db, id)) };
+      return {
+        ...toEngine(row, principal),
+        utilization: dailyUtilization(listUtilization(db, id)),
+      };
     },
 
     create(principal: Principal, input: ParsedEngineInput, meta: RequestMeta): EngineDetail {

@@ -1,3 +1,6 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import request from 'supertest';
 import { afterEach, describe, expect, it } from 'vitest';
 import { demoAccounts, DEMO_PASSWORD, startTestApp, type TestApp } from '../../../test/test-app';
@@ -27,5 +30,27 @@ describe('demo data only when asked', () => {
     const installation = await request(t.app).get('/api/v1/installation');
     expect(installation.status).toBe(200);
     expect(installation.body).toEqual({ demo: true });
+  });
+
+  it('tells signed-in users, and only them, whether the records key is kept with the records', async () => {
+    t = await startTestApp();
+    expect((await request(t.app).get('/api/v1/installation/records-key')).status).toBe(401);
+    const inspector = await t.signIn(demoAccounts.inspector);
+    const inside = await request(t.app)
+      .get('/api/v1/installation/records-key')
+      .set('Cookie', inspector);
+    expect(inside.body).toEqual({ insideDataDir: true });
+    await t.close();
+
+    const keyFile = path.join(
+      fs.mkdtempSync(path.join(os.tmpdir(), 'emberline-key-')),
+      'records.key',
+    );
+    fs.writeFileSync(keyFile, Buffer.alloc(32, 7).toString('base64'));
+    t = await startTestApp({ env: { RECORDS_KEY_FILE: keyFile } });
+    const outside = await request(t.app)
+      .get('/api/v1/installation/records-key')
+      .set('Cookie', await t.signIn(demoAccounts.inspector));
+    expect(outside.body).toEqual({ insideDataDir: false });
   });
 });

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { installationSchema } from '@emberline/contracts/installation';
+import { installationSchema, recordsKeyStateSchema } from '@emberline/contracts/installation';
 import type { AppContext } from '../../context';
 import { route } from '../../http/route';
 import { createInstallationService } from './installation.service';
@@ -16,6 +16,17 @@ export function installationRoutes(ctx: AppContext): Router {
     },
     (_req, res) => {
       res.json(installation.describe());
+    },
+  );
+  route(
+    router,
+    'GET /installation/records-key',
+    {
+      summary: 'Whether the records key is kept inside the data directory (signed-in users only)',
+      response: recordsKeyStateSchema,
+    },
+    (_req, res) => {
+      res.json(installation.recordsKey());
     },
   );
   return router;

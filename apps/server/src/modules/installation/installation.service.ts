@@ -1,4 +1,4 @@
-import type { Installation } from '@emberline/contracts/installation';
+import type { Installation, RecordsKeyState } from '@emberline/contracts/installation';
 import type { AppContext } from '../../context';
 import { demoUsers } from '../../demo/demo-scenario';
 import { anyUserWithId } from '../users/users.repository';
@@ -9,6 +9,10 @@ export function createInstallationService(ctx: AppContext) {
     /** A demo installation is one whose data directory holds the demo scenario's accounts. */
     describe(): Installation {
       return { demo: anyUserWithId(ctx.db, demoIds) };
+    },
+
+    recordsKey(): RecordsKeyState {
+      return { insideDataDir: ctx.recordsKey.insideDataDir };
     },
   };
 }

@@ -256,6 +256,17 @@ describe('engineering review', () => {
     expect(alerts[0]!.record?.id).toBe(inspectionId);
     const addresses = alerts[0]!.recipients.map((recipient) => recipient.address).sort();
     expect(addresses).toEqual(['admin@demo.test', 'engineer2@demo.test', 'engineer@demo.test']);
+    // The fleet shows the engine as awaiting disposition, beyond limits; not to its owner, who
+    // sees released inspections only.
+    const fleet = await request(t.app)
+      .get('/api/v1/engines')
+      .query({ serial: 'VT3-D0101' })
+      .set('Cookie', engineer);
+    expect(fleet.body.items[0].awaitingDisposition).toEqual({ inspectionId, beyondLimits: true });
+    const owner = await t.signIn(demoAccounts.customer);
+    const theirs = await request(t.app).get('/api/v1/engines/engine-d0101').set('Cookie', owner);
+    expect(theirs.body.awaitingDisposition).toBeNull();
+
     await t.deliver();
     const caught = await waitForMail(t.runtime, 'engineer2@demo.test');
     expect(caught.subject).toBe('Beyond limits: engine VT3-D0101 awaits disposition');
@@ -492,5 +503,79 @@ describe('engineering review', () => {
         ),
       }),
     ]);
+  });
+
+  it('asks whether a finding at the same place as one of the previous dispositioned inspection is the same damage, and records the answer', async () => {
+    const earlier = await prepare();
+    for (const finding of earlier.findings)
+      await dispose(finding.id, { decision: decisionFor(finding) }).expect(201);
+    const outcome = await request(t.app)
+      .post(`/api/v1/inspections/${earlier.inspectionId}/outcome`)
+      .set('Cookie', engineer)
+      .send({ password: DEMO_PASSWORD });
+    expect(outcome.status).toBe(201);
+
+    // The next inspection of the engine records the same crack again, without linking it.
+    const later = await openInspection(t.app, inspector, {
+      engineId: 'engine-d0101',
+      date: '2026-05-28',
+      csn: 14_400,
+    });
+    const [image] = await uploadImages(t.app, inspector, later, [await still(1600, 1200, 150)]);
+    const again = await request(t.app)
+      .post(`/api/v1/inspections/${later}/findings`)
+      .set('Cookie', inspector)
+      .send({
+        imageId: image,
+        shape: crack(300, 110),
+        calibration: tenMillimetreReference,
+        row: 'hpt1-ngv',
+        position: 10,
+        zone: 'leading-edge',
+        damage: 'crack',
+        method: 'image',
+      })
+      .expect(201);
+    for (const row of ['hpt1-ngv', 'hpt1-blade'])
+      await request(t.app)
+        .put(`/api/v1/inspections/${later}/coverage/${row}`)
+        .set('Cookie', inspector)
+        .send({ status: 'full', viewedPositions: [], noDamageFound: false, reason: '' })
+        .expect(200);
+    const detail = await request(t.app)
+      .get(`/api/v1/inspections/${later}`)
+      .set('Cookie', inspector);
+    for (const flag of detail.body.flags as { code: string }[])
+      await request(t.app)
+        .post(`/api/v1/inspections/${later}/flags/${flag.code}/acknowledgement`)
+        .set('Cookie', inspector)
+        .send({ note: 'Checked against the engine log book' })
+        .expect(200);
+    await request(t.app)
+      .post(`/api/v1/inspections/${later}/submission`)
+      .set('Cookie', inspector)
+      .expect(200);
+
+    const review = await reviewOf(later);
+    expect(review.recurrences).toEqual([
+      {
+        findingId: again.body.id,
+        candidateFindingId: earlier.findings[1]!.id,
+        candidateNumber: 2,
+        candidateInspectionId: earlier.inspectionId,
+        candidateInspectionDate: '2026-05-20',
+      },
+    ]);
+    const signed = await dispose(again.body.id, {
+      decision: decisionFor(again.body),
+      recurrence: { candidateFindingId: earlier.findings[1]!.id, answer: 'same-damage' },
+    });
+    expect(signed.status).toBe(201);
+    expect(signed.body.recurrence).toEqual({
+      candidateFindingId: earlier.findings[1]!.id,
+      answer: 'same-damage',
+    });
+    // Answered: no longer asked.
+    expect((await reviewOf(later)).recurrences).toEqual([]);
   });
 });

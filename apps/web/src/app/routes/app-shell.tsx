@@ -7,6 +7,7 @@ import { UploadPanel } from '../../components/layout/upload-panel';
 import { navigation } from '../../config/navigation';
 import { useLogout } from '../../features/auth/api/auth';
 import { useSignedInUser } from '../../features/auth/hooks/use-signed-in-user';
+import { RecordsKeyBanner } from '../../features/installation/components/records-key-banner';
 import { OutboxAttentionBanner } from '../../features/outbox/components/attention-banner';
 
 export function AppShell() {
@@ -79,6 +80,7 @@ export function AppShell() {
           </div>
         </div>
       </header>
+      <RecordsKeyBanner />
       <OutboxAttentionBanner enabled={can(user.role, 'read:outbox')} />
       <main id="main" className="mx-auto w-full max-w-7xl flex-1 px-6 py-8">
         <Outlet />

@@ -42,6 +42,30 @@ export function EngineRoute() {
         title={`Engine ${data.serialNumber}`}
         description={`${data.modelName} · ${data.organisationName}`}
       />
+      {data.awaitingDisposition ? (
+        <Notice
+          tone={data.awaitingDisposition.beyondLimits ? 'error' : 'caution'}
+          title={
+            data.awaitingDisposition.beyondLimits
+              ? 'Awaiting disposition, beyond limits'
+              : 'Awaiting disposition'
+          }
+        >
+          {data.awaitingDisposition.beyondLimits
+            ? 'Its latest submitted inspection holds a finding beyond limits, not yet dispositioned by an engineer. '
+            : 'Its latest submitted inspection waits for an engineer’s disposition. '}
+          <Link
+            to={
+              can(user.role, 'review:inspection')
+                ? `/review/${data.awaitingDisposition.inspectionId}`
+                : `/inspections/${data.awaitingDisposition.inspectionId}`
+            }
+            className="font-medium underline"
+          >
+            {can(user.role, 'review:inspection') ? 'Open the review' : 'Open the inspection'}
+          </Link>
+        </Notice>
+      ) : null}
       <Panel>
         <h2 className="mb-4 text-lg font-semibold">Particulars</h2>
         <EngineParticulars engine={data} />

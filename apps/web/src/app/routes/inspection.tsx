@@ -19,6 +19,7 @@ import { ImageStrip } from '../../features/inspections/components/image-strip';
 import { ImageTagForm } from '../../features/inspections/components/image-tag-form';
 import { ReviewActions } from '../../features/inspections/components/review-actions';
 import { VideoFrames } from '../../features/inspections/components/video-frames';
+import { RecordHistory } from '../../features/audit/components/record-history';
 import { DecisionsSummary } from '../../features/review/components/decisions-summary';
 import { ApiError } from '../../lib/api-client';
 import { formatDate, formatHours } from '../../lib/format';
@@ -162,6 +163,11 @@ export function InspectionRoute() {
         <Panel>
           <h2 className="mb-3 text-lg font-semibold">Frames from a probe video</h2>
           <VideoFrames inspectionId={data.id} />
+        </Panel>
+      ) : null}
+      {can(user.role, 'read:history') ? (
+        <Panel>
+          <RecordHistory kind="inspections" id={data.id} />
         </Panel>
       ) : null}
     </div>

@@ -18,6 +18,7 @@ import {
   useReplaceRules,
 } from '../../features/limit-sets/api/limit-sets';
 import { CopyForm, EditParticularsForm } from '../../features/limit-sets/components/copy-form';
+import { RecordHistory } from '../../features/audit/components/record-history';
 import { ImpactPanel } from '../../features/limit-sets/components/impact-panel';
 import { ImportPanel } from '../../features/limit-sets/components/import-panel';
 import {
@@ -274,6 +275,9 @@ function LimitSetPage({ id }: { id: string }) {
           <ImportPanel limitSetId={id} />
         </Panel>
       ) : null}
+      <Panel>
+        <RecordHistory kind="limit-sets" id={id} />
+      </Panel>
     </div>
   );
 }

@@ -12,6 +12,7 @@ import { Button } from '../../components/ui/button';
 import { Notice } from '../../components/ui/notice';
 import { LoadingLine, PageHeader, Panel } from '../../components/ui/page';
 import { VerdictBadge } from '../../components/ui/verdict-badge';
+import { RecordHistory } from '../../features/audit/components/record-history';
 import { RequirePermission } from '../../features/auth/components/require-permission';
 import { useEngineModel } from '../../features/engine-models/api/engine-models';
 import { useEngine } from '../../features/fleet/api/engines';
@@ -226,6 +227,7 @@ function DispositionScreen({ inspectionId }: { inspectionId: string }) {
                 rowLabel={rowLabel(selected.row)}
                 dispositions={dispositionsOf(selected.id)}
               />
+              <RecordHistory key={selected.id} kind="findings" id={selected.id} />
               {current && !correcting && data.state !== 'draft' ? (
                 <Button
                   variant="secondary"

@@ -1,21 +1,42 @@
-import { infiniteQueryOptions, useInfiniteQuery } from '@tanstack/react-query';
-import type { AuditListResponse } from '@emberline/contracts/audit';
+import { infiniteQueryOptions, useInfiniteQuery, useQuery } from '@tanstack/react-query';
+import type { AuditListQuery, AuditListResponse, HistoryEntry } from '@emberline/contracts/audit';
 import { api } from '../../../lib/api-client';
+
+export type AuditFilters = Partial<Omit<AuditListQuery, 'before' | 'limit'>>;
 
 export const auditKeys = {
   all: ['audit-log'] as const,
-  list: () => [...auditKeys.all, 'list'] as const,
+  list: (filters: AuditFilters) => [...auditKeys.all, 'list', filters] as const,
+  history: (kind: HistoryKind, id: string) => [...auditKeys.all, 'history', kind, id] as const,
 };
 
-export const auditLogQueryOptions = () =>
+export const auditLogQueryOptions = (filters: AuditFilters) =>
   infiniteQueryOptions({
-    queryKey: auditKeys.list(),
-    queryFn: ({ pageParam }) =>
-      api.get<AuditListResponse>(`/audit-log?limit=50${pageParam ? `&before=${pageParam}` : ''}`),
+    queryKey: auditKeys.list(filters),
+    queryFn: ({ pageParam }) => {
+      const params = new URLSearchParams({ limit: '50' });
+      for (const [key, value] of Object.entries(filters)) if (value) params.set(key, value);
+      if (pageParam) params.set('before', String(pageParam));
+      return api.get<AuditListResponse>(`/audit-log?${params.toString()}`);
+    },
     initialPageParam: 0,
     getNextPageParam: (last) => last.nextBefore ?? undefined,
   });
 
-export function useAuditLog() {
-  return useInfiniteQuery(auditLogQueryOptions());
+export function useAuditLog(filters: AuditFilters) {
+  return useInfiniteQuery(auditLogQueryOptions(filters));
+}
+
+export type HistoryKind = 'inspections' | 'findings' | 'limit-sets';
+
+/** A record's history in words, oldest first. */
+export function useRecordHistory(kind: HistoryKind, id: string, enabled = true) {
+  return useQuery({
+    queryKey: auditKeys.history(kind, id),
+    queryFn: () =>
+      api
+        .get<{ items: HistoryEntry[] }>(`/${kind}/${encodeURIComponent(id)}/history`)
+        .then((body) => body.items),
+    enabled,
+  });
 }

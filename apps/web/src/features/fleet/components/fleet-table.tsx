@@ -13,6 +13,7 @@ import {
   type SortingState,
 } from '@tanstack/react-table';
 import { ArrowDown, ArrowUp, ArrowUpDown } from 'lucide-react';
+import { AwaitingDisposition } from '../../../components/ui/awaiting-disposition';
 import { Link } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { Input, Select } from '../../../components/ui/field';
@@ -32,12 +33,17 @@ const columns: ColumnDef<typeof features, Engine>[] = [
     header: 'Serial',
     enableHiding: false,
     cell: ({ row }) => (
-      <Link
-        to={`/fleet/${row.original.id}`}
-        className="font-mono font-medium text-ember-800 underline-offset-2 hover:underline"
-      >
-        {row.original.serialNumber}
-      </Link>
+      <span className="flex flex-col gap-1">
+        <Link
+          to={`/fleet/${row.original.id}`}
+          className="font-mono font-medium text-ember-800 underline-offset-2 hover:underline"
+        >
+          {row.original.serialNumber}
+        </Link>
+        {row.original.awaitingDisposition ? (
+          <AwaitingDisposition awaiting={row.original.awaitingDisposition} />
+        ) : null}
+      </span>
     ),
   },
   { id: 'modelName', accessorKey: 'modelName', header: 'Model' },
