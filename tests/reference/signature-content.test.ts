@@ -3,7 +3,11 @@ import { canonicalJson, canonicalSha256 } from '../../apps/server/src/lib/canoni
 import {
   dispositionContent,
   GENESIS_SHA256,
+  outcomeContent,
+  publicationContent,
+  releaseContent,
   signatureHeader,
+  withdrawalContent,
   type DispositionSubject,
 } from '../../packages/domain/src/signature-content';
 
@@ -89,6 +93,73 @@ describe('the signed content of a disposition (DESIGN §5.5)', () => {
     // Computed with GNU coreutils: printf '%s' "$EXPECTED_HEADER" | sha256sum
     expect(canonicalSha256(header)).toBe(EXPECTED_HEADER_SHA256);
   });
+});
+
+// The other kinds, each from a hand-made, invented record; every hash computed with GNU coreutils
+// as printf '%s' "<the text beside it>" | sha256sum.
+describe('the signed content of every other kind (DESIGN §5.5)', () => {
+  const cases = [
+    {
+      kind: 'withdrawal',
+      content: withdrawalContent({
+        inspectionId: 'inspection-1',
+        reason: 'Measure F3 again on a sharper still',
+        withdrawn: [{ dispositionId: 'disposition-1', signatureSha256: 'c'.repeat(64) }],
+      }),
+      text: '{"inspectionId":"inspection-1","reason":"Measure F3 again on a sharper still","withdrawn":[{"dispositionId":"disposition-1","signatureSha256":"cccccccccccccccccccccccccccccccccccccccccccccccccccccccccccccccc"}]}',
+      sha256: 'bc0a5befea3b31e656973b88d066f4c003c5573eb5b0becf842073bffb728bc5',
+    },
+    {
+      kind: 'outcome',
+      content: outcomeContent({
+        inspectionId: 'inspection-1',
+        dispositions: [
+          {
+            findingId: 'finding-2',
+            dispositionId: 'disposition-2',
+            signatureSha256: 'd'.repeat(64),
+            decision: {
+              kind: 'remove',
+              action: { kind: 'remove-within', cycles: 50, hours: null },
+            },
+          },
+        ],
+        repeatInterval: null,
+        removals: [{ kind: 'remove-within', cycles: 50, hours: null }],
+        flagAcceptances: [
+          { code: 'probe-calibration-expired', note: 'Cross-checked on the reference still' },
+        ],
+      }),
+      text: '{"dispositions":[{"decision":{"action":{"cycles":50,"hours":null,"kind":"remove-within"},"kind":"remove"},"dispositionId":"disposition-2","findingId":"finding-2","signatureSha256":"dddddddddddddddddddddddddddddddddddddddddddddddddddddddddddddddd"}],"flagAcceptances":[{"code":"probe-calibration-expired","note":"Cross-checked on the reference still"}],"inspectionId":"inspection-1","removals":[{"cycles":50,"hours":null,"kind":"remove-within"}],"repeatInterval":null}',
+      sha256: '24a6c1bc756a843776e8d649c631bf14206f7293e925cfab71ff993ffd16de82',
+    },
+    {
+      kind: 'release',
+      content: releaseContent({
+        inspectionId: 'inspection-1',
+        outcomeSignatureSha256: 'e'.repeat(64),
+        report: null,
+      }),
+      text: '{"inspectionId":"inspection-1","outcomeSignatureSha256":"eeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeeee","report":null}',
+      sha256: 'e4219523196450fec40474454b2e145ef308bfaab6fca768604b082db6beee45',
+    },
+    {
+      kind: 'publication',
+      content: publicationContent({
+        limitSetId: 'limit-set-2',
+        modelId: 'model-1',
+        revision: 'X-2',
+        contentSha256: 'f'.repeat(64),
+      }),
+      text: '{"contentSha256":"ffffffffffffffffffffffffffffffffffffffffffffffffffffffffffffffff","limitSetId":"limit-set-2","modelId":"model-1","revision":"X-2"}',
+      sha256: 'eb3885aa6a5f447adff29845d769f8b187e86a287aa21c05ff7e2b7840da2db2',
+    },
+  ];
+  for (const item of cases)
+    it(`builds a ${item.kind} as the canonical text whose SHA-256 an independent tool gives`, () => {
+      expect(canonicalJson(item.content)).toBe(item.text);
+      expect(canonicalSha256(item.content)).toBe(item.sha256);
+    });
 });
 
 const EXPECTED_TEXT =

@@ -1,3 +1,4 @@
+import sharp from 'sharp';
 import request from 'supertest';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import type { Finding } from '@emberline/contracts/findings';
@@ -577,5 +578,50 @@ describe('engineering review', () => {
     });
     // Answered: no longer asked.
     expect((await reviewOf(later)).recurrences).toEqual([]);
+  });
+
+  it('keeps an upload in flight from adding an image to an inspection submitted meanwhile', async () => {
+    const { inspectionId } = await prepare({ submit: false });
+    // Large noisy stills take a while to send and process: the submission commits while they are
+    // on their way. Whichever guard meets them (the draft check when the upload is taken, or the
+    // SQLite trigger at the insert, tested alone above), none is added and the answer is 409.
+    const files = await Promise.all(
+      [1, 2, 3].map((seed) =>
+        sharp({
+          create: {
+            width: 4000,
+            height: 3000,
+            channels: 3,
+            noise: { type: 'gaussian', mean: 100 + seed, sigma: 40 },
+          },
+        })
+          .jpeg({ quality: 95 })
+          .toBuffer(),
+      ),
+    );
+    let call = request(t.app)
+      .post(`/api/v1/inspections/${inspectionId}/images`)
+      .set('Cookie', inspector);
+    files.forEach((data, index) => {
+      call = call.attach('files', data, {
+        filename: `late-${index}.jpg`,
+        contentType: 'image/jpeg',
+      });
+    });
+    const upload = call.then((response) => response);
+    await new Promise((resolve) => setTimeout(resolve, 150));
+    await request(t.app)
+      .post(`/api/v1/inspections/${inspectionId}/submission`)
+      .set('Cookie', inspector)
+      .expect(200);
+    const answered = await upload;
+    expect(answered.status).toBe(409);
+    expect(answered.body.error.message).toMatch(/submitted for review and is locked/);
+    const detail = await request(t.app)
+      .get(`/api/v1/inspections/${inspectionId}`)
+      .set('Cookie', engineer);
+    expect(detail.body.images.map((image: { originalName: string }) => image.originalName)).toEqual(
+      ['still-0.jpg'],
+    );
   });
 });
