@@ -23,17 +23,18 @@ export function ReviewActions({
   const submit = useSubmitInspection(inspection.id);
   const openFlags = inspection.flags.filter((flag) => !flag.acknowledgedAt).length;
 
+  const returned = inspection.returnedReason ? (
+    <Notice
+      tone="caution"
+      title={`Sent back to draft by ${inspection.returnedByName ?? 'the reviewing engineer'}, ${formatDateTime(inspection.returnedAt)}`}
+    >
+      {inspection.returnedReason}
+    </Notice>
+  ) : null;
   if (inspection.state === 'draft' && canSubmit) {
     return (
       <div className="flex flex-col gap-3">
-        {inspection.returnedReason ? (
-          <Notice
-            tone="caution"
-            title={`Sent back to draft by ${inspection.returnedByName ?? 'the reviewing engineer'}, ${formatDateTime(inspection.returnedAt)}`}
-          >
-            {inspection.returnedReason}
-          </Notice>
-        ) : null}
+        {returned}
         {openFlags > 0 ? (
           <p className="text-sm text-soot-700">
             {openFlags} flag{openFlags === 1 ? '' : 's'} to acknowledge before this inspection can
@@ -74,6 +75,7 @@ export function ReviewActions({
       Open the review
     </Link>
   ) : null;
+  if (inspection.state === 'draft') return returned;
   if (inspection.state === 'submitted') {
     return (
       <div className="flex flex-col gap-3">

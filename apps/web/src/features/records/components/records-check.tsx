@@ -26,7 +26,9 @@ export function RecordsCheck() {
         <Notice tone="success" title="Every record checks out">
           {formatCount(result.checked.signatures)} signatures and{' '}
           {formatCount(result.checked.auditRows)} audit rows are present, unchanged and sealed with
-          the records key.
+          the records key; {formatCount(result.checked.dispositions)} current dispositions match the
+          findings they sign, and {formatCount(result.checked.originals)} signed originals hash as
+          signed.
         </Notice>
       ) : (
         <Notice tone="error" title={`${result.problems.length} records do not check out`}>
@@ -42,6 +44,10 @@ export function RecordsCheck() {
         <dd>{formatCount(result.checked.signatures)}</dd>
         <dt>Audit rows checked</dt>
         <dd>{formatCount(result.checked.auditRows)}</dd>
+        <dt>Current dispositions compared</dt>
+        <dd>{formatCount(result.checked.dispositions)}</dd>
+        <dt>Signed originals re-hashed</dt>
+        <dd>{formatCount(result.checked.originals)}</dd>
         <dt>Chain head</dt>
         <dd className="break-all font-mono text-xs">
           {result.head ? `${result.head.seq} · ${result.head.sha256}` : 'no signature yet'}
