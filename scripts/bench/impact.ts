@@ -88,6 +88,9 @@ export async function benchImpact() {
      VALUES (?, ?, ?, 'bench-image', '{"kind":"point","points":[[1,1]]}', 1, ?, ?, ?, ?, 'probe', ?, ?, ?,
        ?, ?, ?, 'recorded', ?, ?, ?, ?, ?, ?, ?, 'user-admin', ?, ?)`,
   );
+  const release = sqlite.prepare(
+    "UPDATE inspections SET state = 'released', release_revision = 1 WHERE id = ?",
+  );
   const now = Date.now();
   const engines = Math.ceil(FINDINGS / PER_INSPECTION);
   // Synthetic rows only: the image and user they name are not created.
@@ -98,7 +101,9 @@ export async function benchImpact() {
       const engineId = `bench-engine-${engine}`;
       const inspectionId = `bench-inspection-${engine}`;
       insertEngine.run(engineId, `VT3-B${String(engine).padStart(5, '0')}`, DEMO_MODEL_ID, now);
-      insertInspection.run(inspectionId, engineId, engine % 2 ? 'released' : 'draft', now);
+      // Findings go into a draft (a submitted inspection refuses them, db/triggers.ts); every
+      // other inspection is then released.
+      insertInspection.run(inspectionId, engineId, 'draft', now);
       const group: EvaluationFinding[] = [];
       for (let number = 1; number <= PER_INSPECTION && made < FINDINGS; number += 1, made += 1) {
         const kind = pick(next());
@@ -146,6 +151,7 @@ export async function benchImpact() {
           now,
         );
       });
+      if (engine % 2) release.run(inspectionId);
     }
   })();
   sqlite.pragma('foreign_keys = ON');

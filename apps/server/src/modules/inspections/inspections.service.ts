@@ -64,9 +64,26 @@ export function toInspection(row: InspectionRow): Inspection {
   };
 }
 
+/**
+ * An inspection as its owner sees it: released, as of its latest release, even while a correction
+ * made after that release waits for the next one; the review's own marks stay with the staff.
+ */
+function asReleased(inspection: Inspection): Inspection {
+  return {
+    ...inspection,
+    state: 'released',
+    newerRevisionInForce: false,
+    returnedReason: null,
+    returnedByName: null,
+    returnedAt: null,
+  };
+}
+
 export function createInspectionsService(ctx: AppContext) {
   const { db } = ctx;
   const engines = createEnginesService(ctx);
+  const seen = (principal: Principal) =>
+    recordScope(principal).releasedOnly ? asReleased : (inspection: Inspection) => inspection;
 
   return {
     list(principal: Principal, engineId: string | undefined): Inspection[] {
@@ -76,12 +93,17 @@ export function createInspectionsService(ctx: AppContext) {
         engineId,
         organisationId: scope.organisationId ?? undefined,
         releasedOnly: scope.releasedOnly,
-      }).map(toInspection);
+      })
+        .map(toInspection)
+        .map(seen(principal));
     },
 
     detail(principal: Principal, id: string): InspectionDetail {
       const inspection = visibleInspection(db, principal, id);
-      return { ...toInspection(inspection), images: listImages(db, id).map(toImage) };
+      return {
+        ...seen(principal)(toInspection(inspection)),
+        images: listImages(db, id).map(toImage),
+      };
     },
 
     create(

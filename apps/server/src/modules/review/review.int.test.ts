@@ -592,6 +592,7 @@ describe('engineering review', () => {
             width: 4000,
             height: 3000,
             channels: 3,
+            background: { r: 0, g: 0, b: 0 },
             noise: { type: 'gaussian', mean: 100 + seed, sigma: 40 },
           },
         })
@@ -623,5 +624,55 @@ describe('engineering review', () => {
     expect(detail.body.images.map((image: { originalName: string }) => image.originalName)).toEqual(
       ['still-0.jpg'],
     );
+  });
+
+  it('shows the owner what was released while a correction after release waits for the next release', async () => {
+    const { inspectionId, findings } = await prepare();
+    for (const finding of findings)
+      await dispose(finding.id, { decision: decisionFor(finding) }).expect(201);
+    const sign = (what: 'outcome' | 'release') =>
+      request(t.app)
+        .post(`/api/v1/inspections/${inspectionId}/${what}`)
+        .set('Cookie', engineer)
+        .send({ password: DEMO_PASSWORD })
+        .expect(201);
+    await sign('outcome');
+    await sign('release');
+    const customer = await t.signIn(demoAccounts.customer);
+    const first = (await reviewOf(inspectionId, customer)).items.find(
+      (item) => item.findingId === findings[1]!.id,
+    )!;
+
+    // A correction after release: the staff see it at once and the inspection waits for a new
+    // outcome; the owner keeps seeing revision 1 as it was released.
+    const correction = await dispose(findings[1]!.id, {
+      decision: {
+        kind: 'repeat-inspection',
+        repeatInterval: { cycles: 200, hours: null, days: null },
+      },
+      supersedesId: first.id,
+      supersedeReason: 'Halved after a second look',
+    });
+    expect(correction.status).toBe(201);
+    const staff = await request(t.app)
+      .get(`/api/v1/inspections/${inspectionId}`)
+      .set('Cookie', engineer);
+    expect(staff.body).toMatchObject({ state: 'submitted', releaseRevision: 1 });
+    const owner = await request(t.app)
+      .get(`/api/v1/inspections/${inspectionId}`)
+      .set('Cookie', customer);
+    expect(owner.body).toMatchObject({ state: 'released', releaseRevision: 1 });
+    const ownerView = await reviewOf(inspectionId, customer);
+    expect(ownerView.items.map((item) => item.id)).toContain(first.id);
+    expect(ownerView.items.map((item) => item.id)).not.toContain(correction.body.id);
+    expect(ownerView.withdrawals).toEqual([]);
+
+    // The new outcome and release (revision 2) bring the correction to the owner.
+    await sign('outcome');
+    await sign('release');
+    const second = await reviewOf(inspectionId, customer);
+    expect(second.releases).toEqual([expect.objectContaining({ revision: 2 })]);
+    expect(second.items.map((item) => item.id)).toContain(correction.body.id);
+    expect(second.items.map((item) => item.id)).not.toContain(first.id);
   });
 });

@@ -308,6 +308,7 @@ export function createReviewService(
     /** The review of one inspection: dispositions, outcomes, releases, withdrawals, what is left. */
     review(principal: Principal, id: string): InspectionReview {
       const inspection = reviewableInspection(principal, id);
+      if (recordScope(principal).releasedOnly) return this.released(inspection);
       const records = listDispositions(db, id);
       const outcomes = signaturesOf(db, 'outcome', id);
       const releases = signaturesOf(db, 'release', id);
@@ -360,6 +361,69 @@ export function createReviewService(
           const reason = signingRefusal(principal, inspection);
           return { allowed: reason === null, reason };
         })(),
+      };
+    },
+
+    /**
+     * The review as the owner sees it: the decisions, outcome and release of the latest release,
+     * exactly as released, whatever was corrected since (a correction reaches the owner with the
+     * next release). Nothing of the review's own work shows.
+     */
+    released(inspection: InspectionRow): InspectionReview {
+      const releases = signaturesOf(db, 'release', inspection.id);
+      const latest = releases.at(-1);
+      const outcomes = signaturesOf(db, 'outcome', inspection.id);
+      const releasedOutcome = latest
+        ? outcomes.find(
+            (signature) =>
+              signature.sha256 ===
+              (latest.content as ReturnType<typeof releaseContent>).outcomeSignatureSha256,
+          )
+        : undefined;
+      const releasedIds = new Set(
+        (
+          (releasedOutcome?.content as ReturnType<typeof outcomeContent> | undefined)
+            ?.dispositions ?? []
+        ).map((item) => item.dispositionId),
+      );
+      const records = listDispositions(db, inspection.id).filter((record) =>
+        releasedIds.has(record.id),
+      );
+      const signatures = new Map(
+        findSignatures(
+          db,
+          records.map((record) => record.signatureId),
+        ).map((record) => [record.id, record]),
+      );
+      const content = releasedOutcome?.content as ReturnType<typeof outcomeContent> | undefined;
+      return {
+        items: records.map((record) => ({
+          ...toDisposition(record, signatures.get(record.signatureId)!),
+          state: 'current' as const,
+          current: true,
+        })),
+        outcomes:
+          releasedOutcome && content
+            ? [
+                {
+                  kind: decisionOutcome(
+                    content.dispositions.map((item) => decisionSchema.parse(item.decision)),
+                  ).kind,
+                  repeatInterval: content.repeatInterval,
+                  removals: content.removals as BeyondAction[],
+                  flagAcceptances: content.flagAcceptances,
+                  current: true,
+                  signature: toSignatureSummary(releasedOutcome),
+                },
+              ]
+            : [],
+        releases: latest
+          ? [{ revision: releases.length, current: true, signature: toSignatureSummary(latest) }]
+          : [],
+        withdrawals: [],
+        recurrences: [],
+        left: { findings: [], flags: [], coverageGaps: [] },
+        signing: { allowed: false, reason: 'Owners see released inspections; they do not sign.' },
       };
     },
 
