@@ -21,6 +21,7 @@ import { limitSetsRoutes } from './modules/limit-sets/limit-sets.routes';
 import { imagesRoutes } from './modules/images/images.routes';
 import { inspectionsRoutes } from './modules/inspections/inspections.routes';
 import { reviewRoutes } from './modules/review/review.routes';
+import { planningRoutes } from './modules/planning/planning.routes';
 import { healthRoutes } from './modules/health/health.routes';
 import { installationRoutes } from './modules/installation/installation.routes';
 import { openApiRoutes } from './modules/openapi/openapi.routes';
@@ -57,6 +58,7 @@ export function createApiRouter(ctx: AppContext): Router {
   api.use(auditRoutes(ctx));
   api.use(recordsRoutes(ctx));
   api.use(reviewRoutes(ctx));
+  api.use(planningRoutes(ctx));
   api.use(calculationsRoutes());
   api.use(openApiRoutes());
   return api;

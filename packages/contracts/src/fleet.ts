@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { intervalSchema } from './limits';
+import { baselineSchema } from './planning';
 import { isoDateSchema } from './forecast';
 
 const key = z
@@ -97,6 +99,14 @@ const rowsSchema = z
 export const engineModelInputSchema = z.strictObject({
   name: label('model name'),
   notes: z.string().trim().max(2000).default(''),
+  /** The routine hot-section inspection interval, whichever dimension comes first (DESIGN §5.6). */
+  standardInterval: intervalSchema
+    .refine(
+      (interval) => interval.cycles !== null || interval.hours !== null || interval.days !== null,
+      { message: 'Give the interval in cycles, hours or days' },
+    )
+    .nullable()
+    .default(null),
   rows: rowsSchema,
 });
 export type EngineModelInput = z.input<typeof engineModelInputSchema>;
@@ -107,6 +117,7 @@ export const engineModelSchema = z.object({
   name: z.string(),
   version: z.number().int(),
   notes: z.string(),
+  standardInterval: intervalSchema.nullable(),
   rows: z.array(engineModelRowSchema.extend({ inUse: z.boolean() })),
   engineCount: z.number().int(),
   createdAt: z.string(),
@@ -156,6 +167,8 @@ export const engineInputSchema = z.strictObject({
     .max(500_000),
   tsnCsnAsOf: isoDateSchema,
   status: engineStatusSchema,
+  /** The last hot-section inspection before the engine joined the fleet, when known. */
+  preFleetInspection: baselineSchema.nullable().default(null),
 });
 export type EngineInput = z.input<typeof engineInputSchema>;
 export type ParsedEngineInput = z.output<typeof engineInputSchema>;
@@ -189,6 +202,7 @@ export const engineSchema = z.object({
   csn: z.number().int(),
   tsnCsnAsOf: z.string(),
   status: engineStatusSchema,
+  preFleetInspection: baselineSchema.nullable(),
   createdAt: z.string(),
   /**
    * A submitted inspection waiting for an engineer's disposition, and whether it holds a finding

@@ -84,6 +84,25 @@ const envSchema = z.object({
   RECORDS_KEY_FILE: z.string().min(1).optional(),
   MAIL_MAX_ATTACHMENTS_MB: positiveInt('MAIL_MAX_ATTACHMENTS_MB').max(200).default(25),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  // The installation's time zone: what "today" is for due dates (DESIGN §5.6).
+  TZ: z
+    .string()
+    .default('UTC')
+    .refine(
+      (zone) => {
+        try {
+          new Intl.DateTimeFormat('en-GB', { timeZone: zone });
+          return true;
+        } catch {
+          return false;
+        }
+      },
+      { message: 'TZ must be a time zone such as UTC or Europe/Dublin' },
+    ),
+  // "Due soon": within this many days, cycles or hours of a due date.
+  DUE_SOON_DAYS: positiveInt('DUE_SOON_DAYS').default(14),
+  DUE_SOON_CYCLES: positiveInt('DUE_SOON_CYCLES').default(50),
+  DUE_SOON_HOURS: positiveInt('DUE_SOON_HOURS').default(100),
 });
 
 export interface Config {
@@ -112,6 +131,9 @@ export interface Config {
   /** The most the attachments of one message may weigh, in bytes. */
   mailMaxAttachmentBytes: number;
   logLevel: string;
+  /** The installation's time zone, in which a due date falls on a day. */
+  timeZone: string;
+  dueSoon: { days: number; cycles: number; hours: number };
 }
 
 export class ConfigError extends Error {
@@ -162,5 +184,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     mailMaxAttachmentBytes: e.MAIL_MAX_ATTACHMENTS_MB * 1024 * 1024,
     recordsKeyFile: e.RECORDS_KEY_FILE ? path.resolve(e.RECORDS_KEY_FILE) : null,
     logLevel: e.LOG_LEVEL,
+    timeZone: e.TZ,
+    dueSoon: { days: e.DUE_SOON_DAYS, cycles: e.DUE_SOON_CYCLES, hours: e.DUE_SOON_HOURS },
   };
 }

@@ -159,6 +159,12 @@ export const engineModels = sqliteTable(
     name: text().notNull(),
     version: integer().notNull(),
     notes: text().notNull().default(''),
+    /** The routine hot-section inspection interval `{cycles, hours, days}` (DESIGN §5.6). */
+    standardInterval: text({ mode: 'json' }).$type<{
+      cycles: number | null;
+      hours: number | null;
+      days: number | null;
+    }>(),
     createdAt: createdAt(),
   },
   (table) => [uniqueIndex('engine_models_name_version_idx').on(table.name, table.version)],
@@ -201,6 +207,10 @@ export const engines = sqliteTable(
     csn: integer().notNull(),
     tsnCsnAsOf: text().notNull(),
     status: text({ enum: ['installed', 'removed', 'in-shop'] }).notNull(),
+    /** The last hot-section inspection before the engine joined the fleet, if known. */
+    preFleetInspection: text({ mode: 'json' }).$type<{ date: string; csn: number; tsn: number }>(),
+    /** The shop's release when it last came back to service: the new baseline (DESIGN §5.6). */
+    shopRelease: text({ mode: 'json' }).$type<{ date: string; csn: number; tsn: number }>(),
     createdAt: createdAt(),
   },
   (table) => [

@@ -254,6 +254,8 @@ export function loadDemoFleet(tx: DbOrTx, now: Date): void {
       version: 1,
       notes:
         'Invented two-spool turbofan for the demo scenario. Rows, counts and ports are made up.',
+      // Invented routine interval: no real engine manual's figure.
+      standardInterval: { cycles: 3000, hours: 6000, days: 730 },
       createdAt: now,
     })
     .run();

@@ -60,6 +60,7 @@ export const routePolicy = {
   'POST /inspections/:id/submission': 'create:inspection',
   'POST /inspections/:id/return': 'review:inspection',
   'GET /review-queue': 'review:inspection',
+  'GET /engines/:id/due': 'read:planning',
   'GET /inspections/:id/dispositions': 'read:inspection',
   'POST /findings/:id/dispositions': 'review:inspection',
   'POST /inspections/:id/outcome': 'review:inspection',

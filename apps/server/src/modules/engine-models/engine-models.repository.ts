@@ -67,7 +67,7 @@ export function insertEngineModel(db: DbOrTx, row: typeof engineModels.$inferIns
 export function updateEngineModel(
   db: DbOrTx,
   id: string,
-  changes: { name: string; notes: string },
+  changes: Pick<typeof engineModels.$inferInsert, 'name' | 'notes' | 'standardInterval'>,
 ): void {
   db.update(engineModels).set(changes).where(eq(engineModels.id, id)).run();
 }

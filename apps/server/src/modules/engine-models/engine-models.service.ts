@@ -40,6 +40,7 @@ export function createEngineModelsService(ctx: AppContext) {
       name: model.name,
       version: model.version,
       notes: model.notes,
+      standardInterval: model.standardInterval ?? null,
       rows: listModelRows(db, id).map((row) => ({ ...row, inUse: inUse.has(row.key) })),
       engineCount: countEnginesOfModel(db, id),
       createdAt: model.createdAt.toISOString(),
@@ -75,6 +76,7 @@ export function createEngineModelsService(ctx: AppContext) {
         name: model.name,
         version: model.version,
         notes: model.notes,
+        standardInterval: model.standardInterval ?? null,
         rowCount: rowCount ?? 0,
         engineCount: engineCount ?? 0,
         createdAt: model.createdAt.toISOString(),
@@ -91,6 +93,7 @@ export function createEngineModelsService(ctx: AppContext) {
           name: input.name,
           version,
           notes: input.notes,
+          standardInterval: input.standardInterval,
           createdAt: now,
         });
         replaceModelRows(tx, id, input.rows);
@@ -121,13 +124,24 @@ export function createEngineModelsService(ctx: AppContext) {
       }
       const now = ctx.now();
       inTransaction(db, (tx) => {
-        updateEngineModel(tx, id, { name: input.name, notes: input.notes });
+        updateEngineModel(tx, id, {
+          name: input.name,
+          notes: input.notes,
+          standardInterval: input.standardInterval,
+        });
         replaceModelRows(tx, id, input.rows);
-        const { rows, name, notes } = before;
+        const { rows, name, notes, standardInterval } = before;
         appendAudit(
           tx,
           now,
-          audit(principal, meta, 'engine-model.updated', id, { name, notes, rows }, input),
+          audit(
+            principal,
+            meta,
+            'engine-model.updated',
+            id,
+            { name, notes, standardInterval, rows },
+            input,
+          ),
         );
       });
       return detail(id);
@@ -145,6 +159,7 @@ export function createEngineModelsService(ctx: AppContext) {
           name: source.name,
           version,
           notes: source.notes,
+          standardInterval: source.standardInterval,
           createdAt: now,
         });
         replaceModelRows(

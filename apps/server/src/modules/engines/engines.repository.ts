@@ -19,6 +19,8 @@ const columns = {
   csn: engines.csn,
   tsnCsnAsOf: engines.tsnCsnAsOf,
   status: engines.status,
+  preFleetInspection: engines.preFleetInspection,
+  shopRelease: engines.shopRelease,
   createdAt: engines.createdAt,
   // The latest inspection submitted and not yet dispositioned, and whether it holds a finding
   // beyond limits: the fleet shows such an engine as awaiting disposition.
@@ -44,6 +46,8 @@ export interface EngineListRow {
   csn: number;
   tsnCsnAsOf: string;
   status: EngineRecord['status'];
+  preFleetInspection: EngineRecord['preFleetInspection'];
+  shopRelease: EngineRecord['shopRelease'];
   createdAt: Date;
   awaitingInspectionId: string | null;
   awaitingBeyondLimits: number;

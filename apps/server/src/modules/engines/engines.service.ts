@@ -28,9 +28,10 @@ import {
 
 /** An engine as the caller sees it: customers see released inspections only, so nothing waits. */
 export function toEngine(row: EngineListRow, principal: Principal): Engine {
-  const { awaitingInspectionId, awaitingBeyondLimits, ...engine } = row;
+  const { awaitingInspectionId, awaitingBeyondLimits, shopRelease: _shopRelease, ...engine } = row;
   return {
     ...engine,
+    preFleetInspection: row.preFleetInspection ?? null,
     createdAt: row.createdAt.toISOString(),
     awaitingDisposition:
       awaitingInspectionId && !recordScope(principal).releasedOnly

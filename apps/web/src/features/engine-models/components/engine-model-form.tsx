@@ -8,13 +8,21 @@ import {
   type EngineModel,
   type EngineModelRow,
 } from '@emberline/contracts/fleet';
+import { cautions } from '@emberline/contracts/cautions';
+import { intervalSchema } from '@emberline/contracts/limits';
 import { Trash2 } from 'lucide-react';
 import { useFieldArray } from 'react-hook-form';
 import { z } from 'zod';
 import { Button } from '../../../components/ui/button';
-import { Field, Input, NumberInput, Select } from '../../../components/ui/field';
+import {
+  Field,
+  Input,
+  NumberInput,
+  OptionalNumberField,
+  Select,
+} from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
-import { applyServerErrors, useZodForm } from '../../../lib/form';
+import { applyServerErrors, emptyToNullNumber, useZodForm } from '../../../lib/form';
 import { useSaveEngineModel } from '../api/engine-models';
 
 /** Zones and ports are typed as comma-separated lists and checked by the contract's own rules. */
@@ -26,6 +34,10 @@ const listText = z.string().transform((text) =>
 );
 
 const formSchema = engineModelInputSchema.extend({
+  // Three optional numbers; none given means no standard interval yet.
+  standardInterval: intervalSchema.transform((interval) =>
+    interval.cycles === null && interval.hours === null && interval.days === null ? null : interval,
+  ),
   rows: z.array(
     engineModelRowSchema.extend({
       zones: listText.pipe(engineModelRowSchema.shape.zones),
@@ -63,6 +75,7 @@ export function EngineModelForm({
     defaultValues: {
       name: model?.name ?? '',
       notes: model?.notes ?? '',
+      standardInterval: model?.standardInterval ?? { cycles: null, hours: null, days: null },
       rows: model
         ? model.rows.map(({ inUse: _inUse, ...row }) => ({
             ...row,
@@ -99,6 +112,32 @@ export function EngineModelForm({
           {(props) => <Input {...props} {...form.register('notes')} />}
         </Field>
       </div>
+      <fieldset className="grid gap-3 md:grid-cols-3">
+        <legend className="mb-2 text-lg font-semibold">
+          Standard hot-section inspection interval
+        </legend>
+        <p className="text-sm text-soot-600 md:col-span-3">
+          From the approved maintenance programme, whichever comes first; the due dates of the fleet
+          run from it. {cautions.limits}
+        </p>
+        <OptionalNumberField
+          label="Cycles"
+          whole
+          error={errors.standardInterval?.cycles}
+          registration={form.register('standardInterval.cycles', { setValueAs: emptyToNullNumber })}
+        />
+        <OptionalNumberField
+          label="Hours"
+          error={errors.standardInterval?.hours}
+          registration={form.register('standardInterval.hours', { setValueAs: emptyToNullNumber })}
+        />
+        <OptionalNumberField
+          label="Days"
+          whole
+          error={errors.standardInterval?.days}
+          registration={form.register('standardInterval.days', { setValueAs: emptyToNullNumber })}
+        />
+      </fieldset>
       <fieldset className="flex flex-col gap-4">
         <legend className="mb-2 text-lg font-semibold">Hot-section rows, in gas-path order</legend>
         {errors.rows?.message || errors.rows?.root?.message ? (

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import type { FieldError } from 'react-hook-form';
 import { engineInputSchema, type EngineDetail } from '@emberline/contracts/fleet';
 import type { EngineModelSummary } from '@emberline/contracts/fleet';
 import type { Organisation } from '@emberline/contracts/organisations';
@@ -29,9 +30,13 @@ export function EngineForm({
       registration: null,
       tsnCsnAsOf: new Date().toISOString().slice(0, 10),
       status: 'installed',
+      preFleetInspection: null,
     },
   });
   const { errors } = form.formState;
+  const preFleetKnown = form.watch('preFleetInspection') !== null;
+  const preFleetErrors = errors.preFleetInspection as
+    { date?: FieldError; csn?: FieldError; tsn?: FieldError } | undefined;
   const onSubmit = form.handleSubmit((values) => {
     setFormError('');
     create.mutate(values, {
@@ -125,6 +130,51 @@ export function EngineForm({
       >
         {(props) => <Input {...props} type="date" {...form.register('tsnCsnAsOf')} />}
       </Field>
+      <fieldset className="grid gap-4 md:col-span-2 md:grid-cols-3">
+        <legend className="mb-2 text-sm font-semibold">
+          Last hot-section inspection before it joined the fleet
+        </legend>
+        <label className="flex items-center gap-2 text-sm md:col-span-3">
+          <input
+            type="checkbox"
+            checked={preFleetKnown}
+            onChange={(event) =>
+              form.setValue(
+                'preFleetInspection',
+                event.target.checked ? { date: '', csn: 0, tsn: 0 } : null,
+                { shouldValidate: false },
+              )
+            }
+          />
+          Known: the standard interval runs from it until the first inspection here
+        </label>
+        {preFleetKnown ? (
+          <>
+            <Field label="Inspected on" error={preFleetErrors?.date}>
+              {(props) => (
+                <Input {...props} type="date" {...form.register('preFleetInspection.date')} />
+              )}
+            </Field>
+            <Field label="CSN then" error={preFleetErrors?.csn}>
+              {(props) => (
+                <NumberInput
+                  {...props}
+                  {...form.register('preFleetInspection.csn', { valueAsNumber: true })}
+                />
+              )}
+            </Field>
+            <Field label="TSN then (hours)" error={preFleetErrors?.tsn}>
+              {(props) => (
+                <NumberInput
+                  {...props}
+                  kind="hours"
+                  {...form.register('preFleetInspection.tsn', { valueAsNumber: true })}
+                />
+              )}
+            </Field>
+          </>
+        ) : null}
+      </fieldset>
       <div className="md:col-span-2">
         <Button type="submit" busy={create.isPending}>
           Add engine

@@ -17,13 +17,8 @@ import { Button } from '../../../components/ui/button';
 import { Field, Input, OptionalNumberField, Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
-import { applyServerErrors, useZodForm } from '../../../lib/form';
+import { applyServerErrors, emptyToNullNumber, useZodForm } from '../../../lib/form';
 import { useDispose } from '../api/review';
-
-const emptyToNull = (value: unknown) =>
-  value === '' || value === null || value === undefined || Number.isNaN(value)
-    ? null
-    : Number(value);
 
 const verdictOf = (evaluation: FindingEvaluation | null) => ({
   category: evaluation?.category ?? ('review' as const),
@@ -130,20 +125,20 @@ export function DecisionForm({
               label="Cycles"
               whole
               registration={form.register('decision.repeatInterval.cycles', {
-                setValueAs: emptyToNull,
+                setValueAs: emptyToNullNumber,
               })}
             />
             <OptionalNumberField
               label="Hours"
               registration={form.register('decision.repeatInterval.hours', {
-                setValueAs: emptyToNull,
+                setValueAs: emptyToNullNumber,
               })}
             />
             <OptionalNumberField
               label="Days"
               whole
               registration={form.register('decision.repeatInterval.days', {
-                setValueAs: emptyToNull,
+                setValueAs: emptyToNullNumber,
               })}
             />
             {decisionErrors?.repeatInterval?.message ? (
@@ -179,11 +174,15 @@ export function DecisionForm({
             <OptionalNumberField
               label="Within cycles"
               whole
-              registration={form.register('decision.action.cycles', { setValueAs: emptyToNull })}
+              registration={form.register('decision.action.cycles', {
+                setValueAs: emptyToNullNumber,
+              })}
             />
             <OptionalNumberField
               label="Within hours"
-              registration={form.register('decision.action.hours', { setValueAs: emptyToNull })}
+              registration={form.register('decision.action.hours', {
+                setValueAs: emptyToNullNumber,
+              })}
             />
             {decisionErrors?.action?.message ? (
               <p role="alert" className="text-sm text-red-700 sm:col-span-3">

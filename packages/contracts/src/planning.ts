@@ -1,0 +1,90 @@
+import { z } from 'zod';
+import { forecastDimensionSchema, isoDateSchema } from './forecast';
+import { beyondActionSchema, intervalSchema } from './limits';
+
+/** Where an engine stands against its inspections (DESIGN §5.6), computed when read. */
+export const dueStates = [
+  'overdue',
+  'due-soon',
+  'ok',
+  'unknown',
+  'awaiting-disposition',
+  'in-shop',
+  'removed',
+] as const;
+export const dueStateSchema = z.enum(dueStates);
+export type DueState = z.infer<typeof dueStateSchema>;
+
+export const dueStateLabels: Record<DueState, string> = {
+  overdue: 'Overdue',
+  'due-soon': 'Due soon',
+  ok: 'In date',
+  unknown: 'Unknown',
+  'awaiting-disposition': 'Awaiting disposition',
+  'in-shop': 'In shop',
+  removed: 'Removed',
+};
+
+/** A dated baseline: the inspection or shop release a standard interval runs from. */
+export const baselineSchema = z.strictObject({
+  date: isoDateSchema,
+  csn: z.number().int().min(0),
+  tsn: z.number().finite().min(0),
+});
+export type Baseline = z.infer<typeof baselineSchema>;
+
+/** An open requirement: a signed repeat or remove decision not yet closed by a later inspection. */
+export const requirementSchema = z.object({
+  kind: z.enum(['repeat', 'remove']),
+  row: z.string(),
+  position: z.number().int(),
+  inspectionId: z.string(),
+  inspectionDate: isoDateSchema,
+  findingId: z.string(),
+  seriesId: z.string(),
+  interval: intervalSchema.nullable(),
+  action: beyondActionSchema.nullable(),
+});
+export type Requirement = z.infer<typeof requirementSchema>;
+
+export const dueSchema = z.object({
+  dueCsn: z.number().nullable(),
+  dueTsn: z.number().nullable(),
+  dueDate: z.string().nullable(),
+  governing: forecastDimensionSchema.nullable(),
+});
+export type Due = z.infer<typeof dueSchema>;
+
+export const engineDueSchema = z.object({
+  state: dueStateSchema,
+  /** Why the state is what it is, in words. */
+  reason: z.string(),
+  governedBy: z
+    .object({
+      kind: z.enum(['standard', 'repeat']),
+      row: z.string().nullable(),
+      position: z.number().int().nullable(),
+      inspectionId: z.string().nullable(),
+    })
+    .nullable(),
+  /** The interval the governing due date was computed with. */
+  interval: intervalSchema.nullable(),
+  nextInspection: dueSchema.nullable(),
+  removal: z
+    .object({
+      kind: beyondActionSchema.shape.kind,
+      dueCsn: z.number().nullable(),
+      dueTsn: z.number().nullable(),
+      dueDate: z.string().nullable(),
+      inspectionId: z.string(),
+    })
+    .nullable(),
+  requirements: z.array(requirementSchema),
+  csnNow: z.number().nullable(),
+  tsnNow: z.number().nullable(),
+  trendWarnings: z.array(
+    z.object({ seriesId: z.string(), findingId: z.string(), cyclesRemaining: z.number() }),
+  ),
+  booking: z.object({ plannedDate: isoDateSchema, note: z.string() }).nullable(),
+});
+export type EngineDue = z.infer<typeof engineDueSchema>;
