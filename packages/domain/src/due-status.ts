@@ -7,7 +7,7 @@ import type {
   Requirement,
 } from '@emberline/contracts/planning';
 import type { Decision } from '@emberline/contracts/review';
-import { addDays, daysBetween } from './dates';
+import { addDays, dayWords, daysBetween } from './dates';
 import { forecast } from './forecast';
 import { dailyUtilization, type UtilizationIncrement } from './utilization';
 
@@ -225,7 +225,14 @@ export function dueStatus(input: DueInput): Omit<EngineDue, 'trendWarnings' | 'b
     reason = 'A submitted inspection holds a finding beyond limits, not yet dispositioned.';
   } else if (overdue) {
     state = 'overdue';
-    reason = `Due ${overdue.dueDate ?? ''}${overdue.dueCsn !== null ? ` or at CSN ${round(overdue.dueCsn)}` : ''}; CSN now about ${Math.floor(csnNow)}.`;
+    const count = (value: number) => Math.round(value).toLocaleString('en-GB');
+    reason = `Due ${[
+      overdue.dueDate ? dayWords(overdue.dueDate) : null,
+      overdue.dueCsn !== null ? `at CSN ${count(overdue.dueCsn)}` : null,
+      overdue.dueTsn !== null ? `at TSN ${count(overdue.dueTsn)} h` : null,
+    ]
+      .filter(Boolean)
+      .join(' or ')}; CSN now about ${count(csnNow)}.`;
   } else if (unknownRows.length || !governing || stale) {
     state = 'unknown';
     reason = unknownRows.length
@@ -238,7 +245,7 @@ export function dueStatus(input: DueInput): Omit<EngineDue, 'trendWarnings' | 'b
     reason = `Due within ${input.soon.days} days, ${input.soon.cycles} cycles or ${input.soon.hours} hours.`;
   } else {
     state = 'ok';
-    reason = `Next due ${governing.dueDate}.`;
+    reason = `Next due ${dayWords(governing.dueDate!)}.`;
   }
 
   return {

@@ -133,4 +133,25 @@ describe('the demo history', () => {
     expect(cli.stdout).toContain('Every record checks out.');
     expect(cli.status).toBe(0);
   }, 30_000);
+
+  it('shows VT3-D0103 overdue: flown past the repeat inspection within 200 cycles of CSN 9,242', async () => {
+    const due = await request(t.app)
+      .get('/api/v1/engines/engine-d0103/due')
+      .set('Cookie', engineer);
+    expect(due.status).toBe(200);
+    expect(due.body).toMatchObject({
+      state: 'overdue',
+      governedBy: {
+        kind: 'repeat',
+        row: 'hpt1-blade',
+        position: 12,
+        inspectionId: 'inspection-d0103-h2',
+      },
+      nextInspection: { dueCsn: 9_442, governing: 'cycles' },
+    });
+    // The draft inspection three days ago does not count until it is dispositioned.
+    expect(
+      due.body.requirements.map((item: { inspectionId: string }) => item.inspectionId),
+    ).not.toContain(DEMO_INSPECTION_ID);
+  });
 });

@@ -1,3 +1,4 @@
+import { dayWords } from '@emberline/domain/dates';
 /** Hours with one decimal and thousands separated, as logbooks show them. */
 export function formatHours(value: number): string {
   return value.toLocaleString('en-GB', { minimumFractionDigits: 1, maximumFractionDigits: 1 });
@@ -13,16 +14,9 @@ export function formatRate(value: number | null, unit: string): string {
     : `${value.toLocaleString('en-GB', { maximumFractionDigits: 2, minimumFractionDigits: 2 })} ${unit}`;
 }
 
-/** A `YYYY-MM-DD` date as an unambiguous day: 14 Mar 2026. */
+/** A `YYYY-MM-DD` date as an unambiguous day: 14 Mar 2026 (the one format of the product). */
 export function formatDate(value: string | null): string {
-  if (!value) return '—';
-  const date = new Date(`${value.slice(0, 10)}T00:00:00Z`);
-  return date.toLocaleDateString('en-GB', {
-    day: 'numeric',
-    month: 'short',
-    year: 'numeric',
-    timeZone: 'UTC',
-  });
+  return value ? dayWords(value) : '—';
 }
 
 /** A key of the domain (`leading-edge`, `coating-loss`) in words: leading edge, coating loss. */

@@ -9,12 +9,15 @@ import { useEngine } from '../../features/fleet/api/engines';
 import { EngineParticulars } from '../../features/fleet/components/engine-particulars';
 import { EngineStatusForm } from '../../features/fleet/components/engine-status-form';
 import { UtilizationPanel } from '../../features/fleet/components/utilization-panel';
+import { DueCard } from '../../features/planning/components/due-card';
+import { useEngineModel } from '../../features/engine-models/api/engine-models';
 import { InspectionsList } from '../../features/inspections/components/inspections-list';
 
 export function EngineRoute() {
   const { engineId = '' } = useParams();
   const user = useSignedInUser();
   const engine = useEngine(engineId);
+  const model = useEngineModel(engine.data?.modelId ?? null);
 
   if (engine.isPending) return <LoadingLine />;
   if (engine.error) {
@@ -65,6 +68,15 @@ export function EngineRoute() {
             {can(user.role, 'review:inspection') ? 'Open the review' : 'Open the inspection'}
           </Link>
         </Notice>
+      ) : null}
+      {can(user.role, 'read:planning') ? (
+        <Panel>
+          <h2 className="mb-4 text-lg font-semibold">Next due</h2>
+          <DueCard
+            engineId={data.id}
+            rowLabel={(key) => model.data?.rows.find((row) => row.key === key)?.label ?? key}
+          />
+        </Panel>
       ) : null}
       <Panel>
         <h2 className="mb-4 text-lg font-semibold">Particulars</h2>

@@ -70,6 +70,7 @@ function useSigned(inspectionId: string) {
       queryClient.invalidateQueries({ queryKey: [...inspectionKeys.all, 'queue'] }),
       queryClient.invalidateQueries({ queryKey: inspectionKeys.lists() }),
       queryClient.invalidateQueries({ queryKey: ['engines'] }),
+      queryClient.invalidateQueries({ queryKey: ['planning'] }),
     ]);
 }
 

@@ -1,0 +1,122 @@
+import { cautions } from '@emberline/contracts/cautions';
+import type { EngineDue } from '@emberline/contracts/planning';
+import { actionWords, intervalWords } from '@emberline/domain/decision-words';
+import { Link } from 'react-router-dom';
+import { DueStateBadge } from '../../../components/ui/due-state-badge';
+import { LoadingLine } from '../../../components/ui/page';
+import { Notice } from '../../../components/ui/notice';
+import { formatCount, formatDate, formatHours } from '../../../lib/format';
+import { useEngineDue } from '../api/planning';
+
+const dimensionWords = { cycles: 'cycles', hours: 'hours', days: 'calendar days' } as const;
+
+function governedWords(due: EngineDue, rowLabel: (key: string) => string): string {
+  const governed = due.governedBy;
+  if (!governed) return '';
+  const interval = intervalWords(due.interval);
+  return governed.kind === 'repeat'
+    ? `the repeat inspection of ${rowLabel(governed.row ?? '')} ${governed.position ?? ''} (within ${interval})`
+    : `the standard interval for ${rowLabel(governed.row ?? '')} (${interval})${governed.inspectionId ? '' : ', from the inspection before the engine joined the fleet'}`;
+}
+
+/**
+ * When the engine is next due: the state in words and shape, the due date, CSN and TSN with the
+ * dimension that governs, what governs it and the interval used, the removal and the open
+ * requirements, with CSN and TSN now as projected.
+ */
+export function DueCard({
+  engineId,
+  rowLabel,
+}: {
+  engineId: string;
+  rowLabel: (key: string) => string;
+}) {
+  const due = useEngineDue(engineId);
+  if (due.isPending) return <LoadingLine />;
+  if (due.error) return <Notice tone="error">{due.error.message}</Notice>;
+  const data = due.data;
+  const next = data.nextInspection;
+  return (
+    <div className="flex flex-col gap-3 text-sm" data-testid="due-card">
+      <div className="flex flex-wrap items-center gap-3">
+        <DueStateBadge state={data.state} />
+        <span>{data.reason}</span>
+      </div>
+      {next ? (
+        <dl className="grid gap-x-6 gap-y-2 sm:grid-cols-3">
+          <div>
+            <dt className="text-xs uppercase tracking-wide text-soot-600">Next inspection due</dt>
+            <dd className="font-medium">
+              {formatDate(next.dueDate)}
+              {next.governing ? ` (by ${dimensionWords[next.governing]})` : ''}
+            </dd>
+          </div>
+          <div>
+            <dt className="text-xs uppercase tracking-wide text-soot-600">Due at CSN / TSN</dt>
+            <dd className="font-medium">
+              {next.dueCsn !== null ? formatCount(next.dueCsn) : '—'} /{' '}
+              {next.dueTsn !== null ? `${formatHours(next.dueTsn)} h` : '—'}
+            </dd>
+          </div>
+          <div>
+            <dt className="text-xs uppercase tracking-wide text-soot-600">
+              CSN / TSN now (projected)
+            </dt>
+            <dd className="font-medium">
+              {data.csnNow !== null ? formatCount(data.csnNow) : '—'} /{' '}
+              {data.tsnNow !== null ? `${formatHours(data.tsnNow)} h` : '—'}
+            </dd>
+          </div>
+        </dl>
+      ) : null}
+      {data.governedBy ? (
+        <p>
+          Governed by {governedWords(data, rowLabel)}
+          {data.governedBy.inspectionId ? (
+            <>
+              {' '}
+              from{' '}
+              <Link
+                to={`/inspections/${data.governedBy.inspectionId}`}
+                className="text-ember-800 underline"
+              >
+                its inspection
+              </Link>
+            </>
+          ) : null}
+          .
+        </p>
+      ) : null}
+      {data.removal ? (
+        <p className="font-medium text-red-900">
+          Removal:{' '}
+          {actionWords({ kind: data.removal.kind, cycles: null, hours: null }).replace(/ $/, '')}
+          {data.removal.dueDate ? `, due ${formatDate(data.removal.dueDate)}` : ''}
+          {data.removal.dueCsn !== null ? ` or at CSN ${formatCount(data.removal.dueCsn)}` : ''}.
+        </p>
+      ) : null}
+      {data.requirements.length > 0 ? (
+        <div>
+          <h3 className="font-medium">Open requirements</h3>
+          <ul className="list-inside list-disc">
+            {data.requirements.map((requirement) => (
+              <li key={`${requirement.findingId}-${requirement.kind}`}>
+                {rowLabel(requirement.row)} {requirement.position}:{' '}
+                {requirement.kind === 'repeat'
+                  ? `repeat inspection within ${intervalWords(requirement.interval)}`
+                  : requirement.action
+                    ? actionWords(requirement.action)
+                    : 'removal'}{' '}
+                (inspection of {formatDate(requirement.inspectionDate)})
+              </li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
+      <p className="text-xs text-soot-600">
+        Due dates follow the signed decisions and the utilization recorded; the dates from rates are
+        projections. {cautions.short}
+      </p>
+    </div>
+  );
+}
