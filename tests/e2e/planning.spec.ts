@@ -15,3 +15,41 @@ test('the planner sees VT3-D0103 overdue on its engine page, with what governs a
   await expect(card).toContainText('Open requirements');
   expect(await seriousViolations(page), 'engine page with its due card').toEqual([]);
 });
+
+test('the planner finds VT3-D0103 overdue on the board, books it from today, and the engine page shows the booking', async ({
+  page,
+  expectHttpError,
+}) => {
+  expectHttpError(422, '/api/v1/engines/engine-d0103/booking');
+  await signIn(page, 'planner@demo.test');
+  await page
+    .getByRole('navigation', { name: 'Main' })
+    .getByRole('link', { name: 'Planning board' })
+    .click();
+  await expect(page.getByRole('heading', { name: 'Planning board' })).toBeVisible();
+  // Overdue first; the filter by state is kept in the address.
+  await page.getByLabel('State').selectOption('overdue');
+  await expect(page).toHaveURL(/state=overdue/);
+  const row = page.getByTestId('planning-row').filter({ hasText: 'VT3-D0103' });
+  await expect(row.locator('[data-due-state]')).toHaveText(/Overdue/);
+  expect(await seriousViolations(page), 'planning board').toEqual([]);
+
+  // A day in the past is refused at the field, in words; today is taken.
+  await row.getByText('Book…').click();
+  const form = row.getByRole('form', { name: 'Booking of VT3-D0103' });
+  await form.getByLabel('Planned date').fill('2020-01-01');
+  await form.getByRole('button', { name: 'Book' }).click();
+  await expect(form.getByText(/A booking cannot be in the past/)).toBeVisible();
+  const today = new Date().toISOString().slice(0, 10);
+  await form.getByLabel('Planned date').fill(today);
+  await form.getByLabel('Note').fill('Borescope slot, line station (invented)');
+  await form.getByRole('button', { name: 'Book' }).click();
+  await expect(row.locator('summary')).toContainText('Booked for');
+  await expect(row.locator('[data-due-state]')).toHaveText(/Overdue/);
+
+  await row.getByRole('link', { name: 'VT3-D0103' }).click();
+  await expect(page.getByTestId('due-card')).toBeVisible();
+  await expect(page.getByRole('form', { name: 'Booking of VT3-D0103' })).toContainText(
+    'Booked for',
+  );
+});

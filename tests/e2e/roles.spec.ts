@@ -68,8 +68,8 @@ test('an unknown address shows the not-found page', async ({ page }) => {
 
 test('screens of later releases say plainly that they are not built yet', async ({ page }) => {
   await signIn(page, 'planner@demo.test');
-  await page.getByRole('link', { name: 'Planning board' }).click();
-  await expect(page.getByRole('heading', { name: 'Planning board' })).toBeVisible();
+  await page.getByRole('link', { name: 'Reports' }).click();
+  await expect(page.getByRole('heading', { name: 'Reports' })).toBeVisible();
   await expect(page.getByText('Not built yet')).toBeVisible();
 });
 

@@ -85,6 +85,55 @@ export const engineDueSchema = z.object({
   trendWarnings: z.array(
     z.object({ seriesId: z.string(), findingId: z.string(), cyclesRemaining: z.number() }),
   ),
-  booking: z.object({ plannedDate: isoDateSchema, note: z.string() }).nullable(),
+  booking: z
+    .object({
+      plannedDate: isoDateSchema,
+      note: z.string(),
+      bookedByName: z.string(),
+      bookedAt: z.string(),
+      /** The due date when it was booked. */
+      dueDateAtBooking: z.string().nullable(),
+      /** The due date moved earlier than the planned date since it was booked. */
+      afterDueDate: z.boolean(),
+    })
+    .nullable(),
 });
 export type EngineDue = z.infer<typeof engineDueSchema>;
+
+export const bookingInputSchema = z.strictObject({
+  plannedDate: isoDateSchema,
+  note: z.string().trim().max(500).default(''),
+});
+export type BookingInput = z.input<typeof bookingInputSchema>;
+export type ParsedBookingInput = z.output<typeof bookingInputSchema>;
+
+export const planningQuerySchema = z.strictObject({
+  /** Due (inspection or removal) on or after / before this day. */
+  from: isoDateSchema.optional(),
+  to: isoDateSchema.optional(),
+  state: dueStateSchema.optional(),
+  organisationId: z.string().max(64).optional(),
+  modelId: z.string().max(64).optional(),
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(50),
+});
+export type PlanningQuery = z.infer<typeof planningQuerySchema>;
+
+export const planningItemSchema = engineDueSchema.extend({
+  engineId: z.string(),
+  serialNumber: z.string(),
+  modelId: z.string(),
+  modelName: z.string(),
+  organisationId: z.string(),
+  organisationName: z.string(),
+  registration: z.string().nullable(),
+});
+export type PlanningItem = z.infer<typeof planningItemSchema>;
+
+export const planningResponseSchema = z.object({
+  items: z.array(planningItemSchema),
+  total: z.number().int(),
+  page: z.number().int(),
+  pageSize: z.number().int(),
+});
+export type PlanningResponse = z.infer<typeof planningResponseSchema>;

@@ -629,3 +629,18 @@ export const dispositions = sqliteTable(
     index('dispositions_inspection_idx').on(table.inspectionId, table.state),
   ],
 );
+
+/** A planner's booking of an engine's next inspection: one per engine, replaced when rebooked. */
+export const bookings = sqliteTable('bookings', {
+  engineId: text()
+    .primaryKey()
+    .references(() => engines.id),
+  plannedDate: text().notNull(),
+  note: text().notNull().default(''),
+  /** The due date when it was booked, to tell later that the due date moved. */
+  dueDateAtBooking: text(),
+  bookedBy: text()
+    .notNull()
+    .references(() => users.id),
+  bookedAt: integer({ mode: 'timestamp_ms' }).notNull(),
+});

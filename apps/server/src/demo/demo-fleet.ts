@@ -1,8 +1,10 @@
 import type { EngineModelRow, EngineStatus } from '@emberline/contracts/fleet';
 import { defaultZones } from '@emberline/contracts/fleet';
-import { addDays } from '@emberline/domain/dates';
+import { addDays, daysBetween } from '@emberline/domain/dates';
+import { dailyUtilization } from '@emberline/domain/utilization';
 import type { DbOrTx } from '../db/client';
 import {
+  bookings,
   engineModelRows,
   engineModels,
   engines,
@@ -63,6 +65,12 @@ interface DemoEngine {
   cyclesPerDay: number;
   /** Months before the last complete month in which this engine stopped flying. */
   idleMonths: number;
+  /** Utilization not entered for this many days (the due status cannot tell CSN now). */
+  recordsStoppedDaysAgo?: number;
+  /** Its pre-fleet inspection falls due (by cycles) this many days from the day the demo loads. */
+  preFleetDueInDays?: number;
+  /** Booked by the demo planner this many days from the day the demo loads. */
+  bookedInDays?: number;
 }
 
 export const demoEngines: DemoEngine[] = [
@@ -77,6 +85,7 @@ export const demoEngines: DemoEngine[] = [
     hoursPerCycle: 1.6,
     cyclesPerDay: 5.2,
     idleMonths: 0,
+    preFleetDueInDays: 280,
   },
   {
     id: 'engine-d0102',
@@ -89,6 +98,7 @@ export const demoEngines: DemoEngine[] = [
     hoursPerCycle: 1.6,
     cyclesPerDay: 5.2,
     idleMonths: 0,
+    preFleetDueInDays: 10,
   },
   {
     id: 'engine-d0103',
@@ -101,6 +111,7 @@ export const demoEngines: DemoEngine[] = [
     hoursPerCycle: 1.4,
     cyclesPerDay: 6.1,
     idleMonths: 0,
+    preFleetDueInDays: 400,
   },
   {
     id: 'engine-d0104',
@@ -113,6 +124,8 @@ export const demoEngines: DemoEngine[] = [
     hoursPerCycle: 1.4,
     cyclesPerDay: 6.1,
     idleMonths: 0,
+    preFleetDueInDays: 90,
+    bookedInDays: 45,
   },
   {
     id: 'engine-d0105',
@@ -125,6 +138,8 @@ export const demoEngines: DemoEngine[] = [
     hoursPerCycle: 1.9,
     cyclesPerDay: 4.3,
     idleMonths: 0,
+    preFleetDueInDays: 200,
+    recordsStoppedDaysAgo: 42,
   },
   {
     id: 'engine-d0106',
@@ -137,6 +152,7 @@ export const demoEngines: DemoEngine[] = [
     hoursPerCycle: 1.9,
     cyclesPerDay: 4.3,
     idleMonths: 1,
+    preFleetDueInDays: 150,
   },
   {
     id: 'engine-d0201',
@@ -149,6 +165,7 @@ export const demoEngines: DemoEngine[] = [
     hoursPerCycle: 2.1,
     cyclesPerDay: 3.6,
     idleMonths: 0,
+    preFleetDueInDays: 320,
   },
   {
     id: 'engine-d0202',
@@ -161,6 +178,7 @@ export const demoEngines: DemoEngine[] = [
     hoursPerCycle: 2.1,
     cyclesPerDay: 3.6,
     idleMonths: 0,
+    preFleetDueInDays: 240,
   },
   {
     id: 'engine-d0203',
@@ -173,6 +191,7 @@ export const demoEngines: DemoEngine[] = [
     hoursPerCycle: 1.7,
     cyclesPerDay: 4.8,
     idleMonths: 0,
+    preFleetDueInDays: 360,
   },
   {
     id: 'engine-d0204',
@@ -185,6 +204,7 @@ export const demoEngines: DemoEngine[] = [
     hoursPerCycle: 1.7,
     cyclesPerDay: 4.8,
     idleMonths: 2,
+    preFleetDueInDays: 120,
   },
 ];
 
@@ -219,7 +239,11 @@ function monthStart(date: string, months: number): string {
   return shifted.toISOString().slice(0, 10);
 }
 
-/** Twelve monthly increments ending with the last complete month before `today`, deterministic per engine. */
+/**
+ * Twelve monthly increments ending with the last complete month before `today`, then the days of
+ * this month up to yesterday, deterministic per engine; an engine whose records stopped has none
+ * after that day.
+ */
 export function demoUtilization(
   engine: DemoEngine,
   today: string,
@@ -229,11 +253,23 @@ export function demoUtilization(
     seed = (seed * 1664525 + 1013904223) >>> 0;
     return 0.9 + (seed / 2 ** 32) * 0.2;
   };
+  const periods: { periodStart: string; periodEnd: string }[] = [];
+  for (let back = 12; back >= 1 + engine.idleMonths; back -= 1)
+    periods.push({
+      periodStart: monthStart(today, -back),
+      periodEnd: addDays(monthStart(today, -back + 1), -1),
+    });
+  const thisMonth = monthStart(today, 0);
+  if (engine.idleMonths === 0 && thisMonth < today)
+    periods.push({ periodStart: thisMonth, periodEnd: addDays(today, -1) });
+  const lastDay = engine.recordsStoppedDaysAgo
+    ? addDays(today, -engine.recordsStoppedDaysAgo)
+    : null;
   const months = [];
-  for (let back = 12; back >= 1 + engine.idleMonths; back -= 1) {
-    const periodStart = monthStart(today, -back);
-    const periodEnd = addDays(monthStart(today, -back + 1), -1);
-    const days = Number(periodEnd.slice(8, 10));
+  for (const { periodStart, periodEnd: fullEnd } of periods) {
+    if (lastDay && periodStart > lastDay) break;
+    const periodEnd = lastDay && fullEnd > lastDay ? lastDay : fullEnd;
+    const days = daysBetween(periodStart, periodEnd) + 1;
     const cycles = Math.round(engine.cyclesPerDay * days * jitter());
     months.push({
       periodStart,
@@ -245,6 +281,32 @@ export function demoUtilization(
   return months;
 }
 
+/**
+ * The demo engine's last hot-section inspection before it joined the fleet, placed so that the
+ * invented standard interval (3,000 cycles, 6,000 hours or 730 days) falls due when the demo wants
+ * it: `dueInDays` days from today by cycles, at the engine's own 90-day rate.
+ */
+function demoPreFleet(
+  engine: DemoEngine,
+  history: ReturnType<typeof demoUtilization>,
+  today: string,
+): { date: string; csn: number; tsn: number } | null {
+  if (engine.preFleetDueInDays === undefined) return null;
+  const rate = dailyUtilization(history).cyclesPerDay ?? engine.cyclesPerDay;
+  const last = history[history.length - 1]!;
+  const span = Math.floor(DEMO_STANDARD_INTERVAL.cycles / rate) - engine.preFleetDueInDays;
+  const date = addDays(today, -span);
+  const cyclesSince = Math.round(rate * daysBetween(date, last.periodEnd));
+  return {
+    date,
+    csn: engine.csn - cyclesSince,
+    tsn: Math.round((engine.csn - cyclesSince) * engine.hoursPerCycle * 10) / 10,
+  };
+}
+
+/** The demo model's routine interval: invented, no engine manual's figure. */
+export const DEMO_STANDARD_INTERVAL = { cycles: 3000, hours: 6000, days: 730 };
+
 export function loadDemoFleet(tx: DbOrTx, now: Date): void {
   const today = now.toISOString().slice(0, 10);
   tx.insert(engineModels)
@@ -254,8 +316,7 @@ export function loadDemoFleet(tx: DbOrTx, now: Date): void {
       version: 1,
       notes:
         'Invented two-spool turbofan for the demo scenario. Rows, counts and ports are made up.',
-      // Invented routine interval: no real engine manual's figure.
-      standardInterval: { cycles: 3000, hours: 6000, days: 730 },
+      standardInterval: DEMO_STANDARD_INTERVAL,
       createdAt: now,
     })
     .run();
@@ -280,9 +341,24 @@ export function loadDemoFleet(tx: DbOrTx, now: Date): void {
         csn: engine.csn,
         tsnCsnAsOf: last.periodEnd,
         status: engine.status,
+        preFleetInspection: demoPreFleet(engine, history, today),
         createdAt: now,
       })
       .run();
+    if (engine.bookedInDays !== undefined)
+      tx.insert(bookings)
+        .values({
+          engineId: engine.id,
+          plannedDate: addDays(today, engine.bookedInDays),
+          note: 'Line station slot, borescope kit B (invented)',
+          dueDateAtBooking:
+            engine.preFleetDueInDays === undefined
+              ? null
+              : addDays(today, engine.preFleetDueInDays),
+          bookedBy: 'user-planner',
+          bookedAt: now,
+        })
+        .run();
     tx.insert(utilizationRecords)
       .values(
         history.map((record, index) => ({

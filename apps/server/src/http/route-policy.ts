@@ -61,6 +61,8 @@ export const routePolicy = {
   'POST /inspections/:id/return': 'review:inspection',
   'GET /review-queue': 'review:inspection',
   'GET /engines/:id/due': 'read:planning',
+  'GET /planning': 'read:planning',
+  'PUT /engines/:id/booking': 'plan:inspection',
   'GET /inspections/:id/dispositions': 'read:inspection',
   'POST /findings/:id/dispositions': 'review:inspection',
   'POST /inspections/:id/outcome': 'review:inspection',

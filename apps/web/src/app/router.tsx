@@ -74,13 +74,7 @@ const router = createBrowserRouter([
       },
       {
         path: 'planning',
-        element: (
-          <NotBuiltYet
-            title="Planning board"
-            permission="read:planning"
-            purpose="Re-inspections due from the dispositions, dated from each engine’s utilization."
-          />
-        ),
+        lazy: async () => ({ Component: (await import('./routes/planning')).PlanningRoute }),
       },
       {
         path: 'reports',

@@ -1,4 +1,4 @@
-import { and, asc, count, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, inArray, like, or, sql, type SQL } from 'drizzle-orm';
 import type { EngineListQuery, EngineSortKey } from '@emberline/contracts/fleet';
 import type { DbOrTx } from '../../db/client';
 import type { AnySQLiteColumn } from 'drizzle-orm/sqlite-core';
@@ -142,6 +142,18 @@ export function findEngineRow(db: DbOrTx, id: string): EngineListRow | undefined
     .innerJoin(organisations, eq(organisations.id, engines.organisationId))
     .where(eq(engines.id, id))
     .get();
+}
+
+/** Several engines by id, each with what a list shows of it. */
+export function findEngineRows(db: DbOrTx, ids: readonly string[]): EngineListRow[] {
+  if (ids.length === 0) return [];
+  return db
+    .select(columns)
+    .from(engines)
+    .innerJoin(engineModels, eq(engineModels.id, engines.modelId))
+    .innerJoin(organisations, eq(organisations.id, engines.organisationId))
+    .where(inArray(engines.id, [...ids]))
+    .all();
 }
 
 export function findEngineBySerial(

@@ -1,7 +1,14 @@
 import request from 'supertest';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import type { EngineDue } from '@emberline/contracts/planning';
-import { demoAccounts, DEMO_PASSWORD, startTestApp, type TestApp } from '../../../test/test-app';
+import type { EngineDue, PlanningItem } from '@emberline/contracts/planning';
+import { addDays } from '@emberline/domain/dates';
+import {
+  demoAccounts,
+  DEMO_PASSWORD,
+  startTestApp,
+  TestClock,
+  type TestApp,
+} from '../../../test/test-app';
 import {
   openInspection,
   still,
@@ -26,91 +33,111 @@ const dueOf = async (engineId: string, cookie = engineer) => {
   return response;
 };
 
+/**
+ * An inspection of VT3-D0101 with a 2.5 mm NGV edge crack, dispositioned as a repeat inspection
+ * within 400 cycles (the invented limits' interval) and its outcome signed; returns its id.
+ */
+async function recordRepeatInspection(): Promise<string> {
+  const id = await openInspection(t.app, inspector, {
+    engineId: 'engine-d0101',
+    date: '2026-05-20',
+    csn: 14_125,
+  });
+  const [image] = await uploadImages(t.app, inspector, id, [await still(1600, 1200)]);
+  // A 2.5 mm NGV edge crack: repeat inspection within 400 cycles under the invented limits.
+  const finding = await request(t.app)
+    .post(`/api/v1/inspections/${id}/findings`)
+    .set('Cookie', inspector)
+    .send({
+      imageId: image,
+      shape: {
+        kind: 'polyline',
+        points: [
+          [200, 600],
+          [300, 600],
+        ],
+      },
+      calibration: tenMillimetreReference,
+      row: 'hpt1-ngv',
+      position: 10,
+      zone: 'leading-edge',
+      damage: 'crack',
+      method: 'image',
+    })
+    .expect(201);
+  for (const row of ['hpt1-ngv', 'hpt1-blade'])
+    await request(t.app)
+      .put(`/api/v1/inspections/${id}/coverage/${row}`)
+      .set('Cookie', inspector)
+      .send({ status: 'full', viewedPositions: [], noDamageFound: false, reason: '' })
+      .expect(200);
+  const detail = await request(t.app).get(`/api/v1/inspections/${id}`).set('Cookie', inspector);
+  for (const flag of detail.body.flags as { code: string }[])
+    await request(t.app)
+      .post(`/api/v1/inspections/${id}/flags/${flag.code}/acknowledgement`)
+      .set('Cookie', inspector)
+      .send({ note: 'Checked against the engine log book' })
+      .expect(200);
+  await request(t.app)
+    .post(`/api/v1/inspections/${id}/submission`)
+    .set('Cookie', inspector)
+    .expect(200);
+  await request(t.app)
+    .post(`/api/v1/findings/${finding.body.id}/dispositions`)
+    .set('Cookie', engineer)
+    .send({
+      decision: {
+        kind: 'repeat-inspection',
+        repeatInterval: { cycles: 400, hours: null, days: null },
+      },
+      rationale: 'Within the repeat band',
+      password: DEMO_PASSWORD,
+    })
+    .expect(201);
+  const flagged = (
+    await request(t.app).get(`/api/v1/inspections/${id}/dispositions`).set('Cookie', engineer)
+  ).body.left.flags as { code: string }[];
+  await request(t.app)
+    .post(`/api/v1/inspections/${id}/outcome`)
+    .set('Cookie', engineer)
+    .send({
+      password: DEMO_PASSWORD,
+      flagAcceptances: flagged.map((flag) => ({
+        code: flag.code,
+        note: 'Accepted on the log book',
+      })),
+    })
+    .expect(201);
+
+  return id;
+}
+
 describe('due status of an engine (DESIGN §5.6)', () => {
   it('is unknown for an engine with no inspection and no earlier record, and refused to customers', async () => {
-    const response = await dueOf('engine-d0104');
+    const admin = await t.signIn(demoAccounts.admin);
+    const created = await request(t.app).post('/api/v1/engines').set('Cookie', admin).send({
+      serialNumber: 'VT3-T0001',
+      modelId: 'model-vt300-v1',
+      organisationId: 'org-corvid',
+      installedPosition: null,
+      registration: null,
+      tsn: 1200,
+      csn: 800,
+      tsnCsnAsOf: '2026-05-31',
+      status: 'installed',
+    });
+    expect(created.status).toBe(201);
+    const response = await dueOf(created.body.id);
     expect(response.status).toBe(200);
     expect(response.body).toMatchObject({ state: 'unknown', nextInspection: null });
     expect(response.body.reason).toMatch(/No inspection or earlier record of/);
     const customer = await t.signIn(demoAccounts.customer);
-    expect((await dueOf('engine-d0104', customer)).status).toBe(403);
+    expect((await dueOf(created.body.id, customer)).status).toBe(403);
     expect((await dueOf('engine-unknown')).status).toBe(404);
   });
 
   it('opens a repeat requirement from a signed outcome, and runs the standard interval from the inspection', async () => {
-    const id = await openInspection(t.app, inspector, {
-      engineId: 'engine-d0101',
-      date: '2026-05-20',
-      csn: 14_125,
-    });
-    const [image] = await uploadImages(t.app, inspector, id, [await still(1600, 1200)]);
-    // A 2.5 mm NGV edge crack: repeat inspection within 400 cycles under the invented limits.
-    const finding = await request(t.app)
-      .post(`/api/v1/inspections/${id}/findings`)
-      .set('Cookie', inspector)
-      .send({
-        imageId: image,
-        shape: {
-          kind: 'polyline',
-          points: [
-            [200, 600],
-            [300, 600],
-          ],
-        },
-        calibration: tenMillimetreReference,
-        row: 'hpt1-ngv',
-        position: 10,
-        zone: 'leading-edge',
-        damage: 'crack',
-        method: 'image',
-      })
-      .expect(201);
-    for (const row of ['hpt1-ngv', 'hpt1-blade'])
-      await request(t.app)
-        .put(`/api/v1/inspections/${id}/coverage/${row}`)
-        .set('Cookie', inspector)
-        .send({ status: 'full', viewedPositions: [], noDamageFound: false, reason: '' })
-        .expect(200);
-    const detail = await request(t.app).get(`/api/v1/inspections/${id}`).set('Cookie', inspector);
-    for (const flag of detail.body.flags as { code: string }[])
-      await request(t.app)
-        .post(`/api/v1/inspections/${id}/flags/${flag.code}/acknowledgement`)
-        .set('Cookie', inspector)
-        .send({ note: 'Checked against the engine log book' })
-        .expect(200);
-    await request(t.app)
-      .post(`/api/v1/inspections/${id}/submission`)
-      .set('Cookie', inspector)
-      .expect(200);
-    await request(t.app)
-      .post(`/api/v1/findings/${finding.body.id}/dispositions`)
-      .set('Cookie', engineer)
-      .send({
-        decision: {
-          kind: 'repeat-inspection',
-          repeatInterval: { cycles: 400, hours: null, days: null },
-        },
-        rationale: 'Within the repeat band',
-        password: DEMO_PASSWORD,
-      })
-      .expect(201);
-    // Before the outcome is signed the decision opens nothing.
-    expect((await dueOf('engine-d0101')).body.requirements).toEqual([]);
-    const flagged = (
-      await request(t.app).get(`/api/v1/inspections/${id}/dispositions`).set('Cookie', engineer)
-    ).body.left.flags as { code: string }[];
-    await request(t.app)
-      .post(`/api/v1/inspections/${id}/outcome`)
-      .set('Cookie', engineer)
-      .send({
-        password: DEMO_PASSWORD,
-        flagAcceptances: flagged.map((flag) => ({
-          code: flag.code,
-          note: 'Accepted on the log book',
-        })),
-      })
-      .expect(201);
-
+    const id = await recordRepeatInspection();
     const due = (await dueOf('engine-d0101')).body as EngineDue;
     expect(due.requirements).toEqual([
       expect.objectContaining({
@@ -132,4 +159,90 @@ describe('due status of an engine (DESIGN §5.6)', () => {
     expect(due.nextInspection).toMatchObject({ dueCsn: 14_525, governing: 'cycles' });
     expect(due.interval).toEqual({ cycles: 400, hours: null, days: null });
   });
+
+  it('books the next inspection on or before its due date, never in the past or after it', async () => {
+    await recordRepeatInspection();
+    const planner = await t.signIn(demoAccounts.planner);
+    const due = (await dueOf('engine-d0101', planner)).body as EngineDue;
+    const dueDate = due.nextInspection!.dueDate!;
+    const book = (plannedDate: string, cookie = planner, engineId = 'engine-d0101') =>
+      request(t.app)
+        .put(`/api/v1/engines/${engineId}/booking`)
+        .set('Cookie', cookie)
+        .send({ plannedDate, note: 'Slot in hangar 2 (invented)' });
+
+    const late = await book(addDays(dueDate, 1));
+    expect(late.status).toBe(422);
+    expect(late.body.error.details.fields.plannedDate[0]).toMatch(
+      /^The engine is due on .*: book it on or before that day\.$/,
+    );
+    const past = await book('2026-05-01');
+    expect(past.status).toBe(422);
+    expect(past.body.error.message).toMatch(/cannot be in the past/);
+    const customer = await t.signIn(demoAccounts.customer);
+    expect((await book(dueDate, customer)).status).toBe(403);
+    expect((await book(dueDate, planner, 'engine-nowhere')).status).toBe(404);
+
+    const booked = await book(addDays(dueDate, -1));
+    expect(booked.status).toBe(200);
+    expect(booked.body.booking).toMatchObject({
+      plannedDate: addDays(dueDate, -1),
+      note: 'Slot in hangar 2 (invented)',
+      bookedByName: 'Jonah Whitlaw',
+      dueDateAtBooking: dueDate,
+      afterDueDate: false,
+    });
+
+    // The board lists every engine, the booked one with its booking; filtered by state.
+    const board = await request(t.app).get('/api/v1/planning').set('Cookie', planner);
+    expect(board.status).toBe(200);
+    expect(board.body.total).toBe(10);
+    const row = (board.body.items as PlanningItem[]).find(
+      (item) => item.engineId === 'engine-d0101',
+    )!;
+    expect(row.booking?.plannedDate).toBe(addDays(dueDate, -1));
+    const inShop = await request(t.app)
+      .get('/api/v1/planning')
+      .query({ state: 'in-shop' })
+      .set('Cookie', planner);
+    expect((inShop.body.items as PlanningItem[]).map((item) => item.serialNumber)).toEqual([
+      'VT3-D0106',
+    ]);
+  });
+
+  // The demo loads relative to its day: the same states on the first of a month, on its last day
+  // and in its middle (monthly records and a partial month up to yesterday).
+  for (const day of ['2026-06-01', '2026-01-31', '2026-03-01', '2026-07-15', '2026-12-03'])
+    it(`shows the demo fleet in every state when it loads on ${day}: due soon, booked, unknown for records six weeks old, in shop, removed, the rest in date`, async () => {
+      await t.close();
+      t = await startTestApp({
+        delivery: 'manual',
+        clock: new TestClock(new Date(`${day}T08:00:00Z`)),
+      });
+      const planner = await t.signIn(demoAccounts.planner);
+      const board = await request(t.app).get('/api/v1/planning').set('Cookie', planner);
+      const state = Object.fromEntries(
+        (board.body.items as PlanningItem[]).map((item) => [item.serialNumber, item.state]),
+      );
+      expect(state).toEqual({
+        'VT3-D0101': 'ok',
+        'VT3-D0102': 'due-soon',
+        'VT3-D0103': 'ok',
+        'VT3-D0104': 'ok',
+        'VT3-D0105': 'unknown',
+        'VT3-D0106': 'in-shop',
+        'VT3-D0201': 'ok',
+        'VT3-D0202': 'ok',
+        'VT3-D0203': 'ok',
+        'VT3-D0204': 'removed',
+      });
+      const booked = (board.body.items as PlanningItem[]).find(
+        (item) => item.serialNumber === 'VT3-D0104',
+      )!;
+      expect(booked.booking).toMatchObject({ bookedByName: 'Jonah Whitlaw', afterDueDate: false });
+      const stale = (board.body.items as PlanningItem[]).find(
+        (item) => item.serialNumber === 'VT3-D0105',
+      )!;
+      expect(stale.reason).toMatch(/Utilization not recorded for more than 30 days/);
+    });
 });

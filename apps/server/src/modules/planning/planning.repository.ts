@@ -1,15 +1,26 @@
 import { and, asc, eq, inArray, isNotNull, or, gt } from 'drizzle-orm';
 import type { DbOrTx } from '../../db/client';
-import { findings, inspections, rowCoverage, signatures } from '../../db/schema';
+import {
+  bookings,
+  engines,
+  findings,
+  inspections,
+  rowCoverage,
+  signatures,
+  users,
+  utilizationRecords,
+} from '../../db/schema';
 
 /**
  * The inspections of an engine whose outcome counts for its due status: one signed and current,
  * or, while a correction made after a release waits for the next one, the outcome of that release.
  */
-export function signedInspections(db: DbOrTx, engineId: string) {
+export function signedInspections(db: DbOrTx, engineIds: readonly string[]) {
+  if (engineIds.length === 0) return [];
   return db
     .select({
       id: inspections.id,
+      engineId: inspections.engineId,
       date: inspections.date,
       csn: inspections.csn,
       tsn: inspections.tsn,
@@ -19,7 +30,7 @@ export function signedInspections(db: DbOrTx, engineId: string) {
     .from(inspections)
     .where(
       and(
-        eq(inspections.engineId, engineId),
+        inArray(inspections.engineId, [...engineIds]),
         or(isNotNull(inspections.outcomeSignatureId), gt(inspections.releaseRevision, 0)),
       ),
     )
@@ -84,4 +95,61 @@ export function findingPlaces(db: DbOrTx, findingIds: readonly string[]) {
     .from(findings)
     .where(inArray(findings.id, [...findingIds]))
     .all();
+}
+
+export function utilizationOf(db: DbOrTx, engineIds: readonly string[]) {
+  if (engineIds.length === 0) return [];
+  return db
+    .select({
+      engineId: utilizationRecords.engineId,
+      periodStart: utilizationRecords.periodStart,
+      periodEnd: utilizationRecords.periodEnd,
+      cycles: utilizationRecords.cycles,
+      hours: utilizationRecords.hours,
+    })
+    .from(utilizationRecords)
+    .where(inArray(utilizationRecords.engineId, [...engineIds]))
+    .all();
+}
+
+export function bookingsOf(db: DbOrTx, engineIds: readonly string[]) {
+  if (engineIds.length === 0) return [];
+  return db
+    .select({
+      engineId: bookings.engineId,
+      plannedDate: bookings.plannedDate,
+      note: bookings.note,
+      dueDateAtBooking: bookings.dueDateAtBooking,
+      bookedAt: bookings.bookedAt,
+      bookedByName: users.name,
+    })
+    .from(bookings)
+    .innerJoin(users, eq(users.id, bookings.bookedBy))
+    .where(inArray(bookings.engineId, [...engineIds]))
+    .all();
+}
+
+export function upsertBooking(db: DbOrTx, row: typeof bookings.$inferInsert): void {
+  const { engineId: _engine, ...changes } = row;
+  db.insert(bookings)
+    .values(row)
+    .onConflictDoUpdate({ target: bookings.engineId, set: changes })
+    .run();
+}
+
+/** The engines a planning read covers, with what the due status needs of each. */
+export function planningEngines(
+  db: DbOrTx,
+  filter: { organisationId?: string | undefined; modelId?: string | undefined },
+) {
+  const conditions = [];
+  if (filter.organisationId) conditions.push(eq(engines.organisationId, filter.organisationId));
+  if (filter.modelId) conditions.push(eq(engines.modelId, filter.modelId));
+  return db
+    .select({ id: engines.id })
+    .from(engines)
+    .where(conditions.length ? and(...conditions) : undefined)
+    .orderBy(asc(engines.serialNumber))
+    .all()
+    .map((row) => row.id);
 }

@@ -1,5 +1,11 @@
 import { Router } from 'express';
-import { engineDueSchema } from '@emberline/contracts/planning';
+import {
+  bookingInputSchema,
+  engineDueSchema,
+  planningQuerySchema,
+  planningResponseSchema,
+} from '@emberline/contracts/planning';
+import { requestMeta } from '../../http/request-meta';
 import { idParamsSchema } from '@emberline/contracts/users';
 import type { AppContext } from '../../context';
 import { principalOf } from '../../http/principal';
@@ -20,6 +26,34 @@ export function planningRoutes(ctx: AppContext): Router {
     },
     (_req, res) => {
       res.json(planning.engineDue(principalOf(res), res.locals.params.id));
+    },
+  );
+  route(
+    router,
+    'GET /planning',
+    {
+      summary:
+        'Every engine with its due status, overdue first, then by the day it falls due; paged and filtered',
+      query: planningQuerySchema,
+      response: planningResponseSchema,
+    },
+    (_req, res) => {
+      res.json(planning.list(principalOf(res), res.locals.query));
+    },
+  );
+  route(
+    router,
+    'PUT /engines/:id/booking',
+    {
+      summary: 'Book the next inspection of an engine: not in the past, not after its due date',
+      params: idParamsSchema,
+      body: bookingInputSchema,
+      response: engineDueSchema,
+    },
+    (req, res) => {
+      res.json(
+        planning.book(principalOf(res), res.locals.params.id, res.locals.body, requestMeta(req)),
+      );
     },
   );
   return router;

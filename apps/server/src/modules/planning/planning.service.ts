@@ -1,20 +1,34 @@
-import type { EngineDue } from '@emberline/contracts/planning';
+import type {
+  ParsedBookingInput,
+  EngineDue,
+  PlanningItem,
+  PlanningQuery,
+  PlanningResponse,
+} from '@emberline/contracts/planning';
 import { decisionSchema } from '@emberline/contracts/review';
+import { dayWords } from '@emberline/domain/dates';
 import { dueStatus, type DueInspection } from '@emberline/domain/due-status';
 import type { outcomeContent, releaseContent } from '@emberline/domain/signature-content';
-import type { AppContext } from '../../context';
-import type { DbOrTx } from '../../db/client';
+import type { UtilizationIncrement } from '@emberline/domain/utilization';
+import type { AppContext, RequestMeta } from '../../context';
+import { inTransaction, type DbOrTx } from '../../db/client';
+import { AppError } from '../../http/app-error';
 import type { Principal } from '../../http/principal';
+import { recordScope } from '../../http/record-access';
+import { appendAudit } from '../audit/audit.repository';
 import { findEngineModel, listModelRows } from '../engine-models/engine-models.repository';
-import type { EngineListRow } from '../engines/engines.repository';
+import { findEngineRows, type EngineListRow } from '../engines/engines.repository';
 import { createEnginesService } from '../engines/engines.service';
-import { listUtilization } from '../utilization/utilization.repository';
 import {
+  bookingsOf,
   coverageOfInspections,
   findingPlaces,
   outcomeSignaturesOf,
+  planningEngines,
   signaturesById,
   signedInspections,
+  upsertBooking,
+  utilizationOf,
 } from './planning.repository';
 
 type OutcomeContent = ReturnType<typeof outcomeContent>;
@@ -30,12 +44,23 @@ export function todayIn(timeZone: string, now: Date): string {
   }).format(now);
 }
 
+const groupBy = <T, K>(items: readonly T[], key: (item: T) => K) => {
+  const groups = new Map<K, T[]>();
+  for (const item of items) {
+    const group = groups.get(key(item));
+    if (group) group.push(item);
+    else groups.set(key(item), [item]);
+  }
+  return groups;
+};
+
 /**
- * The inspections of an engine with the decisions their counting outcome signed: the current
- * outcome, or, while a correction after release waits, the outcome of the latest release.
+ * The inspections of some engines with the decisions their counting outcome signed: the current
+ * outcome, or, while a correction after release waits, the outcome of the latest release. One
+ * query a kind of row, whatever the number of engines.
  */
-function dueInspections(db: DbOrTx, engineId: string): DueInspection[] {
-  const rows = signedInspections(db, engineId);
+function dueInspections(db: DbOrTx, engineIds: readonly string[]): Map<string, DueInspection[]> {
+  const rows = signedInspections(db, engineIds);
   const releases = new Map(
     signaturesById(
       db,
@@ -46,14 +71,14 @@ function dueInspections(db: DbOrTx, engineId: string): DueInspection[] {
     db,
     rows.map((row) => row.id),
   );
+  const outcomesById = new Map(outcomes.map((signature) => [signature.id, signature]));
+  const outcomesBySha = new Map(outcomes.map((signature) => [signature.sha256, signature]));
   const counting = rows.flatMap((row) => {
     const release = releases.get(row.id);
     const outcome = row.outcomeSignatureId
-      ? outcomes.find((signature) => signature.id === row.outcomeSignatureId)
-      : outcomes.find(
-          (signature) =>
-            signature.sha256 ===
-            (release?.content as ReleaseContent | undefined)?.outcomeSignatureSha256,
+      ? outcomesById.get(row.outcomeSignatureId)
+      : outcomesBySha.get(
+          (release?.content as ReleaseContent | undefined)?.outcomeSignatureSha256 ?? '',
         );
     return outcome ? [{ row, outcome, content: outcome.content as OutcomeContent }] : [];
   });
@@ -63,77 +88,225 @@ function dueInspections(db: DbOrTx, engineId: string): DueInspection[] {
       counting.flatMap((item) => item.content.dispositions.map((entry) => entry.findingId)),
     ).map((place) => [place.id, place]),
   );
-  const coverage = coverageOfInspections(
-    db,
-    counting.map((item) => item.row.id),
+  const coverage = groupBy(
+    coverageOfInspections(
+      db,
+      counting.map((item) => item.row.id),
+    ),
+    (item) => item.inspectionId,
   );
-  return counting.map(({ row, outcome, content }) => ({
-    id: row.id,
-    date: row.date,
-    csn: row.csn,
-    tsn: row.tsn,
-    outcomeSignedAt: outcome.signedAt,
-    coverage: coverage
-      .filter((item) => item.inspectionId === row.id)
-      .map((item) => ({
+  const inspections = counting.map(({ row, outcome, content }) => ({
+    engineId: row.engineId,
+    inspection: {
+      id: row.id,
+      date: row.date,
+      csn: row.csn,
+      tsn: row.tsn,
+      outcomeSignedAt: outcome.signedAt,
+      coverage: (coverage.get(row.id) ?? []).map((item) => ({
         row: item.row,
         status: item.status,
         viewedPositions: item.viewedPositions,
       })),
-    decisions: content.dispositions.flatMap((entry) => {
-      const place = places.get(entry.findingId);
-      return place
-        ? [
-            {
-              findingId: entry.findingId,
-              seriesId: place.seriesId,
-              row: place.row,
-              position: place.position,
-              decision: decisionSchema.parse(entry.decision),
-            },
-          ]
-        : [];
-    }),
+      decisions: content.dispositions.flatMap((entry) => {
+        const place = places.get(entry.findingId);
+        return place
+          ? [
+              {
+                findingId: entry.findingId,
+                seriesId: place.seriesId,
+                row: place.row,
+                position: place.position,
+                decision: decisionSchema.parse(entry.decision),
+              },
+            ]
+          : [];
+      }),
+    } satisfies DueInspection,
   }));
+  return new Map(
+    [...groupBy(inspections, (item) => item.engineId)].map(([engineId, items]) => [
+      engineId,
+      items.map((item) => item.inspection),
+    ]),
+  );
 }
 
 export function createPlanningService(ctx: AppContext) {
   const { db, config } = ctx;
   const engines = createEnginesService(ctx);
+  const today = () => todayIn(config.timeZone, ctx.now());
 
-  /** The due status of an engine the caller may see (DESIGN §5.6), computed when read. */
-  function due(engine: EngineListRow): EngineDue {
-    const model = findEngineModel(db, engine.modelId)!;
-    const baseline = engine.shopRelease
-      ? { kind: 'shop-release' as const, ...engine.shopRelease }
-      : engine.preFleetInspection
-        ? { kind: 'pre-fleet' as const, ...engine.preFleetInspection }
-        : null;
-    return {
-      ...dueStatus({
-        today: todayIn(config.timeZone, ctx.now()),
-        rows: listModelRows(db, engine.modelId),
-        standardInterval: model.standardInterval ?? null,
-        engine: {
-          status: engine.status,
-          csn: engine.csn,
-          tsn: engine.tsn,
-          tsnCsnAsOf: engine.tsnCsnAsOf,
-          baseline,
-        },
-        utilization: listUtilization(db, engine.id),
-        inspections: dueInspections(db, engine.id),
-        awaitingBeyondLimits: Boolean(engine.awaitingBeyondLimits),
-        soon: config.dueSoon,
+  /** The due status of engines (DESIGN §5.6), computed when read, with their bookings. */
+  function dueOf(rows: readonly EngineListRow[]): Map<string, EngineDue> {
+    const ids = rows.map((row) => row.id);
+    const inspections = dueInspections(db, ids);
+    const utilization = groupBy(utilizationOf(db, ids), (record) => record.engineId);
+    const bookings = new Map(bookingsOf(db, ids).map((booking) => [booking.engineId, booking]));
+    const models = new Map(
+      [...new Set(rows.map((row) => row.modelId))].map((modelId) => [
+        modelId,
+        { model: findEngineModel(db, modelId)!, rows: listModelRows(db, modelId) },
+      ]),
+    );
+    const day = today();
+    return new Map(
+      rows.map((engine) => {
+        const { model, rows: modelRows } = models.get(engine.modelId)!;
+        const baseline = engine.shopRelease
+          ? { kind: 'shop-release' as const, ...engine.shopRelease }
+          : engine.preFleetInspection
+            ? { kind: 'pre-fleet' as const, ...engine.preFleetInspection }
+            : null;
+        const status = dueStatus({
+          today: day,
+          rows: modelRows,
+          standardInterval: model.standardInterval ?? null,
+          engine: {
+            status: engine.status,
+            csn: engine.csn,
+            tsn: engine.tsn,
+            tsnCsnAsOf: engine.tsnCsnAsOf,
+            baseline,
+          },
+          utilization: (utilization.get(engine.id) ?? []) as UtilizationIncrement[],
+          inspections: inspections.get(engine.id) ?? [],
+          awaitingBeyondLimits: Boolean(engine.awaitingBeyondLimits),
+          soon: config.dueSoon,
+        });
+        const booking = bookings.get(engine.id);
+        const dueDate = status.nextInspection?.dueDate ?? null;
+        return [
+          engine.id,
+          {
+            ...status,
+            trendWarnings: [],
+            booking: booking
+              ? {
+                  plannedDate: booking.plannedDate,
+                  note: booking.note,
+                  bookedByName: booking.bookedByName,
+                  bookedAt: booking.bookedAt.toISOString(),
+                  dueDateAtBooking: booking.dueDateAtBooking,
+                  afterDueDate: dueDate !== null && booking.plannedDate > dueDate && dueDate >= day,
+                }
+              : null,
+          },
+        ];
       }),
-      trendWarnings: [],
-      booking: null,
-    };
+    );
   }
 
   return {
     engineDue(principal: Principal, engineId: string): EngineDue {
-      return due(engines.visibleEngine(principal, engineId));
+      const engine = engines.visibleEngine(principal, engineId);
+      return dueOf([engine]).get(engine.id)!;
+    },
+
+    /**
+     * The planning board: every engine the caller may see with its due status, overdue first and
+     * then by the date it falls due; filtered by customer, model, state and the days due.
+     */
+    list(principal: Principal, query: PlanningQuery): PlanningResponse {
+      const scope = recordScope(principal);
+      const ids = planningEngines(db, {
+        organisationId: scope.organisationId ?? query.organisationId,
+        modelId: query.modelId,
+      });
+      const rows = findEngineRows(db, ids);
+      const due = dueOf(rows);
+      const rank = {
+        overdue: 0,
+        'awaiting-disposition': 1,
+        'due-soon': 2,
+        unknown: 3,
+        ok: 4,
+        'in-shop': 5,
+        removed: 6,
+      };
+      const dateOf = (item: EngineDue) =>
+        [item.nextInspection?.dueDate, item.removal?.dueDate]
+          .filter((date): date is string => Boolean(date))
+          .sort()[0] ?? null;
+      const items = rows
+        .map((engine): PlanningItem => ({
+          ...due.get(engine.id)!,
+          engineId: engine.id,
+          serialNumber: engine.serialNumber,
+          modelId: engine.modelId,
+          modelName: engine.modelName,
+          organisationId: engine.organisationId,
+          organisationName: engine.organisationName,
+          registration: engine.registration,
+        }))
+        .filter((item) => !query.state || item.state === query.state)
+        .filter((item) => {
+          if (!query.from && !query.to) return true;
+          const date = dateOf(item);
+          return (
+            date !== null && (!query.from || date >= query.from) && (!query.to || date <= query.to)
+          );
+        })
+        .sort(
+          (a, b) =>
+            rank[a.state] - rank[b.state] ||
+            (dateOf(a) ?? '9999').localeCompare(dateOf(b) ?? '9999') ||
+            a.serialNumber.localeCompare(b.serialNumber),
+        );
+      const start = (query.page - 1) * query.pageSize;
+      return {
+        items: items.slice(start, start + query.pageSize),
+        total: items.length,
+        page: query.page,
+        pageSize: query.pageSize,
+      };
+    },
+
+    /**
+     * Books an engine's next inspection: not in the past, and not after its due date (an overdue
+     * engine is booked from today on, and shows overdue until it is inspected).
+     */
+    book(
+      principal: Principal,
+      engineId: string,
+      input: ParsedBookingInput,
+      meta: RequestMeta,
+    ): EngineDue {
+      const engine = engines.visibleEngine(principal, engineId);
+      const current = dueOf([engine]).get(engine.id)!;
+      const day = today();
+      const dueDate = current.nextInspection?.dueDate ?? null;
+      const refuse = (message: string) =>
+        AppError.unprocessable(message, { fields: { plannedDate: [message] }, form: [] });
+      if (input.plannedDate < day)
+        throw refuse(`A booking cannot be in the past: choose ${dayWords(day)} or later.`);
+      if (dueDate && dueDate >= day && input.plannedDate > dueDate)
+        throw refuse(`The engine is due on ${dayWords(dueDate)}: book it on or before that day.`);
+      // Overdue (a due date already passed): any day from today on, and it stays marked overdue.
+      const now = ctx.now();
+      inTransaction(db, (tx) => {
+        upsertBooking(tx, {
+          engineId,
+          plannedDate: input.plannedDate,
+          note: input.note,
+          dueDateAtBooking: dueDate,
+          bookedBy: principal.user.id,
+          bookedAt: now,
+        });
+        appendAudit(tx, now, {
+          actorUserId: principal.user.id,
+          action: 'engine.booked',
+          entityType: 'engine',
+          entityId: engineId,
+          before: current.booking
+            ? { plannedDate: current.booking.plannedDate, note: current.booking.note }
+            : null,
+          after: { plannedDate: input.plannedDate, note: input.note, dueDate },
+          requestId: meta.requestId,
+          ip: meta.ip,
+        });
+      });
+      return this.engineDue(principal, engineId);
     },
   };
 }

@@ -74,6 +74,8 @@ export function EngineRoute() {
           <h2 className="mb-4 text-lg font-semibold">Next due</h2>
           <DueCard
             engineId={data.id}
+            serialNumber={data.serialNumber}
+            canBook={can(user.role, 'plan:inspection')}
             rowLabel={(key) => model.data?.rows.find((row) => row.key === key)?.label ?? key}
           />
         </Panel>

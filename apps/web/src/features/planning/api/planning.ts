@@ -1,5 +1,10 @@
-import { useQuery } from '@tanstack/react-query';
-import type { EngineDue } from '@emberline/contracts/planning';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type {
+  BookingInput,
+  EngineDue,
+  PlanningQuery,
+  PlanningResponse,
+} from '@emberline/contracts/planning';
 import { api } from '../../../lib/api-client';
 
 export const planningKeys = {
@@ -13,5 +18,26 @@ export function useEngineDue(engineId: string, enabled = true) {
     queryKey: planningKeys.due(engineId),
     queryFn: () => api.get<EngineDue>(`/engines/${encodeURIComponent(engineId)}/due`),
     enabled,
+  });
+}
+
+export function usePlanning(query: Partial<PlanningQuery>) {
+  const params = new URLSearchParams(
+    Object.entries(query)
+      .filter((entry) => entry[1] !== undefined && entry[1] !== '')
+      .map(([key, value]) => [key, String(value)]),
+  );
+  return useQuery({
+    queryKey: [...planningKeys.all, 'list', query],
+    queryFn: () => api.get<PlanningResponse>(`/planning?${params.toString()}`),
+  });
+}
+
+export function useBook(engineId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: BookingInput) =>
+      api.put<EngineDue>(`/engines/${encodeURIComponent(engineId)}/booking`, input),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: planningKeys.all }),
   });
 }

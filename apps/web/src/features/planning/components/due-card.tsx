@@ -7,6 +7,7 @@ import { LoadingLine } from '../../../components/ui/page';
 import { Notice } from '../../../components/ui/notice';
 import { formatCount, formatDate, formatHours } from '../../../lib/format';
 import { useEngineDue } from '../api/planning';
+import { BookingForm } from './booking-form';
 
 const dimensionWords = { cycles: 'cycles', hours: 'hours', days: 'calendar days' } as const;
 
@@ -26,10 +27,14 @@ function governedWords(due: EngineDue, rowLabel: (key: string) => string): strin
  */
 export function DueCard({
   engineId,
+  serialNumber,
   rowLabel,
+  canBook,
 }: {
   engineId: string;
+  serialNumber: string;
   rowLabel: (key: string) => string;
+  canBook: boolean;
 }) {
   const due = useEngineDue(engineId);
   if (due.isPending) return <LoadingLine />;
@@ -112,6 +117,13 @@ export function DueCard({
             ))}
           </ul>
         </div>
+      ) : null}
+      {canBook ? (
+        <BookingForm engineId={engineId} serialNumber={serialNumber} due={data} />
+      ) : data.booking ? (
+        <p>
+          Booked for {formatDate(data.booking.plannedDate)}: {data.booking.note}
+        </p>
       ) : null}
       <p className="text-xs text-soot-600">
         Due dates follow the signed decisions and the utilization recorded; the dates from rates are
