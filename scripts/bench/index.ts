@@ -6,6 +6,7 @@ import { benchEvaluation } from './evaluation';
 import { benchImpact } from './impact';
 import { benchIngest } from './ingest';
 import { benchInitialJavaScript } from './initial-javascript';
+import { benchPlanning } from './planning';
 import { benchSessionCheck } from './session-check';
 
 const results = [
@@ -14,6 +15,7 @@ const results = [
   await benchSessionCheck(),
   await benchEngineList(),
   await benchImpact(),
+  await benchPlanning(),
   ...(await benchIngest()),
   ...(await benchAnnotation()),
 ];
