@@ -5,14 +5,13 @@ import { prepareRuntime } from '../../apps/server/src/bootstrap';
 import { loadConfig } from '../../apps/server/src/config/env';
 import { rawConnection } from '../../apps/server/src/db/client';
 import { createLogger } from '../../apps/server/src/lib/logger';
-import { findEngineRows } from '../../apps/server/src/modules/engines/engines.repository';
+import { findEngineRowsIn } from '../../apps/server/src/modules/engines/engines.repository';
 import {
   bookingsOf,
   coverageOfInspections,
   findingPlaces,
   outcomeSignaturesOf,
-  planningEngines,
-  signaturesById,
+  releaseSignaturesOf,
   signedInspections,
   utilizationOf,
 } from '../../apps/server/src/modules/planning/planning.repository';
@@ -174,26 +173,33 @@ export async function benchPlanning() {
   }
 
   const reads: number[] = [];
+  const perRead: Record<string, number[]> = {};
   for (let index = 0; index < REQUESTS + 5; index += 1) {
     const started = performance.now();
-    const ids = planningEngines(db, {});
-    findEngineRows(db, ids);
-    const inspections = signedInspections(db, ids);
-    const inspectionIds = inspections.map((row) => row.id);
-    const outcomes = outcomeSignaturesOf(db, inspectionIds);
-    signaturesById(db, []);
-    coverageOfInspections(db, inspectionIds);
-    findingPlaces(
-      db,
-      outcomes.map((row) => `${row.subjectId}-f1`),
-    );
-    utilizationOf(db, ids);
-    bookingsOf(db, ids);
+    const step = (name: string, read: () => unknown) => {
+      const at = performance.now();
+      read();
+      (perRead[name] ??= []).push(performance.now() - at);
+    };
+    step('engines', () => findEngineRowsIn(db, {}));
+    step('inspections', () => signedInspections(db, {}));
+    step('outcomes', () => outcomeSignaturesOf(db, {}));
+    step('releases', () => releaseSignaturesOf(db, {}));
+    step('coverage', () => coverageOfInspections(db, {}));
+    step('findings', () => findingPlaces(db, {}));
+    step('utilization', () => utilizationOf(db, {}));
+    step('bookings', () => bookingsOf(db, {}));
     if (index >= 5) reads.push(performance.now() - started);
   }
 
   await new Promise((resolve) => server.close(resolve));
   await runtime.close();
+  if (process.env.BENCH_DETAIL)
+    console.log(
+      Object.entries(perRead)
+        .map(([name, samples]) => `${name} ${p95(samples).toFixed(0)} ms`)
+        .join(', '),
+    );
   const figure = p95(api);
   return {
     name: `GET /planning, ${total} engines × ${INSPECTIONS} inspections (p95)`,

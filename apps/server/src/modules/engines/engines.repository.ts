@@ -1,4 +1,4 @@
-import { and, asc, count, desc, eq, inArray, like, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
 import type { EngineListQuery, EngineSortKey } from '@emberline/contracts/fleet';
 import type { DbOrTx } from '../../db/client';
 import type { AnySQLiteColumn } from 'drizzle-orm/sqlite-core';
@@ -144,15 +144,20 @@ export function findEngineRow(db: DbOrTx, id: string): EngineListRow | undefined
     .get();
 }
 
-/** Several engines by id, each with what a list shows of it. */
-export function findEngineRows(db: DbOrTx, ids: readonly string[]): EngineListRow[] {
-  if (ids.length === 0) return [];
+/** The engines of an owner and model (or all), each with what a list shows of it. */
+export function findEngineRowsIn(
+  db: DbOrTx,
+  scope: { organisationId?: string | undefined; modelId?: string | undefined },
+): EngineListRow[] {
+  const conditions: SQL[] = [];
+  if (scope.organisationId) conditions.push(eq(engines.organisationId, scope.organisationId));
+  if (scope.modelId) conditions.push(eq(engines.modelId, scope.modelId));
   return db
     .select(columns)
     .from(engines)
     .innerJoin(engineModels, eq(engineModels.id, engines.modelId))
     .innerJoin(organisations, eq(organisations.id, engines.organisationId))
-    .where(inArray(engines.id, [...ids]))
+    .where(conditions.length ? and(...conditions) : undefined)
     .all();
 }
 

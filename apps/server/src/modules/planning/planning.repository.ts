@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray, isNotNull, or, gt } from 'drizzle-orm';
+import { and, asc, eq, gt, isNotNull, or, type SQL } from 'drizzle-orm';
 import type { DbOrTx } from '../../db/client';
 import {
   bookings,
@@ -12,11 +12,28 @@ import {
 } from '../../db/schema';
 
 /**
- * The inspections of an engine whose outcome counts for its due status: one signed and current,
- * or, while a correction made after a release waits for the next one, the outcome of that release.
+ * Which engines a planning read covers: one engine, or the fleet narrowed by owner and model.
+ * Every read below joins the engines and filters with it, so that the whole fleet is read in one
+ * query a kind of row, never through a list of thousands of ids.
  */
-export function signedInspections(db: DbOrTx, engineIds: readonly string[]) {
-  if (engineIds.length === 0) return [];
+export interface EngineScope {
+  engineId?: string | undefined;
+  organisationId?: string | undefined;
+  modelId?: string | undefined;
+}
+
+function scopeOf(scope: EngineScope): SQL | undefined {
+  const conditions: SQL[] = [];
+  if (scope.engineId) conditions.push(eq(engines.id, scope.engineId));
+  if (scope.organisationId) conditions.push(eq(engines.organisationId, scope.organisationId));
+  if (scope.modelId) conditions.push(eq(engines.modelId, scope.modelId));
+  return conditions.length ? and(...conditions) : undefined;
+}
+
+/** An inspection whose outcome counts: one signed and current, or one released before. */
+const signed = or(isNotNull(inspections.outcomeSignatureId), gt(inspections.releaseRevision, 0));
+
+export function signedInspections(db: DbOrTx, scope: EngineScope) {
   return db
     .select({
       id: inspections.id,
@@ -28,34 +45,14 @@ export function signedInspections(db: DbOrTx, engineIds: readonly string[]) {
       releaseSignatureId: inspections.releaseSignatureId,
     })
     .from(inspections)
-    .where(
-      and(
-        inArray(inspections.engineId, [...engineIds]),
-        or(isNotNull(inspections.outcomeSignatureId), gt(inspections.releaseRevision, 0)),
-      ),
-    )
+    .innerJoin(engines, eq(engines.id, inspections.engineId))
+    .where(and(scopeOf(scope), signed))
     .orderBy(asc(inspections.date), asc(inspections.csn))
     .all();
 }
 
-export function signaturesById(db: DbOrTx, ids: readonly string[]) {
-  if (ids.length === 0) return [];
-  return db
-    .select({
-      id: signatures.id,
-      sha256: signatures.sha256,
-      signedAt: signatures.signedAt,
-      content: signatures.content,
-      kind: signatures.kind,
-      subjectId: signatures.subjectId,
-    })
-    .from(signatures)
-    .where(inArray(signatures.id, [...ids]))
-    .all();
-}
-
-export function outcomeSignaturesOf(db: DbOrTx, inspectionIds: readonly string[]) {
-  if (inspectionIds.length === 0) return [];
+/** The outcome signatures of the signed inspections in scope (every one, current or not). */
+export function outcomeSignaturesOf(db: DbOrTx, scope: EngineScope) {
   return db
     .select({
       id: signatures.id,
@@ -64,13 +61,28 @@ export function outcomeSignaturesOf(db: DbOrTx, inspectionIds: readonly string[]
       content: signatures.content,
       subjectId: signatures.subjectId,
     })
-    .from(signatures)
-    .where(and(eq(signatures.kind, 'outcome'), inArray(signatures.subjectId, [...inspectionIds])))
+    .from(inspections)
+    .innerJoin(engines, eq(engines.id, inspections.engineId))
+    .innerJoin(
+      signatures,
+      and(eq(signatures.kind, 'outcome'), eq(signatures.subjectId, inspections.id)),
+    )
+    .where(and(scopeOf(scope), signed))
     .all();
 }
 
-export function coverageOfInspections(db: DbOrTx, inspectionIds: readonly string[]) {
-  if (inspectionIds.length === 0) return [];
+/** The current release signatures of the inspections in scope. */
+export function releaseSignaturesOf(db: DbOrTx, scope: EngineScope) {
+  return db
+    .select({ subjectId: signatures.subjectId, content: signatures.content })
+    .from(inspections)
+    .innerJoin(engines, eq(engines.id, inspections.engineId))
+    .innerJoin(signatures, eq(signatures.id, inspections.releaseSignatureId))
+    .where(scopeOf(scope))
+    .all();
+}
+
+export function coverageOfInspections(db: DbOrTx, scope: EngineScope) {
   return db
     .select({
       inspectionId: rowCoverage.inspectionId,
@@ -78,13 +90,15 @@ export function coverageOfInspections(db: DbOrTx, inspectionIds: readonly string
       status: rowCoverage.status,
       viewedPositions: rowCoverage.viewedPositions,
     })
-    .from(rowCoverage)
-    .where(inArray(rowCoverage.inspectionId, [...inspectionIds]))
+    .from(inspections)
+    .innerJoin(engines, eq(engines.id, inspections.engineId))
+    .innerJoin(rowCoverage, eq(rowCoverage.inspectionId, inspections.id))
+    .where(and(scopeOf(scope), signed))
     .all();
 }
 
-export function findingPlaces(db: DbOrTx, findingIds: readonly string[]) {
-  if (findingIds.length === 0) return [];
+/** Where each recorded finding of the signed inspections in scope is, and its damage series. */
+export function findingPlaces(db: DbOrTx, scope: EngineScope) {
   return db
     .select({
       id: findings.id,
@@ -92,13 +106,14 @@ export function findingPlaces(db: DbOrTx, findingIds: readonly string[]) {
       position: findings.position,
       seriesId: findings.seriesId,
     })
-    .from(findings)
-    .where(inArray(findings.id, [...findingIds]))
+    .from(inspections)
+    .innerJoin(engines, eq(engines.id, inspections.engineId))
+    .innerJoin(findings, eq(findings.inspectionId, inspections.id))
+    .where(and(scopeOf(scope), signed, eq(findings.status, 'recorded')))
     .all();
 }
 
-export function utilizationOf(db: DbOrTx, engineIds: readonly string[]) {
-  if (engineIds.length === 0) return [];
+export function utilizationOf(db: DbOrTx, scope: EngineScope) {
   return db
     .select({
       engineId: utilizationRecords.engineId,
@@ -108,12 +123,12 @@ export function utilizationOf(db: DbOrTx, engineIds: readonly string[]) {
       hours: utilizationRecords.hours,
     })
     .from(utilizationRecords)
-    .where(inArray(utilizationRecords.engineId, [...engineIds]))
+    .innerJoin(engines, eq(engines.id, utilizationRecords.engineId))
+    .where(scopeOf(scope))
     .all();
 }
 
-export function bookingsOf(db: DbOrTx, engineIds: readonly string[]) {
-  if (engineIds.length === 0) return [];
+export function bookingsOf(db: DbOrTx, scope: EngineScope) {
   return db
     .select({
       engineId: bookings.engineId,
@@ -124,8 +139,9 @@ export function bookingsOf(db: DbOrTx, engineIds: readonly string[]) {
       bookedByName: users.name,
     })
     .from(bookings)
+    .innerJoin(engines, eq(engines.id, bookings.engineId))
     .innerJoin(users, eq(users.id, bookings.bookedBy))
-    .where(inArray(bookings.engineId, [...engineIds]))
+    .where(scopeOf(scope))
     .all();
 }
 
@@ -135,21 +151,4 @@ export function upsertBooking(db: DbOrTx, row: typeof bookings.$inferInsert): vo
     .values(row)
     .onConflictDoUpdate({ target: bookings.engineId, set: changes })
     .run();
-}
-
-/** The engines a planning read covers, with what the due status needs of each. */
-export function planningEngines(
-  db: DbOrTx,
-  filter: { organisationId?: string | undefined; modelId?: string | undefined },
-) {
-  const conditions = [];
-  if (filter.organisationId) conditions.push(eq(engines.organisationId, filter.organisationId));
-  if (filter.modelId) conditions.push(eq(engines.modelId, filter.modelId));
-  return db
-    .select({ id: engines.id })
-    .from(engines)
-    .where(conditions.length ? and(...conditions) : undefined)
-    .orderBy(asc(engines.serialNumber))
-    .all()
-    .map((row) => row.id);
 }

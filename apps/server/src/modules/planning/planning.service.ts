@@ -17,18 +17,18 @@ import type { Principal } from '../../http/principal';
 import { recordScope } from '../../http/record-access';
 import { appendAudit } from '../audit/audit.repository';
 import { findEngineModel, listModelRows } from '../engine-models/engine-models.repository';
-import { findEngineRows, type EngineListRow } from '../engines/engines.repository';
+import { findEngineRowsIn, type EngineListRow } from '../engines/engines.repository';
 import { createEnginesService } from '../engines/engines.service';
 import {
   bookingsOf,
   coverageOfInspections,
   findingPlaces,
   outcomeSignaturesOf,
-  planningEngines,
-  signaturesById,
+  releaseSignaturesOf,
   signedInspections,
   upsertBooking,
   utilizationOf,
+  type EngineScope,
 } from './planning.repository';
 
 type OutcomeContent = ReturnType<typeof outcomeContent>;
@@ -59,18 +59,12 @@ const groupBy = <T, K>(items: readonly T[], key: (item: T) => K) => {
  * outcome, or, while a correction after release waits, the outcome of the latest release. One
  * query a kind of row, whatever the number of engines.
  */
-function dueInspections(db: DbOrTx, engineIds: readonly string[]): Map<string, DueInspection[]> {
-  const rows = signedInspections(db, engineIds);
+function dueInspections(db: DbOrTx, scope: EngineScope): Map<string, DueInspection[]> {
+  const rows = signedInspections(db, scope);
   const releases = new Map(
-    signaturesById(
-      db,
-      rows.flatMap((row) => (row.releaseSignatureId ? [row.releaseSignatureId] : [])),
-    ).map((signature) => [signature.subjectId, signature]),
+    releaseSignaturesOf(db, scope).map((signature) => [signature.subjectId, signature]),
   );
-  const outcomes = outcomeSignaturesOf(
-    db,
-    rows.map((row) => row.id),
-  );
+  const outcomes = outcomeSignaturesOf(db, scope);
   const outcomesById = new Map(outcomes.map((signature) => [signature.id, signature]));
   const outcomesBySha = new Map(outcomes.map((signature) => [signature.sha256, signature]));
   const counting = rows.flatMap((row) => {
@@ -82,19 +76,8 @@ function dueInspections(db: DbOrTx, engineIds: readonly string[]): Map<string, D
         );
     return outcome ? [{ row, outcome, content: outcome.content as OutcomeContent }] : [];
   });
-  const places = new Map(
-    findingPlaces(
-      db,
-      counting.flatMap((item) => item.content.dispositions.map((entry) => entry.findingId)),
-    ).map((place) => [place.id, place]),
-  );
-  const coverage = groupBy(
-    coverageOfInspections(
-      db,
-      counting.map((item) => item.row.id),
-    ),
-    (item) => item.inspectionId,
-  );
+  const places = new Map(findingPlaces(db, scope).map((place) => [place.id, place]));
+  const coverage = groupBy(coverageOfInspections(db, scope), (item) => item.inspectionId);
   const inspections = counting.map(({ row, outcome, content }) => ({
     engineId: row.engineId,
     inspection: {
@@ -138,11 +121,10 @@ export function createPlanningService(ctx: AppContext) {
   const today = () => todayIn(config.timeZone, ctx.now());
 
   /** The due status of engines (DESIGN §5.6), computed when read, with their bookings. */
-  function dueOf(rows: readonly EngineListRow[]): Map<string, EngineDue> {
-    const ids = rows.map((row) => row.id);
-    const inspections = dueInspections(db, ids);
-    const utilization = groupBy(utilizationOf(db, ids), (record) => record.engineId);
-    const bookings = new Map(bookingsOf(db, ids).map((booking) => [booking.engineId, booking]));
+  function dueOf(rows: readonly EngineListRow[], scope: EngineScope): Map<string, EngineDue> {
+    const inspections = dueInspections(db, scope);
+    const utilization = groupBy(utilizationOf(db, scope), (record) => record.engineId);
+    const bookings = new Map(bookingsOf(db, scope).map((booking) => [booking.engineId, booking]));
     const models = new Map(
       [...new Set(rows.map((row) => row.modelId))].map((modelId) => [
         modelId,
@@ -200,7 +182,7 @@ export function createPlanningService(ctx: AppContext) {
   return {
     engineDue(principal: Principal, engineId: string): EngineDue {
       const engine = engines.visibleEngine(principal, engineId);
-      return dueOf([engine]).get(engine.id)!;
+      return dueOf([engine], { engineId: engine.id }).get(engine.id)!;
     },
 
     /**
@@ -208,13 +190,12 @@ export function createPlanningService(ctx: AppContext) {
      * then by the date it falls due; filtered by customer, model, state and the days due.
      */
     list(principal: Principal, query: PlanningQuery): PlanningResponse {
-      const scope = recordScope(principal);
-      const ids = planningEngines(db, {
-        organisationId: scope.organisationId ?? query.organisationId,
+      const scope: EngineScope = {
+        organisationId: recordScope(principal).organisationId ?? query.organisationId,
         modelId: query.modelId,
-      });
-      const rows = findEngineRows(db, ids);
-      const due = dueOf(rows);
+      };
+      const rows = findEngineRowsIn(db, scope);
+      const due = dueOf(rows, scope);
       const rank = {
         overdue: 0,
         'awaiting-disposition': 1,
@@ -273,7 +254,7 @@ export function createPlanningService(ctx: AppContext) {
       meta: RequestMeta,
     ): EngineDue {
       const engine = engines.visibleEngine(principal, engineId);
-      const current = dueOf([engine]).get(engine.id)!;
+      const current = dueOf([engine], { engineId: engine.id }).get(engine.id)!;
       const day = today();
       const dueDate = current.nextInspection?.dueDate ?? null;
       const refuse = (message: string) =>
