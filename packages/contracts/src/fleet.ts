@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { intervalSchema } from './limits';
-import { baselineSchema } from './planning';
-import { isoDateSchema } from './forecast';
+import { baselineSchema, dueStateSchema } from './planning';
+import { forecastDimensionSchema, isoDateSchema } from './forecast';
 
 const key = z
   .string()
@@ -209,6 +209,15 @@ export const engineSchema = z.object({
    * beyond limits; null when none waits (and always for customers, who see released ones only).
    */
   awaitingDisposition: z.object({ inspectionId: z.string(), beyondLimits: z.boolean() }).nullable(),
+  /** When it is next due (DESIGN §5.6), for those who plan; null for customers. */
+  nextDue: z
+    .object({
+      state: dueStateSchema,
+      dueDate: z.string().nullable(),
+      dueCsn: z.number().nullable(),
+      governing: forecastDimensionSchema.nullable(),
+    })
+    .nullable(),
 });
 export type Engine = z.infer<typeof engineSchema>;
 

@@ -1,4 +1,4 @@
-import { and, asc, count, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, inArray, like, or, sql, type SQL } from 'drizzle-orm';
 import type { EngineListQuery, EngineSortKey } from '@emberline/contracts/fleet';
 import type { DbOrTx } from '../../db/client';
 import type { AnySQLiteColumn } from 'drizzle-orm/sqlite-core';
@@ -147,9 +147,14 @@ export function findEngineRow(db: DbOrTx, id: string): EngineListRow | undefined
 /** The engines of an owner and model (or all), each with what a list shows of it. */
 export function findEngineRowsIn(
   db: DbOrTx,
-  scope: { organisationId?: string | undefined; modelId?: string | undefined },
+  scope: {
+    engineIds?: readonly string[] | undefined;
+    organisationId?: string | undefined;
+    modelId?: string | undefined;
+  },
 ): EngineListRow[] {
   const conditions: SQL[] = [];
+  if (scope.engineIds) conditions.push(inArray(engines.id, [...scope.engineIds]));
   if (scope.organisationId) conditions.push(eq(engines.organisationId, scope.organisationId));
   if (scope.modelId) conditions.push(eq(engines.modelId, scope.modelId));
   return db

@@ -11,11 +11,13 @@ import type { AppContext } from '../../context';
 import { principalOf } from '../../http/principal';
 import { requestMeta } from '../../http/request-meta';
 import { route } from '../../http/route';
+import { createPlanningService } from '../planning/planning.service';
 import { createEnginesService } from './engines.service';
 
 export function enginesRoutes(ctx: AppContext): Router {
   const router = Router();
   const engines = createEnginesService(ctx);
+  const planning = createPlanningService(ctx);
 
   route(
     router,
@@ -26,7 +28,8 @@ export function enginesRoutes(ctx: AppContext): Router {
       response: engineListResponseSchema,
     },
     (_req, res) => {
-      res.json(engines.list(principalOf(res), res.locals.query));
+      const principal = principalOf(res);
+      res.json(planning.withNextDue(principal, engines.list(principal, res.locals.query)));
     },
   );
 

@@ -32,6 +32,7 @@ export function toEngine(row: EngineListRow, principal: Principal): Engine {
   return {
     ...engine,
     preFleetInspection: row.preFleetInspection ?? null,
+    nextDue: null,
     createdAt: row.createdAt.toISOString(),
     awaitingDisposition:
       awaitingInspectionId && !recordScope(principal).releasedOnly

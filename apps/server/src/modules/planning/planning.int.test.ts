@@ -244,5 +244,18 @@ describe('due status of an engine (DESIGN §5.6)', () => {
         (item) => item.serialNumber === 'VT3-D0105',
       )!;
       expect(stale.reason).toMatch(/Utilization not recorded for more than 30 days/);
+
+      // The fleet list carries the same state for the engines of its page, not to customers.
+      const fleet = await request(t.app)
+        .get('/api/v1/engines')
+        .query({ serial: 'VT3-D0102' })
+        .set('Cookie', planner);
+      expect(fleet.body.items[0].nextDue).toMatchObject({ state: 'due-soon', governing: 'cycles' });
+      const customer = await t.signIn(demoAccounts.customer);
+      const theirs = await request(t.app)
+        .get('/api/v1/engines')
+        .query({ serial: 'VT3-D0102' })
+        .set('Cookie', customer);
+      expect(theirs.body.items[0].nextDue).toBeNull();
     });
 });

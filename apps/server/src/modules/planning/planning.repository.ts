@@ -1,4 +1,4 @@
-import { and, asc, eq, gt, isNotNull, or, type SQL } from 'drizzle-orm';
+import { and, asc, eq, gt, inArray, isNotNull, or, type SQL } from 'drizzle-orm';
 import type { DbOrTx } from '../../db/client';
 import {
   bookings,
@@ -18,6 +18,8 @@ import {
  */
 export interface EngineScope {
   engineId?: string | undefined;
+  /** A page of engines (a list screen's): a short list. */
+  engineIds?: readonly string[] | undefined;
   organisationId?: string | undefined;
   modelId?: string | undefined;
 }
@@ -25,6 +27,7 @@ export interface EngineScope {
 function scopeOf(scope: EngineScope): SQL | undefined {
   const conditions: SQL[] = [];
   if (scope.engineId) conditions.push(eq(engines.id, scope.engineId));
+  if (scope.engineIds) conditions.push(inArray(engines.id, [...scope.engineIds]));
   if (scope.organisationId) conditions.push(eq(engines.organisationId, scope.organisationId));
   if (scope.modelId) conditions.push(eq(engines.modelId, scope.modelId));
   return conditions.length ? and(...conditions) : undefined;

@@ -5,6 +5,8 @@ import type {
   PlanningQuery,
   PlanningResponse,
 } from '@emberline/contracts/planning';
+import type { EngineListResponse } from '@emberline/contracts/fleet';
+import { can } from '@emberline/contracts/permissions';
 import { decisionSchema } from '@emberline/contracts/review';
 import { dayWords } from '@emberline/domain/dates';
 import { dueStatus, type DueInspection } from '@emberline/domain/due-status';
@@ -180,6 +182,33 @@ export function createPlanningService(ctx: AppContext) {
   }
 
   return {
+    /**
+     * The due status of a page of engines as a list shows it (for those who may read planning);
+     * the list's rows go in as they are.
+     */
+    withNextDue(principal: Principal, page: EngineListResponse): EngineListResponse {
+      if (!can(principal.user.role, 'read:planning') || page.items.length === 0) return page;
+      const ids = page.items.map((item) => item.id);
+      const due = dueOf(findEngineRowsIn(db, { engineIds: ids }), { engineIds: ids });
+      return {
+        ...page,
+        items: page.items.map((item) => {
+          const status = due.get(item.id);
+          return {
+            ...item,
+            nextDue: status
+              ? {
+                  state: status.state,
+                  dueDate: status.nextInspection?.dueDate ?? null,
+                  dueCsn: status.nextInspection?.dueCsn ?? null,
+                  governing: status.nextInspection?.governing ?? null,
+                }
+              : null,
+          };
+        }),
+      };
+    },
+
     engineDue(principal: Principal, engineId: string): EngineDue {
       const engine = engines.visibleEngine(principal, engineId);
       return dueOf([engine], { engineId: engine.id }).get(engine.id)!;

@@ -14,6 +14,7 @@ import {
 } from '@tanstack/react-table';
 import { ArrowDown, ArrowUp, ArrowUpDown } from 'lucide-react';
 import { AwaitingDisposition } from '../../../components/ui/awaiting-disposition';
+import { DueStateBadge } from '../../../components/ui/due-state-badge';
 import { Link } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { Input, Select } from '../../../components/ui/field';
@@ -86,6 +87,27 @@ const columns: ColumnDef<typeof features, Engine>[] = [
     enableSorting: false,
     cell: ({ row }) => formatDate(row.original.tsnCsnAsOf),
   },
+  {
+    id: 'nextDue',
+    header: 'Next due',
+    enableSorting: false,
+    cell: ({ row }) => {
+      const due = row.original.nextDue;
+      if (!due) return '—';
+      return (
+        <span className="flex flex-col gap-1">
+          <DueStateBadge state={due.state} />
+          {due.dueDate ? (
+            <span className="text-xs">
+              {formatDate(due.dueDate)}
+              {due.dueCsn !== null ? ` · CSN ${formatCount(due.dueCsn)}` : ''}
+              {due.governing ? ` · by ${due.governing}` : ''}
+            </span>
+          ) : null}
+        </span>
+      );
+    },
+  },
 ];
 
 const columnLabels = Object.fromEntries(
@@ -129,7 +151,7 @@ export function FleetTable({ view, onChange, models, owners }: FleetTableProps) 
   const columnVisibility: ColumnVisibilityState = useMemo(
     () =>
       Object.fromEntries(
-        [...hidden, ...(owners ? [] : ['organisationName'])].map((id) => [id, false]),
+        [...hidden, ...(owners ? [] : ['organisationName', 'nextDue'])].map((id) => [id, false]),
       ),
     [hidden, owners],
   );
