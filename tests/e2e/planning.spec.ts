@@ -53,3 +53,19 @@ test('the planner finds VT3-D0103 overdue on the board, books it from today, and
     'Booked for',
   );
 });
+
+test('the growing crack of VT3-D0103 shows its trend over three inspections, projected to its limit', async ({
+  page,
+}) => {
+  await signIn(page, 'engineer@demo.test');
+  await page.goto('/inspections/inspection-d0103-demo');
+  const item = page.getByTestId('finding-item').filter({ hasText: 'crack' }).filter({
+    hasText: 'Continues an earlier finding',
+  });
+  await item.getByText('Continues an earlier finding: show the damage trend').click();
+  const chart = item.getByTestId('trend-chart');
+  await expect(chart).toBeVisible();
+  await expect(chart.locator('.recharts-scatter-symbol')).toHaveCount(3);
+  await expect(chart).toContainText('Projected to reach the repeat limit of 1.50 mm');
+  await expect(chart).toContainText('r²');
+});

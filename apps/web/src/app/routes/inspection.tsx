@@ -20,6 +20,7 @@ import { ImageTagForm } from '../../features/inspections/components/image-tag-fo
 import { ReviewActions } from '../../features/inspections/components/review-actions';
 import { VideoFrames } from '../../features/inspections/components/video-frames';
 import { RecordHistory } from '../../features/audit/components/record-history';
+import { FindingTrend } from '../../features/review/components/finding-trend';
 import { DecisionsSummary } from '../../features/review/components/decisions-summary';
 import { ApiError } from '../../lib/api-client';
 import { formatDate, formatHours } from '../../lib/format';
@@ -149,6 +150,11 @@ export function InspectionRoute() {
             findings={findings.data.items}
             coverage={coverage.data.rows}
             editable={editable}
+            trend={
+              can(user.role, 'read:limit-set')
+                ? (finding) => <FindingTrend finding={finding} />
+                : undefined
+            }
             onOpen={(finding) => {
               const at = data.images.findIndex((image) => image.id === finding.imageId);
               if (at >= 0) setSelected(at);

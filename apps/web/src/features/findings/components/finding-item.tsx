@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import type { Finding } from '@emberline/contracts/findings';
 import type { EngineModelRow } from '@emberline/contracts/fleet';
 import { Button } from '../../../components/ui/button';
@@ -17,12 +17,15 @@ export function FindingItem({
   editable,
   inspectionId,
   onOpen,
+  trend,
 }: {
   finding: Finding;
   rows: EngineModelRow[];
   editable: boolean;
   inspectionId: string;
   onOpen: (finding: Finding) => void;
+  /** The damage trend of a finding that continues earlier ones, drawn by the caller. */
+  trend?: ((finding: Finding) => ReactNode) | undefined;
 }) {
   const voiding = useVoidFinding(inspectionId);
   const [reason, setReason] = useState('');
@@ -69,8 +72,17 @@ export function FindingItem({
           {evaluation.indeterminate
             ? ' · indeterminate: a re-measurement or a better view could settle it'
             : ''}
-          {finding.previousFindingId ? ' · continues an earlier finding' : ''}
         </p>
+      ) : null}
+      {finding.previousFindingId && finding.status === 'recorded' && trend ? (
+        <details className="text-xs">
+          <summary className="cursor-pointer text-ember-800">
+            Continues an earlier finding: show the damage trend
+          </summary>
+          {trend(finding)}
+        </details>
+      ) : finding.previousFindingId ? (
+        <p className="text-xs text-soot-700">Continues an earlier finding.</p>
       ) : null}
       {editable && finding.status === 'recorded' && correcting ? (
         <FindingEditForm finding={finding} rows={rows} onDone={() => setCorrecting(false)} />

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import {
   coverageStatusLabels,
   type Finding,
@@ -23,6 +23,7 @@ export function FindingsPanel({
   coverage,
   editable,
   onOpen,
+  trend,
 }: {
   inspectionId: string;
   rows: EngineModelRow[];
@@ -30,6 +31,7 @@ export function FindingsPanel({
   coverage: RowCoverage[];
   editable: boolean;
   onOpen: (finding: Finding) => void;
+  trend?: (finding: Finding) => ReactNode;
 }) {
   const [filter, setFilter] = useState<Record<string, number | null>>({});
   return (
@@ -135,6 +137,7 @@ export function FindingsPanel({
                       editable={editable}
                       inspectionId={inspectionId}
                       onOpen={onOpen}
+                      trend={trend}
                     />
                   ))}
                 </ul>

@@ -8,6 +8,7 @@ import { VerdictBadge } from '../../../components/ui/verdict-badge';
 import { formatDate, formatDateTime, formatKey } from '../../../lib/format';
 import { reasonLabels } from '../../../lib/reason-labels';
 import { useDamageSeries, useJudgedAgainst } from '../api/review';
+import { FindingTrend } from './finding-trend';
 
 const unitWords: Record<LimitUnit, string> = {
   mm: 'mm',
@@ -161,6 +162,7 @@ export function FindingReview({
           </ul>
         )}
       </div>
+      <FindingTrend finding={finding} />
       {dispositions.length > 0 ? (
         <div>
           <h4 className="font-medium">Dispositions</h4>
