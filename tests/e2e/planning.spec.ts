@@ -33,6 +33,15 @@ test('the planner finds VT3-D0103 overdue on the board, books it from today, and
   const row = page.getByTestId('planning-row').filter({ hasText: 'VT3-D0103' });
   await expect(row.locator('[data-due-state]')).toHaveText(/Overdue/);
   expect(await seriousViolations(page), 'planning board').toEqual([]);
+  const download = page.waitForEvent('download');
+  await page.getByRole('link', { name: 'Download the list as CSV' }).click();
+  const file = await download;
+  expect(file.suggestedFilename()).toBe('emberline-planning.csv');
+  const text = await (await file.createReadStream()).toArray();
+  expect(Buffer.concat(text).toString('utf8')).toMatch(/^engine,customer,model,state,/);
+  expect(Buffer.concat(text).toString('utf8')).toContain(
+    'VT3-D0103,Corvid Regional Airways (demo)',
+  );
 
   // A day in the past is refused at the field, in words; today is taken.
   await row.getByText('Book…').click();

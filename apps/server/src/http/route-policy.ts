@@ -62,6 +62,7 @@ export const routePolicy = {
   'GET /review-queue': 'review:inspection',
   'GET /engines/:id/due': 'read:planning',
   'GET /planning': 'read:planning',
+  'GET /planning/export': 'read:planning',
   'PUT /engines/:id/booking': 'plan:inspection',
   'GET /inspections/:id/dispositions': 'read:inspection',
   'POST /findings/:id/dispositions': 'review:inspection',

@@ -201,6 +201,17 @@ describe('due status of an engine (DESIGN §5.6)', () => {
       (item) => item.engineId === 'engine-d0101',
     )!;
     expect(row.booking?.plannedDate).toBe(addDays(dueDate, -1));
+    const csv = await request(t.app).get('/api/v1/planning/export').set('Cookie', planner);
+    expect(csv.status).toBe(200);
+    expect(csv.headers['content-type']).toMatch(/^text\/csv/);
+    const lines = csv.text.trim().split('\r\n');
+    expect(lines[0]).toBe(
+      'engine,customer,model,state,next due date,due CSN,due TSN,governed by,removal,removal due,planned date,booking note',
+    );
+    expect(lines).toHaveLength(1 + 10);
+    expect(lines.find((line) => line.startsWith('VT3-D0101,'))).toContain(
+      `${addDays(dueDate, -1)},Slot in hangar 2 (invented)`,
+    );
     const inShop = await request(t.app)
       .get('/api/v1/planning')
       .query({ state: 'in-shop' })

@@ -43,6 +43,19 @@ export function planningRoutes(ctx: AppContext): Router {
   );
   route(
     router,
+    'GET /planning/export',
+    {
+      summary: 'The whole planning board, as filtered, as a CSV file',
+      query: planningQuerySchema,
+    },
+    (_req, res) => {
+      res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+      res.setHeader('Content-Disposition', 'attachment; filename="emberline-planning.csv"');
+      res.send(planning.exportCsv(principalOf(res), res.locals.query));
+    },
+  );
+  route(
+    router,
     'PUT /engines/:id/booking',
     {
       summary: 'Book the next inspection of an engine: not in the past, not after its due date',

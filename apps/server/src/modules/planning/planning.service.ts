@@ -1,14 +1,16 @@
-import type {
-  ParsedBookingInput,
-  EngineDue,
-  PlanningItem,
-  PlanningQuery,
-  PlanningResponse,
+import {
+  dueStateLabels,
+  type EngineDue,
+  type ParsedBookingInput,
+  type PlanningItem,
+  type PlanningQuery,
+  type PlanningResponse,
 } from '@emberline/contracts/planning';
 import type { EngineListResponse } from '@emberline/contracts/fleet';
 import { can } from '@emberline/contracts/permissions';
 import { decisionSchema } from '@emberline/contracts/review';
 import { dayWords } from '@emberline/domain/dates';
+import { actionWords } from '@emberline/domain/decision-words';
 import { dueStatus, type DueInspection } from '@emberline/domain/due-status';
 import type { outcomeContent, releaseContent } from '@emberline/domain/signature-content';
 import type { UtilizationIncrement } from '@emberline/domain/utilization';
@@ -17,6 +19,7 @@ import { inTransaction, type DbOrTx } from '../../db/client';
 import { AppError } from '../../http/app-error';
 import type { Principal } from '../../http/principal';
 import { recordScope } from '../../http/record-access';
+import { writeCsv } from '../../lib/csv';
 import { appendAudit } from '../audit/audit.repository';
 import { findEngineModel, listModelRows } from '../engine-models/engine-models.repository';
 import { findEngineRowsIn, type EngineListRow } from '../engines/engines.repository';
@@ -270,6 +273,45 @@ export function createPlanningService(ctx: AppContext) {
         page: query.page,
         pageSize: query.pageSize,
       };
+    },
+
+    /** The whole board (every page) as a CSV file a planner can open in a spreadsheet. */
+    exportCsv(principal: Principal, query: PlanningQuery): string {
+      const { items } = this.list(principal, { ...query, page: 1, pageSize: 100_000 });
+      return writeCsv(
+        [
+          'engine',
+          'customer',
+          'model',
+          'state',
+          'next due date',
+          'due CSN',
+          'due TSN',
+          'governed by',
+          'removal',
+          'removal due',
+          'planned date',
+          'booking note',
+        ],
+        items.map((item) => [
+          item.serialNumber,
+          item.organisationName,
+          item.modelName,
+          dueStateLabels[item.state],
+          item.nextInspection?.dueDate ?? null,
+          item.nextInspection?.dueCsn ?? null,
+          item.nextInspection?.dueTsn ?? null,
+          item.governedBy
+            ? `${item.governedBy.kind === 'repeat' ? 'repeat inspection' : 'standard interval'}${item.nextInspection?.governing ? `, ${item.nextInspection.governing}` : ''}`
+            : null,
+          item.removal
+            ? actionWords({ kind: item.removal.kind, cycles: null, hours: null }).trim()
+            : null,
+          item.removal?.dueDate ?? null,
+          item.booking?.plannedDate ?? null,
+          item.booking?.note ?? null,
+        ]),
+      );
     },
 
     /**

@@ -5,7 +5,7 @@ import type {
   PlanningQuery,
   PlanningResponse,
 } from '@emberline/contracts/planning';
-import { api } from '../../../lib/api-client';
+import { api, apiUrl } from '../../../lib/api-client';
 
 export const planningKeys = {
   all: ['planning'] as const,
@@ -40,4 +40,14 @@ export function useBook(engineId: string) {
       api.put<EngineDue>(`/engines/${encodeURIComponent(engineId)}/booking`, input),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: planningKeys.all }),
   });
+}
+
+/** Where the whole board, as filtered, downloads as CSV. */
+export function planningCsvUrl(query: Partial<PlanningQuery>): string {
+  const params = new URLSearchParams(
+    Object.entries(query)
+      .filter((entry) => entry[1] !== undefined && entry[1] !== '' && entry[0] !== 'page')
+      .map(([key, value]) => [key, String(value)]),
+  );
+  return apiUrl(`/planning/export?${params.toString()}`);
 }

@@ -12,7 +12,7 @@ import { Button } from '../../../components/ui/button';
 import { Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { formatCount, formatDate, formatHours } from '../../../lib/format';
-import { usePlanning } from '../api/planning';
+import { planningCsvUrl, usePlanning } from '../api/planning';
 import { BookingForm } from './booking-form';
 
 const features = tableFeatures({});
@@ -174,6 +174,13 @@ export function PlanningBoard({
           dueStates.map((state) => ({ id: state, label: dueStateLabels[state] })),
         )}
       </div>
+      <a
+        href={planningCsvUrl(filters)}
+        download
+        className="self-start text-sm font-medium text-ember-800 underline"
+      >
+        Download the list as CSV
+      </a>
       {board.error ? <Notice tone="error">{board.error.message}</Notice> : null}
       <div className="overflow-x-auto rounded-lg border border-soot-200 bg-white">
         <table className="w-full text-left text-sm" aria-busy={board.isFetching || undefined}>
