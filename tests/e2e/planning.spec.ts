@@ -13,6 +13,7 @@ test('the planner sees VT3-D0103 overdue on its engine page, with what governs a
   );
   await expect(card).toContainText('9,442');
   await expect(card).toContainText('Open requirements');
+  await expect(card).toContainText('Limit reached before the next inspection');
   expect(await seriousViolations(page), 'engine page with its due card').toEqual([]);
 });
 

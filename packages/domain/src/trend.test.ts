@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { trend } from './trend';
+import { trend, trendWarning } from './trend';
 
 describe('trend', () => {
   it('fits a growing crack and projects where it meets the limit', () => {
@@ -75,5 +75,31 @@ describe('trend', () => {
         limit: 5,
       }),
     ).toThrowError(/two different CSN/);
+  });
+});
+
+describe('trend warning (DESIGN §5.6)', () => {
+  // Hand-worked: value + uncertainty 1.0, 1.2, 1.4 at CSN 1,000, 1,100, 1,200 lie on
+  // 0.002 mm a cycle from -1.0 mm: 1.5 mm is reached at CSN 1,250, 50 cycles after the last.
+  const points = [
+    { csn: 1000, value: 0.9, uncertainty: 0.1 },
+    { csn: 1100, value: 1.1, uncertainty: 0.1 },
+    { csn: 1200, value: 1.3, uncertainty: 0.1 },
+  ];
+  it('warns when the limit comes before the next due CSN, with the cycles left', () => {
+    const warning = trendWarning(points, 1.5, 1300);
+    expect(warning?.projectedCsnAtLimit).toBeCloseTo(1250, 9);
+    expect(warning?.cyclesRemaining).toBeCloseTo(50, 9);
+  });
+  it('says nothing when the next inspection comes first, or the damage does not grow', () => {
+    expect(trendWarning(points, 1.5, 1240)).toBeNull();
+    expect(
+      trendWarning(
+        points.map((point) => ({ ...point, value: 1 })),
+        1.5,
+        9999,
+      ),
+    ).toBeNull();
+    expect(trendWarning([points[0]!], 1.5, 9999)).toBeNull();
   });
 });

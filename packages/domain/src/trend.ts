@@ -42,3 +42,27 @@ export function trend({ points, limit }: TrendRequest): TrendResult {
     cyclesRemaining: projected === null ? null : projected - latest,
   };
 }
+
+/**
+ * The trend warning of one damage series (DESIGN §5.6): the §5.4 projection of value plus
+ * uncertainty reaches the outer limit before the CSN expected at the next due date. Returns the
+ * cycles from the last measurement to the limit, or null when there is nothing to warn of (fewer
+ * than two CSN, not growing, or the limit comes later).
+ */
+export function trendWarning(
+  points: readonly { csn: number; value: number; uncertainty: number }[],
+  limit: number,
+  expectedCsn: number,
+): { cyclesRemaining: number; projectedCsnAtLimit: number } | null {
+  if (new Set(points.map((point) => point.csn)).size < 2) return null;
+  const result = trend({
+    points: points.map((point) => ({ csn: point.csn, value: point.value + point.uncertainty })),
+    limit,
+  });
+  if (result.projectedCsnAtLimit === null || result.cyclesRemaining === null) return null;
+  if (result.projectedCsnAtLimit >= expectedCsn) return null;
+  return {
+    cyclesRemaining: result.cyclesRemaining,
+    projectedCsnAtLimit: result.projectedCsnAtLimit,
+  };
+}

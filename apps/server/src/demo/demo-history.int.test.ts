@@ -149,6 +149,15 @@ describe('the demo history', () => {
       },
       nextInspection: { dueCsn: 9_442, governing: 'cycles' },
     });
+    // And its crack (0.80, 1.30, 1.34 mm, each with about 0.09 mm of uncertainty) is projected to
+    // reach the 1.5 mm repeat limit before CSN 9,442: a trend warning.
+    const latest = (await findingsOf(DEMO_INSPECTION_ID)).items.find(
+      (item) => item.row === 'hpt1-blade' && item.damage === 'crack',
+    )!;
+    expect(due.body.trendWarnings).toEqual([
+      { seriesId: latest.seriesId, findingId: latest.id, cyclesRemaining: expect.any(Number) },
+    ]);
+    expect(due.body.trendWarnings[0].cyclesRemaining).toBeLessThan(10);
     // The draft inspection three days ago does not count until it is dispositioned.
     expect(
       due.body.requirements.map((item: { inspectionId: string }) => item.inspectionId),

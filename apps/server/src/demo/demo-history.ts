@@ -77,7 +77,7 @@ interface DemoInspection {
   coverage: Record<string, CoverageInput>;
 }
 
-// The growing crack on HPT blade 12, leading edge: 0.80, 1.10 and 1.32 mm at 0.01 mm a pixel
+// The growing crack on HPT blade 12, leading edge: 0.80, 1.30 and 1.34 mm at 0.01 mm a pixel
 // (the invented limits: serviceable to 0.5 mm, repeat inspection to 1.5 mm every 200 cycles).
 const crackStart: Point = [760, 420];
 const bladeCrack = (lengthPx: number) => crackPoints(crackStart, lengthPx, 4, 12);
@@ -169,7 +169,7 @@ const history: DemoInspection[] = [
         row: 'hpt1-blade',
         position: 12,
         seed: 311,
-        marks: [{ kind: 'crack', points: bladeCrack(110) }],
+        marks: [{ kind: 'crack', points: bladeCrack(130) }],
       },
       {
         name: 'h2-hpt1-ngv-pos05.jpg',
@@ -188,7 +188,7 @@ const history: DemoInspection[] = [
         position: 12,
         zone: 'leading-edge',
         damage: 'crack',
-        shape: { kind: 'polyline', points: bladeCrack(110) },
+        shape: { kind: 'polyline', points: bladeCrack(130) },
       },
       {
         key: 'ngv5-coating-2',
@@ -228,7 +228,7 @@ const history: DemoInspection[] = [
         row: 'hpt1-blade',
         position: 12,
         seed: 122,
-        marks: [{ kind: 'crack', points: bladeCrack(132) }],
+        marks: [{ kind: 'crack', points: bladeCrack(134) }],
       },
       {
         name: 'hpt1-blade-pos13.jpg',
@@ -248,7 +248,7 @@ const history: DemoInspection[] = [
         position: 12,
         zone: 'leading-edge',
         damage: 'crack',
-        shape: { kind: 'polyline', points: bladeCrack(132) },
+        shape: { kind: 'polyline', points: bladeCrack(134) },
         notes: 'Growing: compare with the two earlier inspections.',
       },
     ],

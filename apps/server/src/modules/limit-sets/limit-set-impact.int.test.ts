@@ -30,7 +30,7 @@ describe('the impact preview of a draft revision', () => {
       categories.reduce((sum, category) => sum + (counts[category] ?? 0), 0);
     expect(total(impact.after)).toBe(impact.findings);
     expect(total(impact.before)).toBe(impact.findings);
-    // D-2 lowers the blade-edge crack repeat limit to 1.2 mm: the 1.32 mm crack of the open
+    // D-2 lowers the blade-edge crack repeat limit to 1.2 mm: the 1.34 mm crack of the open
     // VT3-D0103 inspection leaves repeat inspection for beyond limits.
     const crack = impact.changes.find(
       (change) => change.inspectionId === DEMO_INSPECTION_ID && change.damage === 'crack',

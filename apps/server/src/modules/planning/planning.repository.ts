@@ -155,3 +155,26 @@ export function upsertBooking(db: DbOrTx, row: typeof bookings.$inferInsert): vo
     .onConflictDoUpdate({ target: bookings.engineId, set: changes })
     .run();
 }
+
+/** The recorded findings of some damage series, with the CSN of their inspections. */
+export function seriesPoints(db: DbOrTx, seriesIds: readonly string[]) {
+  if (seriesIds.length === 0) return [];
+  return db
+    .select({
+      id: findings.id,
+      seriesId: findings.seriesId,
+      csn: inspections.csn,
+      date: inspections.date,
+      lengthMm: findings.lengthMm,
+      areaMm2: findings.areaMm2,
+      uncertaintyMm: findings.uncertaintyMm,
+      uncertaintyMm2: findings.uncertaintyMm2,
+      evaluation: findings.evaluation,
+      limitSetId: findings.limitSetId,
+    })
+    .from(findings)
+    .innerJoin(inspections, eq(inspections.id, findings.inspectionId))
+    .where(and(inArray(findings.seriesId, [...seriesIds]), eq(findings.status, 'recorded')))
+    .orderBy(asc(inspections.csn))
+    .all();
+}

@@ -5,15 +5,19 @@ import {
   type PlanningItem,
   type PlanningQuery,
   type PlanningResponse,
+  type Requirement,
 } from '@emberline/contracts/planning';
+import type { Rule } from '@emberline/contracts/limits';
 import type { EngineListResponse } from '@emberline/contracts/fleet';
 import { can } from '@emberline/contracts/permissions';
 import { decisionSchema } from '@emberline/contracts/review';
-import { dayWords } from '@emberline/domain/dates';
+import { dayWords, daysBetween } from '@emberline/domain/dates';
+import { trendWarning } from '@emberline/domain/trend';
+import { MM2_PER_SQUARE_INCH, MM_PER_INCH } from '@emberline/domain/units';
+import { dailyUtilization, type UtilizationIncrement } from '@emberline/domain/utilization';
 import { actionWords } from '@emberline/domain/decision-words';
 import { dueStatus, type DueInspection } from '@emberline/domain/due-status';
 import type { outcomeContent, releaseContent } from '@emberline/domain/signature-content';
-import type { UtilizationIncrement } from '@emberline/domain/utilization';
 import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction, type DbOrTx } from '../../db/client';
 import { AppError } from '../../http/app-error';
@@ -22,6 +26,7 @@ import { recordScope } from '../../http/record-access';
 import { writeCsv } from '../../lib/csv';
 import { appendAudit } from '../audit/audit.repository';
 import { findEngineModel, listModelRows } from '../engine-models/engine-models.repository';
+import { listRules } from '../limit-sets/limit-sets.repository';
 import { findEngineRowsIn, type EngineListRow } from '../engines/engines.repository';
 import { createEnginesService } from '../engines/engines.service';
 import {
@@ -30,6 +35,7 @@ import {
   findingPlaces,
   outcomeSignaturesOf,
   releaseSignaturesOf,
+  seriesPoints,
   signedInspections,
   upsertBooking,
   utilizationOf,
@@ -120,6 +126,58 @@ function dueInspections(db: DbOrTx, scope: EngineScope): Map<string, DueInspecti
   );
 }
 
+/**
+ * Trend warnings (DESIGN §5.6): for each damage series with a finding among the open requirements,
+ * the projection of value plus uncertainty against the outer limit of the rule that judged its
+ * latest finding, when it comes before the CSN expected at the next due date.
+ */
+function seriesWarnings(db: DbOrTx, seriesIds: readonly string[]) {
+  const points = groupBy(seriesPoints(db, seriesIds), (point) => point.seriesId);
+  const rules = new Map<string, Map<string, Rule>>();
+  const rulesOf = (limitSetId: string) => {
+    let found = rules.get(limitSetId);
+    if (!found) {
+      found = new Map(listRules(db, limitSetId).map((rule) => [rule.id, rule]));
+      rules.set(limitSetId, found);
+    }
+    return found;
+  };
+  return (
+    requirements: readonly Requirement[],
+    expectedCsn: number,
+  ): EngineDue['trendWarnings'] => {
+    const open = [...new Set(requirements.map((requirement) => requirement.seriesId))];
+    return open.flatMap((seriesId) => {
+      const series = points.get(seriesId) ?? [];
+      const latest = series.at(-1);
+      const evaluation = latest?.evaluation as { ruleId?: string | null } | null | undefined;
+      const rule =
+        latest?.limitSetId && evaluation?.ruleId
+          ? rulesOf(latest.limitSetId).get(evaluation.ruleId)
+          : undefined;
+      if (!latest || !rule) return [];
+      const outer = rule.repeatMax ?? rule.serviceableMax;
+      if (outer === null) return [];
+      const area = rule.measure === 'area';
+      const limit =
+        rule.unit === 'in'
+          ? outer * MM_PER_INCH
+          : rule.unit === 'in2'
+            ? outer * MM2_PER_SQUARE_INCH
+            : outer;
+      const measured = series.flatMap((point) => {
+        const value = area ? point.areaMm2 : point.lengthMm;
+        const uncertainty = (area ? point.uncertaintyMm2 : point.uncertaintyMm) ?? 0;
+        return value === null ? [] : [{ csn: point.csn, value, uncertainty }];
+      });
+      const warning = trendWarning(measured, limit, expectedCsn);
+      return warning
+        ? [{ seriesId, findingId: latest.id, cyclesRemaining: Math.round(warning.cyclesRemaining) }]
+        : [];
+    });
+  };
+}
+
 export function createPlanningService(ctx: AppContext) {
   const { db, config } = ctx;
   const engines = createEnginesService(ctx);
@@ -137,15 +195,22 @@ export function createPlanningService(ctx: AppContext) {
       ]),
     );
     const day = today();
-    return new Map(
-      rows.map((engine) => {
-        const { model, rows: modelRows } = models.get(engine.modelId)!;
-        const baseline = engine.shopRelease
-          ? { kind: 'shop-release' as const, ...engine.shopRelease }
-          : engine.preFleetInspection
-            ? { kind: 'pre-fleet' as const, ...engine.preFleetInspection }
-            : null;
-        const status = dueStatus({
+    const ratesOf = new Map(
+      [...utilization].map(([engineId, records]) => [
+        engineId,
+        dailyUtilization(records as UtilizationIncrement[]).cyclesPerDay ?? 0,
+      ]),
+    );
+    const statuses = rows.map((engine) => {
+      const { model, rows: modelRows } = models.get(engine.modelId)!;
+      const baseline = engine.shopRelease
+        ? { kind: 'shop-release' as const, ...engine.shopRelease }
+        : engine.preFleetInspection
+          ? { kind: 'pre-fleet' as const, ...engine.preFleetInspection }
+          : null;
+      return {
+        engine,
+        status: dueStatus({
           today: day,
           rows: modelRows,
           standardInterval: model.standardInterval ?? null,
@@ -160,14 +225,30 @@ export function createPlanningService(ctx: AppContext) {
           inspections: inspections.get(engine.id) ?? [],
           awaitingBeyondLimits: Boolean(engine.awaitingBeyondLimits),
           soon: config.dueSoon,
-        });
+        }),
+      };
+    });
+    // One read of every open series' measurements, for the trend warnings of all engines.
+    const warningsOf = seriesWarnings(db, [
+      ...new Set(
+        statuses.flatMap(({ status }) => status.requirements.map((item) => item.seriesId)),
+      ),
+    ]);
+    return new Map(
+      statuses.map(({ engine, status }) => {
         const booking = bookings.get(engine.id);
         const dueDate = status.nextInspection?.dueDate ?? null;
+        const rates = ratesOf.get(engine.id);
+        const expectedCsn =
+          status.nextInspection?.dueCsn ??
+          (dueDate && status.csnNow !== null && rates
+            ? status.csnNow + rates * Math.max(0, daysBetween(day, dueDate))
+            : null);
         return [
           engine.id,
           {
             ...status,
-            trendWarnings: [],
+            trendWarnings: expectedCsn === null ? [] : warningsOf(status.requirements, expectedCsn),
             booking: booking
               ? {
                   plannedDate: booking.plannedDate,

@@ -100,6 +100,18 @@ export function DueCard({
           {data.removal.dueCsn !== null ? ` or at CSN ${formatCount(data.removal.dueCsn)}` : ''}.
         </p>
       ) : null}
+      {data.trendWarnings.length > 0 ? (
+        <Notice tone="error" title="Limit reached before the next inspection">
+          {data.trendWarnings
+            .map(
+              (warning) =>
+                `A damage series is projected to reach its limit ${warning.cyclesRemaining > 0 ? `in about ${formatCount(warning.cyclesRemaining)} cycles` : 'already'}, before the CSN of the next inspection due.`,
+            )
+            .join(' ')}{' '}
+          The projection is a straight line through the measurements with their uncertainty, not a
+          prediction: the engineer decides.
+        </Notice>
+      ) : null}
       {data.requirements.length > 0 ? (
         <div>
           <h3 className="font-medium">Open requirements</h3>
