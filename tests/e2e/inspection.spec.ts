@@ -132,6 +132,8 @@ test('the demo inspection shows its invented stills to staff and not to a custom
   await expect(page.getByTestId('image-strip').getByRole('button')).toHaveCount(6);
   await expect(page.getByLabel('Images to upload')).toHaveCount(0);
   await page.getByRole('button', { name: 'Sign out' }).click();
+  // Signed out before the next sign-in: the sign-in page of a session still ending would move on.
+  await expect(page.getByRole('heading', { name: 'Sign in' })).toBeVisible();
   await signIn(page, 'customer@demo.test');
   await page.goto('/inspections/inspection-d0103-demo');
   await expect(

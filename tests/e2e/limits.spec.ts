@@ -117,6 +117,8 @@ test('an inspector reads the library but changes nothing, and a customer does no
   await expect(page.getByRole('link', { name: 'Export CSV' })).toBeVisible();
 
   await page.getByRole('button', { name: 'Sign out' }).click();
+  // Signed out before the next sign-in: the sign-in page of a session still ending would move on.
+  await expect(page.getByRole('heading', { name: 'Sign in' })).toBeVisible();
   await signIn(page, 'customer@demo.test');
   await page.goto('/limits');
   await expect(page.getByText('Not available to your role')).toBeVisible();

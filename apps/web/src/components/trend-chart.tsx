@@ -70,7 +70,11 @@ export default function TrendChart({
   const summary = fit
     ? fit.slopePerCycle <= 0
       ? 'Not growing: the fitted line does not rise.'
-      : `Projected to reach the ${repeat !== null ? 'repeat' : 'serviceable'} limit of ${fixed(outer!)} ${unit} at about CSN ${Math.round(fit.projectedCsnAtLimit!).toLocaleString('en-GB')}: ${Math.round(fit.cyclesRemaining!).toLocaleString('en-GB')} cycles after the last inspection${fit.r2 !== null ? `; r² ${fixed(fit.r2)}` : ''}.`
+      : `Projected to reach the ${repeat !== null ? 'repeat' : 'serviceable'} limit of ${fixed(outer!)} ${unit} at about CSN ${Math.round(fit.projectedCsnAtLimit!).toLocaleString('en-GB')}: ${
+          fit.cyclesRemaining! > 0
+            ? `${Math.round(fit.cyclesRemaining!).toLocaleString('en-GB')} cycles after the last inspection`
+            : `already passed, ${Math.round(-fit.cyclesRemaining!).toLocaleString('en-GB')} cycles before the last inspection`
+        }${fit.r2 !== null ? `; r² ${fixed(fit.r2)}` : ''}.`
     : 'No limit to project to.';
 
   return (
