@@ -1,4 +1,4 @@
-import type { FindingEvaluation } from '@emberline/contracts/limits';
+import type { BeyondAction, FindingEvaluation } from '@emberline/contracts/limits';
 import { permissionGrants } from '@emberline/contracts/permissions';
 import type { AppContext } from '../../context';
 import type { DbOrTx } from '../../db/client';
@@ -8,7 +8,7 @@ import { listFindings } from '../findings/findings.repository';
 import { inspectionModelRows } from '../inspections/inspection-access';
 import type { InspectionRow } from '../inspections/inspections.repository';
 import { listActiveHomeUsers } from '../users/users.repository';
-import { beyondLimitsAlertEmail } from './review-emails';
+import { beyondLimitsAlertEmail, removalOrderedEmail } from './review-emails';
 
 /**
  * Alerts the home organisation's reviewers, inside the submission's transaction, when a submitted
@@ -40,6 +40,37 @@ export function alertBeyondLimits(
         action: (finding.evaluation as unknown as FindingEvaluation | null)?.beyondAction ?? null,
       })),
       link: `${publicOrigin(ctx.config.publicOrigins, ctx.config.port)}/review/${inspection.id}`,
+    }),
+    record: {
+      type: 'inspection',
+      id: inspection.id,
+      label: `Inspection of ${inspection.engineSerialNumber} on ${inspection.date}`,
+    },
+  });
+}
+
+/**
+ * Tells the planners, inside the outcome's transaction, that a signed outcome calls for removals.
+ */
+export function alertRemovalOrdered(
+  ctx: Pick<AppContext, 'config' | 'now'>,
+  tx: DbOrTx,
+  inspection: InspectionRow,
+  signedBy: string,
+  removals: BeyondAction[],
+): void {
+  if (removals.length === 0) return;
+  const planners = listActiveHomeUsers(tx, permissionGrants['plan:inspection']);
+  if (planners.length === 0) return;
+  queueMail(ctx, tx, {
+    kind: 'removal',
+    ...removalOrderedEmail({
+      to: planners.map((user) => user.email),
+      engineSerialNumber: inspection.engineSerialNumber,
+      inspectionDate: inspection.date,
+      signedBy,
+      removals,
+      link: `${publicOrigin(ctx.config.publicOrigins, ctx.config.port)}/planning?state=overdue`,
     }),
     record: {
       type: 'inspection',

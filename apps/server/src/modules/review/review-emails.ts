@@ -32,3 +32,32 @@ export function beyondLimitsAlertEmail(input: {
     html: mailLayout(lines, { href: input.link, label: 'Open the review' }, cautions.dispositions),
   };
 }
+
+/**
+ * Sent to planners the moment an outcome calling for a removal is signed: the engine has to come
+ * off wing, some of it before its next flight.
+ */
+export function removalOrderedEmail(input: {
+  to: string[];
+  engineSerialNumber: string;
+  inspectionDate: string;
+  signedBy: string;
+  removals: BeyondAction[];
+  link: string;
+}): MailContent {
+  const lines = [
+    `${input.signedBy} signed the outcome of the inspection of engine ${input.engineSerialNumber} of ${input.inspectionDate}. It calls for the engine's removal:`,
+    ...input.removals.map((action) => `${actionWords(action).replace(/^r/, 'R')}.`),
+    'Plan the removal with the operator; the planning board shows it.',
+  ];
+  return {
+    to: input.to,
+    subject: `Removal ordered: engine ${input.engineSerialNumber}`,
+    text: `${lines.join('\n\n')}\n\n${input.link}\n\n${cautions.dispositions}\n`,
+    html: mailLayout(
+      lines,
+      { href: input.link, label: 'Open the planning board' },
+      cautions.dispositions,
+    ),
+  };
+}

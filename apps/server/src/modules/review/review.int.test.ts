@@ -276,6 +276,33 @@ describe('engineering review', () => {
     );
   });
 
+  it('tells the planners at once when a signed outcome calls for a removal', async () => {
+    const { inspectionId, findings } = await prepare();
+    for (const finding of findings)
+      await dispose(finding.id, { decision: decisionFor(finding) }).expect(201);
+    await request(t.app)
+      .post(`/api/v1/inspections/${inspectionId}/outcome`)
+      .set('Cookie', engineer)
+      .send({ password: DEMO_PASSWORD })
+      .expect(201);
+    const messages = await request(t.app)
+      .get('/api/v1/outbox/messages')
+      .query({ pageSize: 100 })
+      .set('Cookie', admin);
+    const removal = (
+      messages.body.items as { kind: string; subject: string; recipients: { address: string }[] }[]
+    ).filter((item) => item.kind === 'removal');
+    expect(removal).toHaveLength(1);
+    expect(removal[0]!.subject).toBe('Removal ordered: engine VT3-D0101');
+    expect(removal[0]!.recipients.map((recipient) => recipient.address).sort()).toEqual([
+      'admin@demo.test',
+      'planner@demo.test',
+    ]);
+    await t.deliver();
+    const caught = await waitForMail(t.runtime, 'planner@demo.test');
+    expect(caught.text).toMatch(/Remove within 50 cycles\./);
+  });
+
   it('refuses the finding’s own recorder, whatever their role, and a signer without authorisation', async () => {
     // An administrator may record and review, but not disposition what they recorded.
     const own = await prepare({ recorder: admin });

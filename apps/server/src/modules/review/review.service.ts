@@ -43,6 +43,7 @@ import { appendSignature } from '../records/signature-writer';
 import { findSignatures, signaturesOf } from '../records/records.repository';
 import type { SignatureRecord } from '../records/signature-chain';
 import { findUserById } from '../users/users.repository';
+import { alertRemovalOrdered } from './review-alerts';
 import {
   changedFinding,
   currentDisposition,
@@ -631,6 +632,7 @@ export function createReviewService(
           }),
         });
         setInspectionState(tx, id, 'dispositioned', { outcomeSignatureId: signature.id });
+        alertRemovalOrdered(ctx, tx, inspection, principal.user.name, summary.removals);
         appendAudit(tx, now, {
           actorUserId: principal.user.id,
           action: 'inspection.outcome-signed',
