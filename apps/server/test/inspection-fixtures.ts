@@ -77,3 +77,15 @@ export const tenMillimetreReference = {
   p2: [500, 100],
   lengthMm: 10,
 } as const;
+
+/** Acknowledges whatever the inspection was flagged for, then submits it for review. */
+export async function submitForReview(app: Express, cookie: string, id: string): Promise<void> {
+  const detail = await request(app).get(`/api/v1/inspections/${id}`).set('Cookie', cookie);
+  for (const flag of detail.body.flags as { code: string }[])
+    await request(app)
+      .post(`/api/v1/inspections/${id}/flags/${flag.code}/acknowledgement`)
+      .set('Cookie', cookie)
+      .send({ note: 'Checked against the engine log book' })
+      .expect(200);
+  await request(app).post(`/api/v1/inspections/${id}/submission`).set('Cookie', cookie).expect(200);
+}

@@ -5,6 +5,7 @@ import { demoAccounts, startTestApp, type TestApp } from '../../../test/test-app
 import {
   openInspection,
   still,
+  submitForReview,
   tenMillimetreReference,
   uploadImages,
 } from '../../../test/inspection-fixtures';
@@ -53,20 +54,7 @@ const open = (engineId: string, date: string, csn: number) =>
   openInspection(t.app, inspector, { engineId, date, csn });
 const upload = (id: string, files: Buffer[]) => uploadImages(t.app, inspector, id, files);
 
-/** Acknowledges whatever the inspection was flagged for, then submits it. */
-async function submit(id: string): Promise<void> {
-  const detail = await request(t.app).get(`/api/v1/inspections/${id}`).set('Cookie', inspector);
-  for (const flag of detail.body.flags as { code: string }[])
-    await request(t.app)
-      .post(`/api/v1/inspections/${id}/flags/${flag.code}/acknowledgement`)
-      .set('Cookie', inspector)
-      .send({ note: 'Checked against the engine log book' })
-      .expect(200);
-  await request(t.app)
-    .post(`/api/v1/inspections/${id}/submission`)
-    .set('Cookie', inspector)
-    .expect(200);
-}
+const submit = (id: string) => submitForReview(t.app, inspector, id);
 
 beforeAll(async () => {
   t = await startTestApp({ env: { DEMO_IMAGES: '0' } });

@@ -13,6 +13,7 @@ import {
   openInspection,
   still,
   tenMillimetreReference,
+  submitForReview,
   uploadImages,
 } from '../../../test/inspection-fixtures';
 
@@ -71,17 +72,7 @@ async function recordRepeatInspection(): Promise<string> {
       .set('Cookie', inspector)
       .send({ status: 'full', viewedPositions: [], noDamageFound: false, reason: '' })
       .expect(200);
-  const detail = await request(t.app).get(`/api/v1/inspections/${id}`).set('Cookie', inspector);
-  for (const flag of detail.body.flags as { code: string }[])
-    await request(t.app)
-      .post(`/api/v1/inspections/${id}/flags/${flag.code}/acknowledgement`)
-      .set('Cookie', inspector)
-      .send({ note: 'Checked against the engine log book' })
-      .expect(200);
-  await request(t.app)
-    .post(`/api/v1/inspections/${id}/submission`)
-    .set('Cookie', inspector)
-    .expect(200);
+  await submitForReview(t.app, inspector, id);
   await request(t.app)
     .post(`/api/v1/findings/${finding.body.id}/dispositions`)
     .set('Cookie', engineer)

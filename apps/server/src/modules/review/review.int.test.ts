@@ -15,6 +15,7 @@ import {
   openInspection,
   still,
   tenMillimetreReference,
+  submitForReview,
   uploadImages,
 } from '../../../test/inspection-fixtures';
 import { DEMO_DRAFT_LIMIT_SET_ID } from '../../demo/demo-limits';
@@ -570,19 +571,7 @@ describe('engineering review', () => {
         .set('Cookie', inspector)
         .send({ status: 'full', viewedPositions: [], noDamageFound: false, reason: '' })
         .expect(200);
-    const detail = await request(t.app)
-      .get(`/api/v1/inspections/${later}`)
-      .set('Cookie', inspector);
-    for (const flag of detail.body.flags as { code: string }[])
-      await request(t.app)
-        .post(`/api/v1/inspections/${later}/flags/${flag.code}/acknowledgement`)
-        .set('Cookie', inspector)
-        .send({ note: 'Checked against the engine log book' })
-        .expect(200);
-    await request(t.app)
-      .post(`/api/v1/inspections/${later}/submission`)
-      .set('Cookie', inspector)
-      .expect(200);
+    await submitForReview(t.app, inspector, later);
 
     const review = await reviewOf(later);
     expect(review.recurrences).toEqual([

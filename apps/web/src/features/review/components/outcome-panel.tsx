@@ -1,6 +1,10 @@
 import { useState } from 'react';
 import type { InspectionDetail } from '@emberline/contracts/inspections';
-import { signatureMeanings, type InspectionReview } from '@emberline/contracts/review';
+import {
+  decisionKindLabels,
+  signatureMeanings,
+  type InspectionReview,
+} from '@emberline/contracts/review';
 import { decisionOutcome } from '@emberline/domain/decisions';
 import { actionWords, intervalWords } from '@emberline/domain/decision-words';
 import { useNavigate } from 'react-router-dom';
@@ -11,19 +15,13 @@ import { Notice } from '../../../components/ui/notice';
 import { formatDateTime } from '../../../lib/format';
 import { useRelease, useSendBack, useSignOutcome } from '../api/review';
 
-const outcomeKindWords = {
-  serviceable: 'Serviceable',
-  'repeat-inspection': 'Serviceable with a repeat inspection',
-  remove: 'Remove from service',
-} as const;
-
 /** The engine-level decision of the current dispositions, in words. */
 function OutcomeWords({ review }: { review: InspectionReview }) {
   const current = review.items.filter((item) => item.current).map((item) => item.decision);
   const outcome = decisionOutcome(current);
   return (
     <div className="flex flex-col gap-1">
-      <p className="font-semibold">{outcomeKindWords[outcome.kind]}</p>
+      <p className="font-semibold">{decisionKindLabels[outcome.kind]}</p>
       {outcome.repeatInterval ? (
         <p>
           Repeat inspection within {intervalWords(outcome.repeatInterval)}, whichever comes first.
