@@ -9,16 +9,28 @@ import { benchInitialJavaScript } from './initial-javascript';
 import { benchPlanning } from './planning';
 import { benchSessionCheck } from './session-check';
 
-const results = [
-  await benchInitialJavaScript(),
-  ...(await benchEvaluation()),
-  await benchSessionCheck(),
-  await benchEngineList(),
-  await benchImpact(),
-  await benchPlanning(),
-  ...(await benchIngest()),
-  ...(await benchAnnotation()),
+const benches: [string, () => Promise<Result | Result[]>][] = [
+  ['initial-javascript', benchInitialJavaScript],
+  ['evaluation', benchEvaluation],
+  ['session-check', benchSessionCheck],
+  ['engine-list', benchEngineList],
+  ['impact', benchImpact],
+  ['planning', benchPlanning],
+  ['ingest', benchIngest],
+  ['annotation', benchAnnotation],
 ];
+interface Result {
+  name: string;
+  figure: string;
+  ceiling: string;
+  ok: boolean;
+}
+
+// BENCH_ONLY=planning,engine-list runs only those.
+const only = process.env.BENCH_ONLY?.split(',');
+const results: Result[] = [];
+for (const [name, bench] of benches)
+  if (!only || only.includes(name)) results.push(...[await bench()].flat());
 
 console.log(`\n${'benchmark'.padEnd(60)}${'figure'.padEnd(16)}${'ceiling'.padEnd(30)}within`);
 for (const result of results) {

@@ -175,8 +175,28 @@ export type ParsedEngineInput = z.output<typeof engineInputSchema>;
 
 export const engineUpdateSchema = engineInputSchema
   .omit({ modelId: true, tsn: true, csn: true, tsnCsnAsOf: true })
+  .extend({
+    // Without the create form's default: a change that does not name it leaves it as it is.
+    preFleetInspection: baselineSchema.nullable(),
+    /**
+     * The shop's release (date, CSN, TSN), entered with the status change that returns the engine
+     * to service: it closes every open requirement and is the new baseline (DESIGN §5.6).
+     */
+    shopRelease: baselineSchema,
+  })
   .partial()
   .refine((value) => Object.keys(value).length > 0, { message: 'Nothing to change' });
+
+/** The fields of an engine record as people name them. */
+export const engineFieldWords: Record<keyof z.output<typeof engineUpdateSchema>, string> = {
+  serialNumber: 'serial number',
+  organisationId: 'owner',
+  installedPosition: 'installed position',
+  registration: 'registration',
+  status: 'status',
+  preFleetInspection: 'last inspection before the fleet',
+  shopRelease: 'shop release',
+};
 export type EngineUpdate = z.input<typeof engineUpdateSchema>;
 export type ParsedEngineUpdate = z.output<typeof engineUpdateSchema>;
 
@@ -203,6 +223,8 @@ export const engineSchema = z.object({
   tsnCsnAsOf: z.string(),
   status: engineStatusSchema,
   preFleetInspection: baselineSchema.nullable(),
+  /** The release of the last shop visit, when the engine has come back from one. */
+  shopRelease: baselineSchema.nullable(),
   createdAt: z.string(),
   /**
    * A submitted inspection waiting for an engineer's disposition, and whether it holds a finding

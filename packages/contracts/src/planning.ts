@@ -55,6 +55,18 @@ export const dueSchema = z.object({
 });
 export type Due = z.infer<typeof dueSchema>;
 
+/** How an engine's next inspection due moved, from what to what and why (DESIGN §5.6). */
+export const dueMoveSchema = z.object({
+  from: dueSchema.nullable(),
+  to: dueSchema.nullable(),
+  /** What moved it, in words: the signature, the utilization record, the change of record. */
+  reason: z.string(),
+  at: z.string(),
+  /** The due date came earlier than a booking's planned date (planners were e-mailed). */
+  bookingOverrun: z.boolean(),
+});
+export type DueMove = z.infer<typeof dueMoveSchema>;
+
 export const engineDueSchema = z.object({
   state: dueStateSchema,
   /** Why the state is what it is, in words. */
@@ -85,6 +97,8 @@ export const engineDueSchema = z.object({
   trendWarnings: z.array(
     z.object({ seriesId: z.string(), findingId: z.string(), cyclesRemaining: z.number() }),
   ),
+  /** The last time the next inspection due moved. */
+  lastMove: dueMoveSchema.nullable(),
   booking: z
     .object({
       plannedDate: isoDateSchema,

@@ -7,7 +7,7 @@ import type {
   Requirement,
 } from '@emberline/contracts/planning';
 import type { Decision } from '@emberline/contracts/review';
-import { addDays, dayWords, daysBetween } from './dates';
+import { addDays, countWords, dayWords, daysBetween } from './dates';
 import { forecast } from './forecast';
 import { dailyUtilization, type UtilizationIncrement } from './utilization';
 
@@ -52,7 +52,7 @@ export interface DueInput {
   staleAfterDays?: number;
 }
 
-type Candidate = Due & {
+export type Candidate = Due & {
   kind: 'standard' | 'repeat';
   row: string | null;
   position: number | null;
@@ -103,19 +103,51 @@ export function openRequirements(inspections: readonly DueInspection[]): Require
 
 const round = (value: number) => Math.round(value * 10) / 10;
 
+/** A due date of some kind: by day, by CSN, by TSN (each may be absent). */
+interface DueMark {
+  dueDate: string | null;
+  dueCsn: number | null;
+  dueTsn: number | null;
+}
+
+export type Removal = NonNullable<EngineDue['removal']>;
+
 /**
- * The due status of one engine (DESIGN §5.6), computed when read: the open requirements, the next
- * inspection due (standard interval per row from the latest inspection that viewed it fully, else
- * the baseline; each open repeat requirement from its own inspection), the removal due, CSN and TSN
- * now projected from the 90-day rates, and the state.
+ * What an engine's due status rests on, whatever the day: the open requirements, every dated
+ * candidate (the governing one first), the removals, the rows with nothing to run from and the
+ * 90-day rates. It changes only when a signature, a utilization record, the engine or its model
+ * does, so it can be kept and the state read from it on any day (`dueStateOn`).
  */
-export function dueStatus(input: DueInput): Omit<EngineDue, 'trendWarnings' | 'booking'> {
-  const { today, engine } = input;
+export interface DueBasis {
+  requirements: Requirement[];
+  governing: Candidate | null;
+  /**
+   * The distinct due marks of every candidate (`[dueDate, dueCsn, dueTsn]`): each can make the
+   * engine overdue or due soon. Kept short, as a fleet's bases are read at once.
+   */
+  marks: [string | null, number | null, number | null][];
+  /** The remove requirements, the most pressing first. */
+  removals: Removal[];
+  unknownRows: string[];
+  rates: { cyclesPerDay: number | null; hoursPerDay: number | null; windowEnd: string | null };
+}
+
+export type DueBasisInput = Omit<
+  DueInput,
+  'today' | 'soon' | 'staleAfterDays' | 'awaitingBeyondLimits' | 'engine'
+> & {
+  engine: Pick<DueInput['engine'], 'baseline'>;
+};
+
+/**
+ * The day-independent part of the due status (DESIGN §5.6): the next inspection due (standard
+ * interval per row from the latest inspection that viewed it fully, else the baseline; each open
+ * repeat requirement from its own inspection) and the removals, with the 90-day rates.
+ */
+export function dueBasis(input: DueBasisInput): DueBasis {
+  const { engine } = input;
   const rates = dailyUtilization(input.utilization);
   const utilization = { cyclesPerDay: rates.cyclesPerDay, hoursPerDay: rates.hoursPerDay };
-  const since = Math.max(0, daysBetween(engine.tsnCsnAsOf, today));
-  const csnNow = engine.csn + (rates.cyclesPerDay ?? 0) * since;
-  const tsnNow = engine.tsn + (rates.hoursPerDay ?? 0) * since;
 
   const inspections = [...input.inspections]
     .filter(
@@ -167,9 +199,8 @@ export function dueStatus(input: DueInput): Omit<EngineDue, 'trendWarnings' | 'b
         a.dueDate!.localeCompare(b.dueDate!) ||
         Number(a.kind === 'standard') - Number(b.kind === 'standard'),
     );
-  const governing = dated[0] ?? null;
 
-  const removals = requirements.flatMap((requirement) => {
+  const removals = requirements.flatMap((requirement): Removal[] => {
     if (requirement.kind !== 'remove' || !requirement.action) return [];
     const from = inspections.find((inspection) => inspection.id === requirement.inspectionId)!;
     const action = requirement.action;
@@ -197,19 +228,68 @@ export function dueStatus(input: DueInput): Omit<EngineDue, 'trendWarnings' | 'b
       actionOrder[a.kind] - actionOrder[b.kind] ||
       (a.dueDate ?? '9999').localeCompare(b.dueDate ?? '9999'),
   );
-  const removal = removals[0] ?? null;
 
-  const passed = (due: { dueDate: string | null; dueCsn: number | null; dueTsn: number | null }) =>
+  return {
+    requirements,
+    governing: dated[0] ?? null,
+    marks: [
+      ...new Map(
+        candidates
+          .filter((item) => item.dueDate !== null || item.dueCsn !== null || item.dueTsn !== null)
+          .map((item) => [
+            `${item.dueDate}|${item.dueCsn}|${item.dueTsn}`,
+            [item.dueDate, item.dueCsn, item.dueTsn] as [
+              string | null,
+              number | null,
+              number | null,
+            ],
+          ]),
+      ).values(),
+    ],
+    removals,
+    unknownRows,
+    rates: {
+      cyclesPerDay: rates.cyclesPerDay,
+      hoursPerDay: rates.hoursPerDay,
+      windowEnd: rates.windowEnd,
+    },
+  };
+}
+
+/** What the state of a basis is read with: the day, the engine's figures now and the margins. */
+export type DueDayInput = Pick<
+  DueInput,
+  'today' | 'soon' | 'staleAfterDays' | 'awaitingBeyondLimits'
+> & {
+  engine: Omit<DueInput['engine'], 'baseline'>;
+};
+
+/**
+ * The due status of an engine on a day (DESIGN §5.6): CSN and TSN now projected from the 90-day
+ * rates, and the state (in shop or removed, awaiting disposition, overdue, unknown, due soon, ok)
+ * with the reason in words.
+ */
+export function dueStateOn(
+  basis: DueBasis,
+  input: DueDayInput,
+): Omit<EngineDue, 'trendWarnings' | 'booking' | 'lastMove'> {
+  const { today, engine } = input;
+  const { rates, governing } = basis;
+  const since = Math.max(0, daysBetween(engine.tsnCsnAsOf, today));
+  const csnNow = engine.csn + (rates.cyclesPerDay ?? 0) * since;
+  const tsnNow = engine.tsn + (rates.hoursPerDay ?? 0) * since;
+
+  const passed = (due: DueMark) =>
     (due.dueDate !== null && due.dueDate < today) ||
     (due.dueCsn !== null && csnNow >= due.dueCsn) ||
     (due.dueTsn !== null && tsnNow >= due.dueTsn);
-  const near = (due: { dueDate: string | null; dueCsn: number | null; dueTsn: number | null }) =>
+  const near = (due: DueMark) =>
     (due.dueDate !== null && due.dueDate <= addDays(today, input.soon.days)) ||
     (due.dueCsn !== null && due.dueCsn - csnNow <= input.soon.cycles) ||
     (due.dueTsn !== null && due.dueTsn - tsnNow <= input.soon.hours);
-  const dues = [
-    ...candidates,
-    ...removals.filter((item) => item.dueDate !== null || item.dueCsn !== null),
+  const dues: DueMark[] = [
+    ...basis.marks.map(([dueDate, dueCsn, dueTsn]) => ({ dueDate, dueCsn, dueTsn })),
+    ...basis.removals.filter((item) => item.dueDate !== null || item.dueCsn !== null),
   ];
   const staleDays = input.staleAfterDays ?? 30;
   const stale = rates.windowEnd === null || daysBetween(rates.windowEnd, today) > staleDays;
@@ -225,18 +305,17 @@ export function dueStatus(input: DueInput): Omit<EngineDue, 'trendWarnings' | 'b
     reason = 'A submitted inspection holds a finding beyond limits, not yet dispositioned.';
   } else if (overdue) {
     state = 'overdue';
-    const count = (value: number) => Math.round(value).toLocaleString('en-GB');
     reason = `Due ${[
       overdue.dueDate ? dayWords(overdue.dueDate) : null,
-      overdue.dueCsn !== null ? `at CSN ${count(overdue.dueCsn)}` : null,
-      overdue.dueTsn !== null ? `at TSN ${count(overdue.dueTsn)} h` : null,
+      overdue.dueCsn !== null ? `at CSN ${countWords(overdue.dueCsn)}` : null,
+      overdue.dueTsn !== null ? `at TSN ${countWords(overdue.dueTsn)} h` : null,
     ]
       .filter(Boolean)
-      .join(' or ')}; CSN now about ${count(csnNow)}.`;
-  } else if (unknownRows.length || !governing || stale) {
+      .join(' or ')}; CSN now about ${countWords(csnNow)}.`;
+  } else if (basis.unknownRows.length || !governing || stale) {
     state = 'unknown';
-    reason = unknownRows.length
-      ? `No inspection or earlier record of ${unknownRows.join(', ')} to run the standard interval from.`
+    reason = basis.unknownRows.length
+      ? `No inspection or earlier record of ${basis.unknownRows.join(', ')} to run the standard interval from.`
       : stale
         ? `Utilization not recorded for more than ${staleDays} days: CSN and TSN now cannot be told.`
         : 'No due date can be computed: no interval or no utilization.';
@@ -264,11 +343,19 @@ export function dueStatus(input: DueInput): Omit<EngineDue, 'trendWarnings' | 'b
       dueDate: governing.dueDate,
       governing: governing.governing,
     },
-    removal,
-    requirements,
+    removal: basis.removals[0] ?? null,
+    requirements: basis.requirements,
     csnNow: rates.cyclesPerDay === null ? engine.csn : round(csnNow),
     tsnNow: rates.hoursPerDay === null ? engine.tsn : round(tsnNow),
   };
+}
+
+/** The due status of one engine on a day (DESIGN §5.6): its basis read on `input.today`. */
+export function dueStatus(
+  input: DueInput,
+): Omit<EngineDue, 'trendWarnings' | 'booking' | 'lastMove'> {
+  const { baseline, ...engine } = input.engine;
+  return dueStateOn(dueBasis({ ...input, engine: { baseline } }), { ...input, engine });
 }
 
 function dueOf(result: ReturnType<typeof forecast>): Due {
@@ -278,4 +365,15 @@ function dueOf(result: ReturnType<typeof forecast>): Due {
     dueDate: result.dueDate,
     governing: result.governing,
   };
+}
+
+/** A due date as people read it: the day, with the CSN and TSN it falls due at. */
+export function dueWords(due: Due | null): string {
+  if (!due) return 'no due date';
+  const marks = [
+    due.dueCsn !== null ? `CSN ${countWords(due.dueCsn)}` : null,
+    due.dueTsn !== null ? `TSN ${countWords(due.dueTsn)} h` : null,
+  ].filter(Boolean);
+  const day = due.dueDate ? dayWords(due.dueDate) : 'no date';
+  return marks.length ? `${day} (${marks.join(', ')})` : day;
 }

@@ -9,6 +9,8 @@ import {
   text,
   uniqueIndex,
 } from 'drizzle-orm/sqlite-core';
+import type { DueMove } from '@emberline/contracts/planning';
+import type { DueBasis } from '@emberline/domain/due-status';
 
 const createdAt = () =>
   integer({ mode: 'timestamp_ms' })
@@ -294,7 +296,13 @@ export const inspections = sqliteTable(
       .references(() => users.id),
     createdAt: createdAt(),
   },
-  (table) => [index('inspections_engine_date_idx').on(table.engineId, table.date)],
+  (table) => [
+    index('inspections_engine_date_idx').on(table.engineId, table.date),
+    // The fleet asks of every engine whether a submitted inspection waits for disposition.
+    index('inspections_submitted_idx')
+      .on(table.engineId, table.date)
+      .where(sql`${table.state} = 'submitted'`),
+  ],
 );
 
 /** An image of an inspection: the original on disk by SHA-256, renditions in the row. */
@@ -643,4 +651,28 @@ export const bookings = sqliteTable('bookings', {
     .notNull()
     .references(() => users.id),
   bookedAt: integer({ mode: 'timestamp_ms' }).notNull(),
+});
+
+/**
+ * What each engine's due status rests on (DESIGN §5.6): the open requirements, candidates and
+ * removals, which change only with a signature, a utilization record, the engine or its model.
+ * Rewritten in the transaction of each such change (and checked whole by the daily sweep), so that
+ * the planning board reads a fleet without replaying every inspection; the state is still read
+ * from it on the day. The last move of the next inspection due is kept with its reason.
+ */
+export const engineDue = sqliteTable('engine_due', {
+  engineId: text()
+    .primaryKey()
+    .references(() => engines.id, { onDelete: 'cascade' }),
+  basis: text({ mode: 'json' }).$type<DueBasis>().notNull(),
+  lastMove: text({ mode: 'json' }).$type<DueMove>(),
+  computedAt: integer({ mode: 'timestamp_ms' }).notNull(),
+});
+
+/** When each scheduled job last ran, by the day it ran for: a restart neither repeats nor skips it. */
+export const jobRuns = sqliteTable('job_runs', {
+  job: text().primaryKey(),
+  /** The last day (installation time zone, `YYYY-MM-DD`) the job ran for. */
+  lastDay: text().notNull(),
+  ranAt: integer({ mode: 'timestamp_ms' }).notNull(),
 });

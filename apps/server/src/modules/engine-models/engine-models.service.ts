@@ -10,6 +10,7 @@ import { inTransaction } from '../../db/client';
 import { AppError } from '../../http/app-error';
 import type { Principal } from '../../http/principal';
 import { newId } from '../../lib/ids';
+import { refreshDue } from '../planning/due-basis';
 import { appendAudit } from '../audit/audit.repository';
 import {
   countEnginesOfModel,
@@ -130,6 +131,12 @@ export function createEngineModelsService(ctx: AppContext) {
           standardInterval: input.standardInterval,
         });
         replaceModelRows(tx, id, input.rows);
+        refreshDue(
+          ctx,
+          tx,
+          { modelId: id },
+          `${principal.user.name} changed the engine model ${input.name} (its rows or standard interval).`,
+        );
         const { rows, name, notes, standardInterval } = before;
         appendAudit(
           tx,

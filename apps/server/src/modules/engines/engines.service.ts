@@ -1,3 +1,5 @@
+import { engineFieldWords } from '@emberline/contracts/fleet';
+import { dayWords } from '@emberline/domain/dates';
 import type {
   Engine,
   EngineDetail,
@@ -13,6 +15,7 @@ import { AppError } from '../../http/app-error';
 import { recordScope, seesOrganisationRecord } from '../../http/record-access';
 import type { Principal } from '../../http/principal';
 import { newId } from '../../lib/ids';
+import { refreshDue } from '../planning/due-basis';
 import { appendAudit } from '../audit/audit.repository';
 import { findEngineModel } from '../engine-models/engine-models.repository';
 import { findOrganisation } from '../organisations/organisations.repository';
@@ -28,10 +31,11 @@ import {
 
 /** An engine as the caller sees it: customers see released inspections only, so nothing waits. */
 export function toEngine(row: EngineListRow, principal: Principal): Engine {
-  const { awaitingInspectionId, awaitingBeyondLimits, shopRelease: _shopRelease, ...engine } = row;
+  const { awaitingInspectionId, awaitingBeyondLimits, ...engine } = row;
   return {
     ...engine,
     preFleetInspection: row.preFleetInspection ?? null,
+    shopRelease: row.shopRelease ?? null,
     nextDue: null,
     createdAt: row.createdAt.toISOString(),
     awaitingDisposition:
@@ -39,6 +43,34 @@ export function toEngine(row: EngineListRow, principal: Principal): Engine {
         ? { inspectionId: awaitingInspectionId, beyondLimits: Boolean(awaitingBeyondLimits) }
         : null,
   };
+}
+
+/**
+ * An engine returns to service with its shop's release (date, CSN, TSN), and only then: the
+ * release closes every open requirement and is the new baseline (DESIGN §5.6).
+ */
+function assertShopRelease(before: EngineListRow, input: ParsedEngineUpdate, today: string): void {
+  const refuse = (message: string) =>
+    AppError.unprocessable(message, { fields: { shopRelease: [message] }, form: [] });
+  const returning =
+    input.status === 'installed' && (before.status === 'in-shop' || before.status === 'removed');
+  if (!input.shopRelease) {
+    if (returning)
+      throw refuse(
+        "Give the shop's release (date, CSN and TSN) to return the engine to service: it is the new baseline of its inspections.",
+      );
+    return;
+  }
+  if (!returning)
+    throw refuse(
+      'A shop release is entered with the change of status that returns an engine from the shop to service.',
+    );
+  const release = input.shopRelease;
+  if (release.date > today) throw refuse('The shop release is a date up to today.');
+  if (release.csn < before.csn && release.date >= before.tsnCsnAsOf)
+    throw refuse(
+      `The release CSN (${release.csn}) is below the engine's CSN of ${before.csn} on ${dayWords(before.tsnCsnAsOf)}: cycles never go backwards.`,
+    );
 }
 
 export function createEnginesService(ctx: AppContext) {
@@ -139,6 +171,7 @@ export function createEnginesService(ctx: AppContext) {
     ): EngineDetail {
       const before = visibleEngine(principal, id);
       if (input.organisationId) assertOwner(input.organisationId);
+      assertShopRelease(before, input, ctx.now().toISOString().slice(0, 10));
       const now = ctx.now();
       inTransaction(db, (tx) => {
         if (
@@ -152,6 +185,14 @@ export function createEnginesService(ctx: AppContext) {
           );
         }
         updateEngine(tx, id, input);
+        refreshDue(
+          ctx,
+          tx,
+          { engineId: id },
+          `${principal.user.name} changed the engine record (${Object.keys(input)
+            .map((key) => engineFieldWords[key as keyof ParsedEngineUpdate] ?? key)
+            .join(', ')}).`,
+        );
         const picked = Object.fromEntries(
           Object.keys(input).map((key) => [key, before[key as keyof EngineListRow]]),
         );

@@ -9,6 +9,8 @@ import {
   TestClock,
   type TestApp,
 } from '../../../test/test-app';
+import { computeDueBases } from './due-basis';
+import { dueBasesOf } from './planning.repository';
 import {
   openInspection,
   still,
@@ -210,6 +212,98 @@ describe('due status of an engine (DESIGN §5.6)', () => {
     expect((inShop.body.items as PlanningItem[]).map((item) => item.serialNumber)).toEqual([
       'VT3-D0106',
     ]);
+  });
+
+  it('shows how a signature moved the due date, and flags and e-mails a booking left after it', async () => {
+    const planner = await t.signIn(demoAccounts.planner);
+    const before = (await dueOf('engine-d0101', planner)).body as EngineDue;
+    expect(before.lastMove).toBeNull();
+    const plannedDate = addDays(before.nextInspection!.dueDate!, -1);
+    await request(t.app)
+      .put('/api/v1/engines/engine-d0101/booking')
+      .set('Cookie', planner)
+      .send({ plannedDate, note: 'Hangar 2 (invented)' })
+      .expect(200);
+
+    await recordRepeatInspection();
+    const after = (await dueOf('engine-d0101', planner)).body as EngineDue;
+    // The repeat inspection within 400 cycles of CSN 14,125 now governs, long before the booking.
+    expect(after.nextInspection!.dueCsn).toBe(14_525);
+    expect(after.nextInspection!.dueDate! < plannedDate).toBe(true);
+    expect(after.lastMove).toMatchObject({
+      from: before.nextInspection,
+      to: after.nextInspection,
+      reason: 'Priya Castellane signed the outcome of the inspection of 20 May 2026.',
+      bookingOverrun: true,
+    });
+    expect(after.booking).toMatchObject({ plannedDate, afterDueDate: true });
+
+    const admin = await t.signIn(demoAccounts.admin);
+    const messages = await request(t.app)
+      .get('/api/v1/outbox/messages')
+      .query({ pageSize: 100 })
+      .set('Cookie', admin);
+    const overrun = (
+      messages.body.items as { id: string; subject: string; recipients: { address: string }[] }[]
+    ).filter((item) => item.subject === 'Booking now after the due date: engine VT3-D0101');
+    expect(overrun).toHaveLength(1);
+    expect(overrun[0]!.recipients.map((recipient) => recipient.address).sort()).toEqual([
+      'admin@demo.test',
+      'planner@demo.test',
+    ]);
+    const detail = await request(t.app)
+      .get(`/api/v1/outbox/messages/${overrun[0]!.id}`)
+      .set('Cookie', admin);
+    expect(detail.body.text).toContain('The next inspection of engine VT3-D0101 moved from ');
+    expect(detail.body.text).toContain('Why: Priya Castellane signed the outcome');
+  });
+
+  it('returns an engine from the shop only with its release, which closes what was open and is the new baseline', async () => {
+    await recordRepeatInspection();
+    const admin = await t.signIn(demoAccounts.admin);
+    const change = (body: object) =>
+      request(t.app).patch('/api/v1/engines/engine-d0101').set('Cookie', admin).send(body);
+    await change({ status: 'in-shop' }).expect(200);
+    expect(((await dueOf('engine-d0101')).body as EngineDue).state).toBe('in-shop');
+
+    const bare = await change({ status: 'installed' });
+    expect(bare.status).toBe(422);
+    expect(bare.body.error.details.fields.shopRelease[0]).toMatch(/Give the shop's release/);
+    const stray = await change({ shopRelease: { date: '2026-05-30', csn: 14_200, tsn: 22_000 } });
+    expect(stray.status).toBe(422);
+
+    const back = await change({
+      status: 'installed',
+      shopRelease: { date: '2026-05-30', csn: 14_200, tsn: 22_000 },
+    });
+    expect(back.status).toBe(200);
+    const due = (await dueOf('engine-d0101')).body as EngineDue;
+    // The repeat requirement of 20 May closed with the release; the standard 3,000 cycles run from
+    // the release's CSN 14,200 for every row (the invented demo interval).
+    expect(due.requirements).toEqual([]);
+    expect(due.governedBy).toMatchObject({ kind: 'standard', inspectionId: null });
+    expect(due.nextInspection!.dueCsn).toBe(17_200);
+    expect(due.lastMove?.reason).toMatch(
+      /^Maren Holt changed the engine record \((status, shop release|shop release, status)\)\.$/,
+    );
+  });
+
+  it('keeps every due basis equal to one computed afresh from the records', async () => {
+    await recordRepeatInspection();
+    // The board keeps the bases of engines read before any change touched them.
+    const planner = await t.signIn(demoAccounts.planner);
+    await request(t.app).get('/api/v1/planning').set('Cookie', planner).expect(200);
+    const admin = await t.signIn(demoAccounts.admin);
+    await request(t.app)
+      .patch('/api/v1/engines/engine-d0102')
+      .set('Cookie', admin)
+      .send({ preFleetInspection: { date: '2026-01-10', csn: 9000, tsn: 15_000 } })
+      .expect(200);
+    const { db } = t.runtime.ctx;
+    const fresh = computeDueBases(db, {});
+    const kept = new Map(dueBasesOf(db, {}).map((row) => [row.engineId, row.basis]));
+    expect(kept.size).toBe(10);
+    for (const [engineId, basis] of fresh) expect(kept.get(engineId), engineId).toEqual(basis);
   });
 
   // The demo loads relative to its day: the same states on the first of a month, on its last day

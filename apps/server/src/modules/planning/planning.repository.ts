@@ -2,6 +2,7 @@ import { and, asc, eq, gt, inArray, isNotNull, or, type SQL } from 'drizzle-orm'
 import type { DbOrTx } from '../../db/client';
 import {
   bookings,
+  engineDue,
   engines,
   findings,
   inspections,
@@ -177,4 +178,26 @@ export function seriesPoints(db: DbOrTx, seriesIds: readonly string[]) {
     .where(and(inArray(findings.seriesId, [...seriesIds]), eq(findings.status, 'recorded')))
     .orderBy(asc(inspections.csn))
     .all();
+}
+
+/** The kept due bases of the engines in scope. */
+export function dueBasesOf(db: DbOrTx, scope: EngineScope) {
+  return db
+    .select({
+      engineId: engineDue.engineId,
+      basis: engineDue.basis,
+      lastMove: engineDue.lastMove,
+    })
+    .from(engineDue)
+    .innerJoin(engines, eq(engines.id, engineDue.engineId))
+    .where(scopeOf(scope))
+    .all();
+}
+
+export function saveDueBasis(db: DbOrTx, row: typeof engineDue.$inferInsert): void {
+  const { engineId: _engine, ...changes } = row;
+  db.insert(engineDue)
+    .values(row)
+    .onConflictDoUpdate({ target: engineDue.engineId, set: changes })
+    .run();
 }

@@ -1,5 +1,7 @@
 import {
   dueStateLabels,
+  type DueState,
+  type DueMove,
   type EngineDue,
   type ParsedBookingInput,
   type PlanningItem,
@@ -10,14 +12,11 @@ import {
 import type { Rule } from '@emberline/contracts/limits';
 import type { EngineListResponse } from '@emberline/contracts/fleet';
 import { can } from '@emberline/contracts/permissions';
-import { decisionSchema } from '@emberline/contracts/review';
 import { dayWords, daysBetween } from '@emberline/domain/dates';
 import { trendWarning } from '@emberline/domain/trend';
 import { MM2_PER_SQUARE_INCH, MM_PER_INCH } from '@emberline/domain/units';
-import { dailyUtilization, type UtilizationIncrement } from '@emberline/domain/utilization';
 import { actionWords } from '@emberline/domain/decision-words';
-import { dueStatus, type DueInspection } from '@emberline/domain/due-status';
-import type { outcomeContent, releaseContent } from '@emberline/domain/signature-content';
+import { dueStateOn, type DueBasis } from '@emberline/domain/due-status';
 import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction, type DbOrTx } from '../../db/client';
 import { AppError } from '../../http/app-error';
@@ -25,25 +24,11 @@ import type { Principal } from '../../http/principal';
 import { recordScope } from '../../http/record-access';
 import { writeCsv } from '../../lib/csv';
 import { appendAudit } from '../audit/audit.repository';
-import { findEngineModel, listModelRows } from '../engine-models/engine-models.repository';
 import { listRules } from '../limit-sets/limit-sets.repository';
 import { findEngineRowsIn, type EngineListRow } from '../engines/engines.repository';
 import { createEnginesService } from '../engines/engines.service';
-import {
-  bookingsOf,
-  coverageOfInspections,
-  findingPlaces,
-  outcomeSignaturesOf,
-  releaseSignaturesOf,
-  seriesPoints,
-  signedInspections,
-  upsertBooking,
-  utilizationOf,
-  type EngineScope,
-} from './planning.repository';
-
-type OutcomeContent = ReturnType<typeof outcomeContent>;
-type ReleaseContent = ReturnType<typeof releaseContent>;
+import { groupBy, readDueBases } from './due-basis';
+import { bookingsOf, seriesPoints, upsertBooking, type EngineScope } from './planning.repository';
 
 /** "Today" in the installation's time zone, as `YYYY-MM-DD`. */
 export function todayIn(timeZone: string, now: Date): string {
@@ -53,77 +38,6 @@ export function todayIn(timeZone: string, now: Date): string {
     month: '2-digit',
     day: '2-digit',
   }).format(now);
-}
-
-const groupBy = <T, K>(items: readonly T[], key: (item: T) => K) => {
-  const groups = new Map<K, T[]>();
-  for (const item of items) {
-    const group = groups.get(key(item));
-    if (group) group.push(item);
-    else groups.set(key(item), [item]);
-  }
-  return groups;
-};
-
-/**
- * The inspections of some engines with the decisions their counting outcome signed: the current
- * outcome, or, while a correction after release waits, the outcome of the latest release. One
- * query a kind of row, whatever the number of engines.
- */
-function dueInspections(db: DbOrTx, scope: EngineScope): Map<string, DueInspection[]> {
-  const rows = signedInspections(db, scope);
-  const releases = new Map(
-    releaseSignaturesOf(db, scope).map((signature) => [signature.subjectId, signature]),
-  );
-  const outcomes = outcomeSignaturesOf(db, scope);
-  const outcomesById = new Map(outcomes.map((signature) => [signature.id, signature]));
-  const outcomesBySha = new Map(outcomes.map((signature) => [signature.sha256, signature]));
-  const counting = rows.flatMap((row) => {
-    const release = releases.get(row.id);
-    const outcome = row.outcomeSignatureId
-      ? outcomesById.get(row.outcomeSignatureId)
-      : outcomesBySha.get(
-          (release?.content as ReleaseContent | undefined)?.outcomeSignatureSha256 ?? '',
-        );
-    return outcome ? [{ row, outcome, content: outcome.content as OutcomeContent }] : [];
-  });
-  const places = new Map(findingPlaces(db, scope).map((place) => [place.id, place]));
-  const coverage = groupBy(coverageOfInspections(db, scope), (item) => item.inspectionId);
-  const inspections = counting.map(({ row, outcome, content }) => ({
-    engineId: row.engineId,
-    inspection: {
-      id: row.id,
-      date: row.date,
-      csn: row.csn,
-      tsn: row.tsn,
-      outcomeSignedAt: outcome.signedAt,
-      coverage: (coverage.get(row.id) ?? []).map((item) => ({
-        row: item.row,
-        status: item.status,
-        viewedPositions: item.viewedPositions,
-      })),
-      decisions: content.dispositions.flatMap((entry) => {
-        const place = places.get(entry.findingId);
-        return place
-          ? [
-              {
-                findingId: entry.findingId,
-                seriesId: place.seriesId,
-                row: place.row,
-                position: place.position,
-                decision: decisionSchema.parse(entry.decision),
-              },
-            ]
-          : [];
-      }),
-    } satisfies DueInspection,
-  }));
-  return new Map(
-    [...groupBy(inspections, (item) => item.engineId)].map(([engineId, items]) => [
-      engineId,
-      items.map((item) => item.inspection),
-    ]),
-  );
 }
 
 /**
@@ -178,92 +92,143 @@ function seriesWarnings(db: DbOrTx, seriesIds: readonly string[]) {
   };
 }
 
+const compareText = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
+
+/** The order of the planning board: what needs a planner first. */
+const dueStateRank: Record<DueState, number> = {
+  overdue: 0,
+  'awaiting-disposition': 1,
+  'due-soon': 2,
+  unknown: 3,
+  ok: 4,
+  'in-shop': 5,
+  removed: 6,
+};
+
+/** An engine's due state on today's date, with the basis it was read from. */
+interface Reading {
+  engine: EngineListRow;
+  basis: DueBasis;
+  lastMove: DueMove | null;
+  status: ReturnType<typeof dueStateOn>;
+  /** The earliest of the next inspection's and the removal's due dates. */
+  date: string | null;
+}
+
 export function createPlanningService(ctx: AppContext) {
   const { db, config } = ctx;
   const engines = createEnginesService(ctx);
   const today = () => todayIn(config.timeZone, ctx.now());
 
-  /** The due status of engines (DESIGN §5.6), computed when read, with their bookings. */
-  function dueOf(rows: readonly EngineListRow[], scope: EngineScope): Map<string, EngineDue> {
-    const inspections = dueInspections(db, scope);
-    const utilization = groupBy(utilizationOf(db, scope), (record) => record.engineId);
-    const bookings = new Map(bookingsOf(db, scope).map((booking) => [booking.engineId, booking]));
-    const models = new Map(
-      [...new Set(rows.map((row) => row.modelId))].map((modelId) => [
-        modelId,
-        { model: findEngineModel(db, modelId)!, rows: listModelRows(db, modelId) },
-      ]),
-    );
+  /** The due state of engines (DESIGN §5.6) on today's date, from their kept bases. */
+  function readingsOf(rows: readonly EngineListRow[], scope: EngineScope): Reading[] {
+    const bases = readDueBases(ctx, db, rows, scope);
     const day = today();
-    const ratesOf = new Map(
-      [...utilization].map(([engineId, records]) => [
-        engineId,
-        dailyUtilization(records as UtilizationIncrement[]).cyclesPerDay ?? 0,
-      ]),
-    );
-    const statuses = rows.map((engine) => {
-      const { model, rows: modelRows } = models.get(engine.modelId)!;
-      const baseline = engine.shopRelease
-        ? { kind: 'shop-release' as const, ...engine.shopRelease }
-        : engine.preFleetInspection
-          ? { kind: 'pre-fleet' as const, ...engine.preFleetInspection }
-          : null;
+    return rows.map((engine) => {
+      const { basis, lastMove } = bases.get(engine.id)!;
+      const status = dueStateOn(basis, {
+        today: day,
+        engine: {
+          status: engine.status,
+          csn: engine.csn,
+          tsn: engine.tsn,
+          tsnCsnAsOf: engine.tsnCsnAsOf,
+        },
+        awaitingBeyondLimits: Boolean(engine.awaitingBeyondLimits),
+        soon: config.dueSoon,
+      });
+      const inspection = status.nextInspection?.dueDate ?? null;
+      const removal = status.removal?.dueDate ?? null;
+      const date =
+        inspection && removal
+          ? inspection < removal
+            ? inspection
+            : removal
+          : inspection || removal;
+      return { engine, basis, lastMove, status, date };
+    });
+  }
+
+  /**
+   * The whole due status of the engines shown: their bookings, their last move and (unless a
+   * file is written) the trend warnings of their open series, each kind in one read.
+   */
+  function completed(
+    readings: readonly Reading[],
+    scope: EngineScope,
+    options = { warnings: true },
+  ): EngineDue[] {
+    const bookings = new Map(bookingsOf(db, scope).map((booking) => [booking.engineId, booking]));
+    const warningsOf = options.warnings
+      ? seriesWarnings(db, [
+          ...new Set(
+            readings.flatMap(({ status }) =>
+              status.requirements.map((requirement) => requirement.seriesId),
+            ),
+          ),
+        ])
+      : null;
+    const day = today();
+    return readings.map(({ engine, basis, lastMove, status }) => {
+      const booking = bookings.get(engine.id);
+      const dueDate = status.nextInspection?.dueDate ?? null;
+      const rate = basis.rates.cyclesPerDay;
+      const expectedCsn =
+        status.nextInspection?.dueCsn ??
+        (dueDate && status.csnNow !== null && rate
+          ? status.csnNow + rate * Math.max(0, daysBetween(day, dueDate))
+          : null);
       return {
-        engine,
-        status: dueStatus({
-          today: day,
-          rows: modelRows,
-          standardInterval: model.standardInterval ?? null,
-          engine: {
-            status: engine.status,
-            csn: engine.csn,
-            tsn: engine.tsn,
-            tsnCsnAsOf: engine.tsnCsnAsOf,
-            baseline,
-          },
-          utilization: (utilization.get(engine.id) ?? []) as UtilizationIncrement[],
-          inspections: inspections.get(engine.id) ?? [],
-          awaitingBeyondLimits: Boolean(engine.awaitingBeyondLimits),
-          soon: config.dueSoon,
-        }),
+        ...status,
+        trendWarnings:
+          warningsOf && expectedCsn !== null ? warningsOf(status.requirements, expectedCsn) : [],
+        lastMove,
+        booking: booking
+          ? {
+              plannedDate: booking.plannedDate,
+              note: booking.note,
+              bookedByName: booking.bookedByName,
+              bookedAt: booking.bookedAt.toISOString(),
+              dueDateAtBooking: booking.dueDateAtBooking,
+              afterDueDate: dueDate !== null && booking.plannedDate > dueDate && dueDate >= day,
+            }
+          : null,
       };
     });
-    // One read of every open series' measurements, for the trend warnings of all engines.
-    const warningsOf = seriesWarnings(db, [
-      ...new Set(
-        statuses.flatMap(({ status }) => status.requirements.map((item) => item.seriesId)),
-      ),
-    ]);
-    return new Map(
-      statuses.map(({ engine, status }) => {
-        const booking = bookings.get(engine.id);
-        const dueDate = status.nextInspection?.dueDate ?? null;
-        const rates = ratesOf.get(engine.id);
-        const expectedCsn =
-          status.nextInspection?.dueCsn ??
-          (dueDate && status.csnNow !== null && rates
-            ? status.csnNow + rates * Math.max(0, daysBetween(day, dueDate))
-            : null);
-        return [
-          engine.id,
-          {
-            ...status,
-            trendWarnings: expectedCsn === null ? [] : warningsOf(status.requirements, expectedCsn),
-            booking: booking
-              ? {
-                  plannedDate: booking.plannedDate,
-                  note: booking.note,
-                  bookedByName: booking.bookedByName,
-                  bookedAt: booking.bookedAt.toISOString(),
-                  dueDateAtBooking: booking.dueDateAtBooking,
-                  afterDueDate: dueDate !== null && booking.plannedDate > dueDate && dueDate >= day,
-                }
-              : null,
-          },
-        ];
-      }),
-    );
   }
+
+  const scopeOf = (principal: Principal, query: PlanningQuery): EngineScope => ({
+    organisationId: recordScope(principal).organisationId ?? query.organisationId,
+    modelId: query.modelId,
+  });
+
+  /** The engines of the board, filtered and in its order, with their due state. */
+  function board(scope: EngineScope, query: PlanningQuery): Reading[] {
+    return readingsOf(findEngineRowsIn(db, scope), scope)
+      .filter(({ status }) => !query.state || status.state === query.state)
+      .filter(
+        ({ date }) =>
+          (!query.from && !query.to) ||
+          (date !== null && (!query.from || date >= query.from) && (!query.to || date <= query.to)),
+      )
+      .sort(
+        (a, b) =>
+          dueStateRank[a.status.state] - dueStateRank[b.status.state] ||
+          compareText(a.date ?? '9999', b.date ?? '9999') ||
+          compareText(a.engine.serialNumber, b.engine.serialNumber),
+      );
+  }
+
+  const itemOf = (engine: EngineListRow, due: EngineDue): PlanningItem => ({
+    ...due,
+    engineId: engine.id,
+    serialNumber: engine.serialNumber,
+    modelId: engine.modelId,
+    modelName: engine.modelName,
+    organisationId: engine.organisationId,
+    organisationName: engine.organisationName,
+    registration: engine.registration,
+  });
 
   return {
     /**
@@ -273,7 +238,12 @@ export function createPlanningService(ctx: AppContext) {
     withNextDue(principal: Principal, page: EngineListResponse): EngineListResponse {
       if (!can(principal.user.role, 'read:planning') || page.items.length === 0) return page;
       const ids = page.items.map((item) => item.id);
-      const due = dueOf(findEngineRowsIn(db, { engineIds: ids }), { engineIds: ids });
+      const due = new Map(
+        readingsOf(findEngineRowsIn(db, { engineIds: ids }), { engineIds: ids }).map((reading) => [
+          reading.engine.id,
+          reading.status,
+        ]),
+      );
       return {
         ...page,
         items: page.items.map((item) => {
@@ -295,62 +265,24 @@ export function createPlanningService(ctx: AppContext) {
 
     engineDue(principal: Principal, engineId: string): EngineDue {
       const engine = engines.visibleEngine(principal, engineId);
-      return dueOf([engine], { engineId: engine.id }).get(engine.id)!;
+      const scope = { engineId: engine.id };
+      return completed(readingsOf([engine], scope), scope)[0]!;
     },
 
     /**
      * The planning board: every engine the caller may see with its due status, overdue first and
-     * then by the date it falls due; filtered by customer, model, state and the days due.
+     * then by the date it falls due; filtered by customer, model, state and the days due. The
+     * trend warnings are read for the page shown.
      */
     list(principal: Principal, query: PlanningQuery): PlanningResponse {
-      const scope: EngineScope = {
-        organisationId: recordScope(principal).organisationId ?? query.organisationId,
-        modelId: query.modelId,
-      };
-      const rows = findEngineRowsIn(db, scope);
-      const due = dueOf(rows, scope);
-      const rank = {
-        overdue: 0,
-        'awaiting-disposition': 1,
-        'due-soon': 2,
-        unknown: 3,
-        ok: 4,
-        'in-shop': 5,
-        removed: 6,
-      };
-      const dateOf = (item: EngineDue) =>
-        [item.nextInspection?.dueDate, item.removal?.dueDate]
-          .filter((date): date is string => Boolean(date))
-          .sort()[0] ?? null;
-      const items = rows
-        .map((engine): PlanningItem => ({
-          ...due.get(engine.id)!,
-          engineId: engine.id,
-          serialNumber: engine.serialNumber,
-          modelId: engine.modelId,
-          modelName: engine.modelName,
-          organisationId: engine.organisationId,
-          organisationName: engine.organisationName,
-          registration: engine.registration,
-        }))
-        .filter((item) => !query.state || item.state === query.state)
-        .filter((item) => {
-          if (!query.from && !query.to) return true;
-          const date = dateOf(item);
-          return (
-            date !== null && (!query.from || date >= query.from) && (!query.to || date <= query.to)
-          );
-        })
-        .sort(
-          (a, b) =>
-            rank[a.state] - rank[b.state] ||
-            (dateOf(a) ?? '9999').localeCompare(dateOf(b) ?? '9999') ||
-            a.serialNumber.localeCompare(b.serialNumber),
-        );
+      const scope = scopeOf(principal, query);
+      const readings = board(scope, query);
       const start = (query.page - 1) * query.pageSize;
+      const page = readings.slice(start, start + query.pageSize);
+      const dues = completed(page, scope);
       return {
-        items: items.slice(start, start + query.pageSize),
-        total: items.length,
+        items: page.map((reading, index) => itemOf(reading.engine, dues[index]!)),
+        total: readings.length,
         page: query.page,
         pageSize: query.pageSize,
       };
@@ -358,7 +290,10 @@ export function createPlanningService(ctx: AppContext) {
 
     /** The whole board (every page) as a CSV file a planner can open in a spreadsheet. */
     exportCsv(principal: Principal, query: PlanningQuery): string {
-      const { items } = this.list(principal, { ...query, page: 1, pageSize: 100_000 });
+      const scope = scopeOf(principal, query);
+      const readings = board(scope, query);
+      const dues = completed(readings, scope, { warnings: false });
+      const items = readings.map((reading, index) => itemOf(reading.engine, dues[index]!));
       return writeCsv(
         [
           'engine',
@@ -406,7 +341,8 @@ export function createPlanningService(ctx: AppContext) {
       meta: RequestMeta,
     ): EngineDue {
       const engine = engines.visibleEngine(principal, engineId);
-      const current = dueOf([engine], { engineId: engine.id }).get(engine.id)!;
+      const scope = { engineId: engine.id };
+      const current = completed(readingsOf([engine], scope), scope, { warnings: false })[0]!;
       const day = today();
       const dueDate = current.nextInspection?.dueDate ?? null;
       const refuse = (message: string) =>

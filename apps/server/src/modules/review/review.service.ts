@@ -1,3 +1,4 @@
+import { dayWords } from '@emberline/domain/dates';
 import type { InspectionFlag } from '@emberline/contracts/inspections';
 import type { BeyondAction, Category, FindingEvaluation } from '@emberline/contracts/limits';
 import {
@@ -44,6 +45,7 @@ import { findSignatures, signaturesOf } from '../records/records.repository';
 import type { SignatureRecord } from '../records/signature-chain';
 import { findUserById } from '../users/users.repository';
 import { alertRemovalOrdered } from './review-alerts';
+import { refreshDue } from '../planning/due-basis';
 import {
   changedFinding,
   currentDisposition,
@@ -531,9 +533,16 @@ export function createReviewService(
         });
         if (input.supersedesId) endDispositions(tx, [input.supersedesId], 'superseded');
         insertDisposition(tx, { ...row, signatureId: signature.id });
-        if (inspection.state !== 'submitted')
+        if (inspection.state !== 'submitted') {
           // A correction after the outcome needs a new outcome (and, after release, a new release).
           setInspectionState(tx, inspection.id, 'submitted', { outcomeSignatureId: null });
+          refreshDue(
+            ctx,
+            tx,
+            { engineId: inspection.engineId },
+            `${principal.user.name} corrected finding F${finding.number} of the inspection of ${dayWords(inspection.date)}; its outcome is to be signed again.`,
+          );
+        }
         appendAudit(tx, now, {
           actorUserId: principal.user.id,
           action: input.supersedesId ? 'disposition.superseded' : 'disposition.signed',
@@ -633,6 +642,12 @@ export function createReviewService(
         });
         setInspectionState(tx, id, 'dispositioned', { outcomeSignatureId: signature.id });
         alertRemovalOrdered(ctx, tx, inspection, principal.user.name, summary.removals);
+        refreshDue(
+          ctx,
+          tx,
+          { engineId: inspection.engineId },
+          `${principal.user.name} signed the outcome of the inspection of ${dayWords(inspection.date)}.`,
+        );
         appendAudit(tx, now, {
           actorUserId: principal.user.id,
           action: 'inspection.outcome-signed',
@@ -690,6 +705,12 @@ export function createReviewService(
           releaseSignatureId: signature.id,
           releaseRevision: revision,
         });
+        refreshDue(
+          ctx,
+          tx,
+          { engineId: inspection.engineId },
+          `${principal.user.name} released the inspection of ${dayWords(inspection.date)}.`,
+        );
         appendAudit(tx, now, {
           actorUserId: principal.user.id,
           action: 'inspection.released',
@@ -771,6 +792,12 @@ export function createReviewService(
           returnedAt: now,
           outcomeSignatureId: null,
         });
+        refreshDue(
+          ctx,
+          tx,
+          { engineId: inspection.engineId },
+          `${principal.user.name} returned the inspection of ${dayWords(inspection.date)} to the inspector: ${input.reason}`,
+        );
         appendAudit(tx, now, {
           actorUserId: principal.user.id,
           action: 'inspection.returned-to-draft',

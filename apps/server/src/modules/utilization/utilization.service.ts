@@ -16,6 +16,8 @@ import { findEngineRow, updateEngine, type EngineListRow } from '../engines/engi
 import { createEnginesService } from '../engines/engines.service';
 import { parseUtilizationCsv } from './utilization-csv';
 import { insertUtilization, listUtilization, type UtilizationRow } from './utilization.repository';
+import { refreshDue } from '../planning/due-basis';
+import { countWords, dayWords } from '@emberline/domain/dates';
 
 type Period = Pick<UtilizationRecordInput, 'periodStart' | 'periodEnd'>;
 
@@ -101,6 +103,14 @@ export function createUtilizationService(ctx: AppContext) {
         ip: meta.ip,
       });
     }
+    const first = records.reduce((a, b) => (b.periodStart < a.periodStart ? b : a));
+    const last = records.reduce((a, b) => (b.periodEnd > a.periodEnd ? b : a));
+    refreshDue(
+      ctx,
+      tx,
+      { engineId: engine.id },
+      `${principal.user.name} recorded utilization for ${dayWords(first.periodStart)} – ${dayWords(last.periodEnd)} (${countWords(records.reduce((sum, record) => sum + record.cycles, 0))} cycles, ${countWords(records.reduce((sum, record) => sum + record.hours, 0))} h), which changes the daily rates.`,
+    );
     appendAudit(tx, now, {
       actorUserId: principal.user.id,
       action: `utilization.recorded-from-${source}`,
