@@ -15,12 +15,17 @@ import type { Logger } from './lib/logger';
 import { loadRecordsKey } from './lib/records/records-key';
 import { createLocalStorage } from './lib/storage/local-storage';
 import { knownImageHashes } from './modules/images/images.repository';
+import { createReminders } from './modules/reminders/reminders.service';
+import { createScheduler, type Scheduler } from './modules/reminders/scheduler';
 import { countUsers } from './modules/users/users.repository';
 
 export interface Runtime {
   ctx: AppContext;
   /** The outbox's delivery worker; `server.ts` starts it, tests drive it. */
   delivery: Delivery;
+  /** The reminders' scheduler; `server.ts` starts it, tests call `reminders.tick()` with their clock. */
+  scheduler: Scheduler;
+  reminders: ReturnType<typeof createReminders>;
   /** The in-process SMTP fake; null when a real relay is configured. */
   smtpFake: SmtpFake | null;
   close(): Promise<void>;
@@ -105,12 +110,17 @@ export async function prepareRuntime(
   };
   if (demoLoaded && config.demoImages) await loadDemoHistory(ctx);
   const delivery = createDelivery({ db: handle.db, mailer, now, logger });
+  const reminders = createReminders(ctx);
+  const scheduler = createScheduler(() => reminders.tick(), logger);
 
   return {
     ctx,
     delivery,
+    scheduler,
+    reminders,
     smtpFake,
     async close() {
+      scheduler.stop();
       await delivery.stop();
       mailer.close();
       await smtpFake?.close();

@@ -10,6 +10,8 @@ async function main(): Promise<void> {
   const app = createApp(runtime.ctx);
   // Queued e-mail goes out within a second; a restart resumes where the last process stopped.
   runtime.delivery.start(1000);
+  // Reminders: the overdue check once a day, the planners' digest at REMINDER_HOUR.
+  runtime.scheduler.start();
   const server = app.listen(config.port, config.host, () => {
     logger.info(
       { port: config.port, dataDir: config.dataDir },

@@ -38,3 +38,10 @@ export function decisionWords(decision: Decision): string {
       return `Remove from service: ${actionWords(decision.action)}`;
   }
 }
+
+/** What a removal requirement asks, in words, without its figures (shown beside its due date). */
+export const removalKindWords: Record<BeyondAction['kind'], string> = {
+  'remove-before-next-flight': 'Remove before the next flight',
+  'remove-within': 'Remove within the cycles or hours set',
+  'remove-at-next-shop-visit': 'Remove at the next shop visit',
+};

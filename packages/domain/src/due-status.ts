@@ -368,7 +368,7 @@ function dueOf(result: ReturnType<typeof forecast>): Due {
 }
 
 /** A due date as people read it: the day, with the CSN and TSN it falls due at. */
-export function dueWords(due: Due | null): string {
+export function dueWords(due: Pick<Due, 'dueDate' | 'dueCsn' | 'dueTsn'> | null): string {
   if (!due) return 'no due date';
   const marks = [
     due.dueCsn !== null ? `CSN ${countWords(due.dueCsn)}` : null,

@@ -103,6 +103,13 @@ const envSchema = z.object({
   DUE_SOON_DAYS: positiveInt('DUE_SOON_DAYS').default(14),
   DUE_SOON_CYCLES: positiveInt('DUE_SOON_CYCLES').default(50),
   DUE_SOON_HOURS: positiveInt('DUE_SOON_HOURS').default(100),
+  // The hour of the day (installation time zone, 0-23) planners get their daily digest.
+  REMINDER_HOUR: z.coerce
+    .number()
+    .int()
+    .min(0, { message: 'REMINDER_HOUR is an hour of the day, 0 to 23' })
+    .max(23, { message: 'REMINDER_HOUR is an hour of the day, 0 to 23' })
+    .default(7),
 });
 
 export interface Config {
@@ -134,6 +141,8 @@ export interface Config {
   /** The installation's time zone, in which a due date falls on a day. */
   timeZone: string;
   dueSoon: { days: number; cycles: number; hours: number };
+  /** The hour of the day (in `timeZone`) of the planners' daily digest. */
+  reminderHour: number;
 }
 
 export class ConfigError extends Error {
@@ -186,5 +195,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     logLevel: e.LOG_LEVEL,
     timeZone: e.TZ,
     dueSoon: { days: e.DUE_SOON_DAYS, cycles: e.DUE_SOON_CYCLES, hours: e.DUE_SOON_HOURS },
+    reminderHour: e.REMINDER_HOUR,
   };
 }

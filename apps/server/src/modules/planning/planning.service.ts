@@ -15,7 +15,7 @@ import { can } from '@emberline/contracts/permissions';
 import { dayWords, daysBetween } from '@emberline/domain/dates';
 import { trendWarning } from '@emberline/domain/trend';
 import { MM2_PER_SQUARE_INCH, MM_PER_INCH } from '@emberline/domain/units';
-import { actionWords } from '@emberline/domain/decision-words';
+import { removalKindWords } from '@emberline/domain/decision-words';
 import { dueStateOn, type DueBasis } from '@emberline/domain/due-status';
 import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction, type DbOrTx } from '../../db/client';
@@ -121,9 +121,12 @@ export function createPlanningService(ctx: AppContext) {
   const today = () => todayIn(config.timeZone, ctx.now());
 
   /** The due state of engines (DESIGN §5.6) on today's date, from their kept bases. */
-  function readingsOf(rows: readonly EngineListRow[], scope: EngineScope): Reading[] {
+  function readingsOf(
+    rows: readonly EngineListRow[],
+    scope: EngineScope,
+    day = today(),
+  ): Reading[] {
     const bases = readDueBases(ctx, db, rows, scope);
-    const day = today();
     return rows.map((engine) => {
       const { basis, lastMove } = bases.get(engine.id)!;
       const status = dueStateOn(basis, {
@@ -232,6 +235,18 @@ export function createPlanningService(ctx: AppContext) {
 
   return {
     /**
+     * Every engine's due status as it stands on a day (today, or an earlier day to tell what
+     * changed since), without trend warnings: what the reminders read.
+     */
+    fleetOn(day: string): PlanningItem[] {
+      const readings = readingsOf(findEngineRowsIn(db, {}), {}, day)
+        .filter(({ status }) => status.state !== 'removed')
+        .sort((a, b) => compareText(a.date ?? '9999', b.date ?? '9999'));
+      const dues = completed(readings, {}, { warnings: false });
+      return readings.map((reading, index) => itemOf(reading.engine, dues[index]!));
+    },
+
+    /**
      * The due status of a page of engines as a list shows it (for those who may read planning);
      * the list's rows go in as they are.
      */
@@ -320,9 +335,7 @@ export function createPlanningService(ctx: AppContext) {
           item.governedBy
             ? `${item.governedBy.kind === 'repeat' ? 'repeat inspection' : 'standard interval'}${item.nextInspection?.governing ? `, ${item.nextInspection.governing}` : ''}`
             : null,
-          item.removal
-            ? actionWords({ kind: item.removal.kind, cycles: null, hours: null }).trim()
-            : null,
+          item.removal ? removalKindWords[item.removal.kind] : null,
           item.removal?.dueDate ?? null,
           item.booking?.plannedDate ?? null,
           item.booking?.note ?? null,
