@@ -72,7 +72,7 @@ test('the growing crack of VT3-D0103 shows its trend over three inspections, pro
   const item = page.getByTestId('finding-item').filter({ hasText: 'crack' }).filter({
     hasText: 'Continues an earlier finding',
   });
-  await item.getByText('Continues an earlier finding: show the damage trend').click();
+  await item.getByText('Show the damage trend').click();
   const chart = item.getByTestId('trend-chart');
   await expect(chart).toBeVisible();
   await expect(chart.locator('.recharts-scatter-symbol')).toHaveCount(3);
@@ -80,4 +80,60 @@ test('the growing crack of VT3-D0103 shows its trend over three inspections, pro
   // spec has published its tightened copy.
   await expect(chart).toContainText(/Projected to reach the repeat limit of (1\.50|1\.20) mm/);
   await expect(chart).toContainText('r²');
+
+  // "Continues an earlier finding" leads to it, in its own inspection.
+  await item.getByRole('link', { name: /an earlier finding \(F\d+\)/ }).click();
+  await expect(page).toHaveURL(/\/inspections\/inspection-d0103-h2\?finding=/);
+
+  // The engine page shows the same trend for its open requirement.
+  await page.goto('/fleet/engine-d0103');
+  const trends = page.getByRole('region', { name: /Damage trend of F\d+/ });
+  await expect(trends.getByTestId('trend-chart').locator('.recharts-scatter-symbol')).toHaveCount(
+    3,
+  );
+});
+
+test('the calendar shows the same engines on the same days as the list', async ({ page }) => {
+  await signIn(page, 'planner@demo.test');
+  await page.goto('/planning');
+  const rows = page.getByTestId('planning-row');
+  await expect(rows.first()).toBeVisible();
+  const listed = new Map<string, string>();
+  for (const row of await rows.all()) {
+    const serial = (await row.getByRole('link').first().textContent())!.trim();
+    const due = await row.locator('[data-due-date]').getAttribute('data-due-date');
+    if (due) listed.set(serial, due);
+  }
+  // The month of VT3-D0102's due date (due soon, so near today whatever the day the demo loads).
+  const month = listed.get('VT3-D0102')!;
+  await page.getByRole('link', { name: 'Month' }).click();
+  await expect(page).toHaveURL(/view=month/);
+  await page.goto(`/planning?view=month&on=${month}`);
+  const days = page.getByTestId('calendar-day');
+  await expect(days.first()).toBeVisible();
+  const shown = await days.evaluateAll((cells) => cells.map((cell) => cell.dataset.day!));
+  const expected = [...listed]
+    .filter(([, due]) => shown.includes(due))
+    .map(([serial, due]) => `${serial} ${due}`)
+    .sort();
+  const entries = page.locator('[data-testid="calendar-entry"][data-kind="inspection"]');
+  await expect(entries).toHaveCount(expected.length);
+  const placed = (
+    await entries.evaluateAll((items) =>
+      items.map(
+        (item) =>
+          `${item.getAttribute('data-engine')} ${item.closest<HTMLElement>('[data-day]')!.dataset.day}`,
+      ),
+    )
+  ).sort();
+  expect(placed).toEqual(expected);
+  expect(placed).toContain(`VT3-D0102 ${month}`);
+  expect(await seriousViolations(page), 'planning calendar').toEqual([]);
+
+  // The week view of the same day shows it too, and the filters apply to the calendar alike.
+  await page.getByRole('link', { name: 'Week' }).click();
+  await expect(page.locator('[data-engine="VT3-D0102"]')).toBeVisible();
+  await page.getByLabel('State').selectOption('ok');
+  await expect(page).toHaveURL(/state=ok/);
+  await expect(page.locator('[data-engine="VT3-D0102"]')).toHaveCount(0);
 });

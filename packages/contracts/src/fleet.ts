@@ -254,6 +254,8 @@ export const engineSortKeys = [
   'status',
   'tsn',
   'csn',
+  /** By due state (overdue first) and then the day the next inspection or removal falls due. */
+  'nextDue',
 ] as const;
 export type EngineSortKey = (typeof engineSortKeys)[number];
 
@@ -266,6 +268,8 @@ export const engineListQuerySchema = z.strictObject({
   modelId: z.string().max(64).optional(),
   organisationId: z.string().max(64).optional(),
   status: engineStatusSchema.optional(),
+  /** Engines in this due state (those who may read planning). */
+  dueState: dueStateSchema.optional(),
   q: z.string().trim().max(60).optional(),
 });
 export type EngineListQuery = z.infer<typeof engineListQuerySchema>;

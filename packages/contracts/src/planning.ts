@@ -122,7 +122,7 @@ export type BookingInput = z.input<typeof bookingInputSchema>;
 export type ParsedBookingInput = z.output<typeof bookingInputSchema>;
 
 export const planningQuerySchema = z.strictObject({
-  /** Due (inspection or removal) on or after / before this day. */
+  /** Engines whose next inspection or removal falls due on or after / on or before this day. */
   from: isoDateSchema.optional(),
   to: isoDateSchema.optional(),
   state: dueStateSchema.optional(),

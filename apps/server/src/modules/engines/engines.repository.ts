@@ -61,6 +61,8 @@ const sortColumns: Record<EngineSortKey, AnySQLiteColumn[]> = {
   status: [engines.status],
   tsn: [engines.tsn],
   csn: [engines.csn],
+  // Computed from the due status, not a column: the planning service sorts by it.
+  nextDue: [engines.serialNumber],
 };
 
 /** `%` and `_` typed by a user are literal characters, not wildcards. */

@@ -29,7 +29,12 @@ export function enginesRoutes(ctx: AppContext): Router {
     },
     (_req, res) => {
       const principal = principalOf(res);
-      res.json(planning.withNextDue(principal, engines.list(principal, res.locals.query)));
+      const query = res.locals.query;
+      res.json(
+        query.sort === 'nextDue' || query.dueState
+          ? planning.fleetByDue(principal, query)
+          : planning.withNextDue(principal, engines.list(principal, query)),
+      );
     },
   );
 

@@ -118,7 +118,7 @@ export function createEnginesService(ctx: AppContext) {
     visibleEngine,
 
     list(principal: Principal, query: EngineListQuery): EngineListResponse {
-      const { page, pageSize, sort: _sort, order: _order, ...filters } = query;
+      const { page, pageSize, sort: _sort, order: _order, dueState: _due, ...filters } = query;
       const { rows, total } = listEngines(db, query, {
         ...filters,
         scopeOrganisationId: recordScope(principal).organisationId ?? undefined,

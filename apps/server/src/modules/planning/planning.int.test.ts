@@ -353,5 +353,33 @@ describe('due status of an engine (DESIGN §5.6)', () => {
         .query({ serial: 'VT3-D0102' })
         .set('Cookie', customer);
       expect(theirs.body.items[0].nextDue).toBeNull();
+
+      // The fleet sorts by due state and date (what needs a planner first), and filters by state.
+      const byDue = await request(t.app)
+        .get('/api/v1/engines')
+        .query({ sort: 'nextDue', pageSize: 3 })
+        .set('Cookie', planner);
+      expect(byDue.status).toBe(200);
+      expect(byDue.body.total).toBe(10);
+      expect(byDue.body.items.map((item: { serialNumber: string }) => item.serialNumber)[0]).toBe(
+        'VT3-D0102',
+      );
+      const last = await request(t.app)
+        .get('/api/v1/engines')
+        .query({ sort: 'nextDue', order: 'desc', pageSize: 1 })
+        .set('Cookie', planner);
+      expect(last.body.items[0].nextDue.state).toBe('removed');
+      const unknown = await request(t.app)
+        .get('/api/v1/engines')
+        .query({ dueState: 'unknown' })
+        .set('Cookie', planner);
+      expect(unknown.body.items.map((item: { serialNumber: string }) => item.serialNumber)).toEqual(
+        ['VT3-D0105'],
+      );
+      const refused = await request(t.app)
+        .get('/api/v1/engines')
+        .query({ dueState: 'overdue' })
+        .set('Cookie', customer);
+      expect(refused.status).toBe(403);
     });
 });

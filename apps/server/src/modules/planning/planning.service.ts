@@ -10,7 +10,7 @@ import {
   type Requirement,
 } from '@emberline/contracts/planning';
 import type { Rule } from '@emberline/contracts/limits';
-import type { EngineListResponse } from '@emberline/contracts/fleet';
+import type { EngineListQuery, EngineListResponse } from '@emberline/contracts/fleet';
 import { can } from '@emberline/contracts/permissions';
 import { dayWords, daysBetween } from '@emberline/domain/dates';
 import { trendWarning } from '@emberline/domain/trend';
@@ -209,11 +209,13 @@ export function createPlanningService(ctx: AppContext) {
   function board(scope: EngineScope, query: PlanningQuery): Reading[] {
     return readingsOf(findEngineRowsIn(db, scope), scope)
       .filter(({ status }) => !query.state || status.state === query.state)
-      .filter(
-        ({ date }) =>
-          (!query.from && !query.to) ||
-          (date !== null && (!query.from || date >= query.from) && (!query.to || date <= query.to)),
-      )
+      .filter(({ status }) => {
+        // Within the days asked: the next inspection or the removal falls due in them.
+        if (!query.from && !query.to) return true;
+        const within = (date: string | null | undefined) =>
+          date != null && (!query.from || date >= query.from) && (!query.to || date <= query.to);
+        return within(status.nextInspection?.dueDate) || within(status.removal?.dueDate);
+      })
       .sort(
         (a, b) =>
           dueStateRank[a.status.state] - dueStateRank[b.status.state] ||
@@ -276,6 +278,55 @@ export function createPlanningService(ctx: AppContext) {
           };
         }),
       };
+    },
+
+    /**
+     * The fleet list sorted by due state and date, or filtered by due state: every engine of the
+     * list's filters read, then ordered and paged (those who may read planning only).
+     */
+    fleetByDue(principal: Principal, query: EngineListQuery): EngineListResponse {
+      if (!can(principal.user.role, 'read:planning'))
+        throw AppError.forbidden('Due states are shown to engineers, planners and administrators.');
+      const { dueState, page, pageSize } = query;
+      const all = engines.list(principal, {
+        ...query,
+        dueState: undefined,
+        sort: query.sort === 'nextDue' ? 'serialNumber' : query.sort,
+        order: query.sort === 'nextDue' ? 'asc' : query.order,
+        page: 1,
+        pageSize: 1_000_000,
+      });
+      const ids = all.items.map((item) => item.id);
+      const scope: EngineScope = {
+        organisationId: recordScope(principal).organisationId ?? query.organisationId,
+        modelId: query.modelId,
+      };
+      const readings = new Map(
+        readingsOf(findEngineRowsIn(db, scope), scope).map((reading) => [
+          reading.engine.id,
+          reading,
+        ]),
+      );
+      const direction = query.sort === 'nextDue' && query.order === 'desc' ? -1 : 1;
+      const items = ids
+        .map((id) => readings.get(id)!)
+        .filter((reading) => !dueState || reading.status.state === dueState)
+        .sort((a, b) =>
+          query.sort === 'nextDue'
+            ? direction *
+                (dueStateRank[a.status.state] - dueStateRank[b.status.state] ||
+                  compareText(a.date ?? '9999', b.date ?? '9999')) ||
+              compareText(a.engine.serialNumber, b.engine.serialNumber)
+            : 0,
+        );
+      const byId = new Map(all.items.map((item) => [item.id, item]));
+      const shown = items.slice((page - 1) * pageSize, page * pageSize);
+      return this.withNextDue(principal, {
+        items: shown.map((reading) => byId.get(reading.engine.id)!),
+        total: items.length,
+        page,
+        pageSize,
+      });
     },
 
     engineDue(principal: Principal, engineId: string): EngineDue {

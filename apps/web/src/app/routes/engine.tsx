@@ -9,9 +9,38 @@ import { useEngine } from '../../features/fleet/api/engines';
 import { EngineParticulars } from '../../features/fleet/components/engine-particulars';
 import { EngineStatusForm } from '../../features/fleet/components/engine-status-form';
 import { UtilizationPanel } from '../../features/fleet/components/utilization-panel';
+import { useEngineDue } from '../../features/planning/api/planning';
 import { DueCard } from '../../features/planning/components/due-card';
+import { FindingTrendOf } from '../../features/review/components/finding-trend';
 import { useEngineModel } from '../../features/engine-models/api/engine-models';
 import { InspectionsList } from '../../features/inspections/components/inspections-list';
+
+/**
+ * The damage trends of the engine's open requirements: one chart per damage series with three
+ * measurements or more (DESIGN §5.4), against the limits of the rule that judged its finding.
+ */
+function EngineTrends({ engineId }: { engineId: string }) {
+  const due = useEngineDue(engineId);
+  const findings = [
+    ...new Map(
+      (due.data?.requirements ?? []).map((requirement) => [
+        requirement.seriesId,
+        requirement.findingId,
+      ]),
+    ).values(),
+  ];
+  if (findings.length === 0) return null;
+  return (
+    <Panel>
+      <h2 className="mb-4 text-lg font-semibold">Damage trends of the open requirements</h2>
+      <div className="flex flex-col gap-6">
+        {findings.map((findingId) => (
+          <FindingTrendOf key={findingId} findingId={findingId} />
+        ))}
+      </div>
+    </Panel>
+  );
+}
 
 export function EngineRoute() {
   const { engineId = '' } = useParams();
@@ -80,6 +109,7 @@ export function EngineRoute() {
           />
         </Panel>
       ) : null}
+      {can(user.role, 'read:planning') ? <EngineTrends engineId={data.id} /> : null}
       <Panel>
         <h2 className="mb-4 text-lg font-semibold">Particulars</h2>
         <EngineParticulars engine={data} />

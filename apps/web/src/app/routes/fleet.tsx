@@ -76,6 +76,7 @@ export function FleetRoute() {
         view={view}
         onChange={onChange}
         models={models.data ?? []}
+        seesDue={can(user.role, 'read:planning')}
         owners={seesOwners ? (owners.data ?? []) : null}
       />
     </>

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { inspectionReasonLabels, inspectionStateLabels } from '@emberline/contracts/inspections';
 import { can } from '@emberline/contracts/permissions';
 import { ArrowLeft } from 'lucide-react';
-import { Link, useParams } from 'react-router-dom';
+import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { Notice } from '../../components/ui/notice';
 import { LoadingLine, PageHeader, Panel } from '../../components/ui/page';
 import { useSignedInUser } from '../../features/auth/hooks/use-signed-in-user';
@@ -33,6 +33,18 @@ export function InspectionRoute() {
   const model = useEngineModel(engine.data?.modelId ?? null);
   const [selected, setSelected] = useState(0);
   const findings = useFindings(inspectionId);
+  // A link to one finding (`?finding=`, from a later finding of its series) opens its image.
+  const [params] = useSearchParams();
+  const linked = params.get('finding');
+  const [openedLink, setOpenedLink] = useState<string | null>(null);
+  if (linked && linked !== openedLink && findings.data && inspection.data) {
+    const finding = findings.data.items.find((item) => item.id === linked);
+    const at = finding
+      ? inspection.data.images.findIndex((image) => image.id === finding.imageId)
+      : -1;
+    setOpenedLink(linked);
+    if (at >= 0) setSelected(at);
+  }
   const coverage = useCoverage(inspectionId);
   const limitSet = useLimitSetInForce(
     engine.data?.modelId ?? null,

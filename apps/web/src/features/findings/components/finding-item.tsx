@@ -1,4 +1,7 @@
 import { useState, type ReactNode } from 'react';
+import { useQuery } from '@tanstack/react-query';
+import { Link } from 'react-router-dom';
+import { findingQueryOptions } from '../../../lib/finding-query';
 import type { Finding } from '@emberline/contracts/findings';
 import type { EngineModelRow } from '@emberline/contracts/fleet';
 import { Button } from '../../../components/ui/button';
@@ -74,15 +77,12 @@ export function FindingItem({
             : ''}
         </p>
       ) : null}
+      {finding.previousFindingId ? <EarlierFinding findingId={finding.previousFindingId} /> : null}
       {finding.previousFindingId && finding.status === 'recorded' && trend ? (
         <details className="text-xs">
-          <summary className="cursor-pointer text-ember-800">
-            Continues an earlier finding: show the damage trend
-          </summary>
+          <summary className="cursor-pointer text-ember-800">Show the damage trend</summary>
           {trend(finding)}
         </details>
-      ) : finding.previousFindingId ? (
-        <p className="text-xs text-soot-700">Continues an earlier finding.</p>
       ) : null}
       {editable && finding.status === 'recorded' && correcting ? (
         <FindingEditForm finding={finding} rows={rows} onDone={() => setCorrecting(false)} />
@@ -129,3 +129,24 @@ export function FindingItem({
 }
 
 /** Per row: the stage ring (click a position to filter), the findings, and the row's coverage. */
+
+/** "Continues an earlier finding", as a link to it (its inspection, on its number). */
+function EarlierFinding({ findingId }: { findingId: string }) {
+  const earlier = useQuery(findingQueryOptions(findingId));
+  return (
+    <p className="text-xs text-soot-700">
+      Continues{' '}
+      {earlier.data ? (
+        <Link
+          to={`/inspections/${earlier.data.inspectionId}?finding=${earlier.data.id}`}
+          className="text-ember-800 underline"
+        >
+          an earlier finding (F{earlier.data.number})
+        </Link>
+      ) : (
+        'an earlier finding'
+      )}
+      .
+    </p>
+  );
+}

@@ -68,7 +68,12 @@ export function useCreateEngine() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: EngineInput) => api.post<EngineDetail>('/engines', input),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: engineKeys.all }),
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: engineKeys.all }),
+        // What an engine's due date rests on changed: the planning board reads it again.
+        queryClient.invalidateQueries({ queryKey: ['planning'] }),
+      ]),
   });
 }
 
@@ -77,7 +82,12 @@ export function useUpdateEngine(id: string) {
   return useMutation({
     mutationFn: (changes: EngineUpdate) =>
       api.patch<EngineDetail>(`/engines/${encodeURIComponent(id)}`, changes),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: engineKeys.all }),
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: engineKeys.all }),
+        // What an engine's due date rests on changed: the planning board reads it again.
+        queryClient.invalidateQueries({ queryKey: ['planning'] }),
+      ]),
   });
 }
 
@@ -86,7 +96,12 @@ export function useAddUtilization(id: string) {
   return useMutation({
     mutationFn: (record: UtilizationRecordInput) =>
       api.post<UtilizationListResponse>(`/engines/${encodeURIComponent(id)}/utilization`, record),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: engineKeys.detail(id) }),
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: engineKeys.detail(id) }),
+        // What an engine's due date rests on changed: the planning board reads it again.
+        queryClient.invalidateQueries({ queryKey: ['planning'] }),
+      ]),
   });
 }
 
@@ -110,6 +125,11 @@ export function useImportUtilization(id: string) {
         file,
         'text/csv',
       ),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: engineKeys.detail(id) }),
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: engineKeys.detail(id) }),
+        // What an engine's due date rests on changed: the planning board reads it again.
+        queryClient.invalidateQueries({ queryKey: ['planning'] }),
+      ]),
   });
 }

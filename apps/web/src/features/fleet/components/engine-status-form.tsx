@@ -19,6 +19,14 @@ export function EngineStatusForm({ engine }: { engine: EngineDetail }) {
     },
   });
   const { errors } = form.formState;
+  const returning =
+    (engine.status === 'in-shop' || engine.status === 'removed') &&
+    form.watch('status') === 'installed';
+  const releaseError =
+    errors.shopRelease?.message ??
+    errors.shopRelease?.date?.message ??
+    errors.shopRelease?.csn?.message ??
+    errors.shopRelease?.tsn?.message;
   const onSubmit = form.handleSubmit((values) => {
     setMessage(null);
     update.mutate(values, {
@@ -64,6 +72,55 @@ export function EngineStatusForm({ engine }: { engine: EngineDetail }) {
           )}
         </Field>
       </div>
+      {returning ? (
+        <fieldset className="flex flex-col gap-2 rounded-md border border-soot-200 p-3">
+          <legend className="px-1 text-sm font-semibold">Shop release</legend>
+          <p className="text-sm text-soot-700">
+            The engine returns to service: give the shop&apos;s release. It closes every open
+            requirement and the standard interval runs from it.
+          </p>
+          <div className="grid gap-3 sm:grid-cols-3">
+            <Field label="Released on">
+              {(props) => (
+                <Input
+                  {...props}
+                  type="date"
+                  {...form.register('shopRelease.date', { shouldUnregister: true })}
+                />
+              )}
+            </Field>
+            <Field label="CSN at release">
+              {(props) => (
+                <Input
+                  {...props}
+                  inputMode="numeric"
+                  {...form.register('shopRelease.csn', {
+                    shouldUnregister: true,
+                    valueAsNumber: true,
+                  })}
+                />
+              )}
+            </Field>
+            <Field label="TSN at release (hours)">
+              {(props) => (
+                <Input
+                  {...props}
+                  inputMode="decimal"
+                  {...form.register('shopRelease.tsn', {
+                    shouldUnregister: true,
+                    valueAsNumber: true,
+                  })}
+                />
+              )}
+            </Field>
+          </div>
+          {releaseError ? (
+            <p className="text-sm font-medium text-red-800" role="alert">
+              {releaseError}
+            </p>
+          ) : null}
+        </fieldset>
+      ) : null}
       <Button type="submit" variant="secondary" busy={update.isPending} className="self-start">
         Save installation
       </Button>

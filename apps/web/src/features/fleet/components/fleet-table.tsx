@@ -22,6 +22,7 @@ import { Notice } from '../../../components/ui/notice';
 import { formatCount, formatDate, formatHours } from '../../../lib/format';
 import { useEngines } from '../api/engines';
 import { EngineStatusOptions, StatusBadge } from './status-badge';
+import { dueStateLabels, dueStates } from '@emberline/contracts/planning';
 
 const features = tableFeatures({ rowSortingFeature, columnVisibilityFeature });
 
@@ -89,8 +90,9 @@ const columns: ColumnDef<typeof features, Engine>[] = [
   },
   {
     id: 'nextDue',
+    // Sorted by the server: due state first (overdue at the top), then the day it falls due.
+    accessorFn: (engine) => engine.nextDue?.dueDate ?? '',
     header: 'Next due',
-    enableSorting: false,
     cell: ({ row }) => {
       const due = row.original.nextDue;
       if (!due) return '—';
@@ -120,9 +122,11 @@ interface FleetTableProps {
   models: EngineModelSummary[];
   /** Owners to filter by; null for a customer, who only sees their own. */
   owners: Organisation[] | null;
+  /** The caller may read due states (engineers, planners, administrators). */
+  seesDue: boolean;
 }
 
-export function FleetTable({ view, onChange, models, owners }: FleetTableProps) {
+export function FleetTable({ view, onChange, models, owners, seesDue }: FleetTableProps) {
   const { hidden: hiddenInAddress, ...query } = view;
   // Shown at once, while the address follows (router navigations are transitions, and a
   // controlled checkbox would snap back until one lands).
@@ -151,9 +155,11 @@ export function FleetTable({ view, onChange, models, owners }: FleetTableProps) 
   const columnVisibility: ColumnVisibilityState = useMemo(
     () =>
       Object.fromEntries(
-        [...hidden, ...(owners ? [] : ['organisationName', 'nextDue'])].map((id) => [id, false]),
+        [...hidden, ...(owners ? [] : ['organisationName']), ...(seesDue ? [] : ['nextDue'])].map(
+          (id) => [id, false],
+        ),
       ),
-    [hidden, owners],
+    [hidden, owners, seesDue],
   );
 
   const table = useTable({
@@ -245,6 +251,27 @@ export function FleetTable({ view, onChange, models, owners }: FleetTableProps) 
             <EngineStatusOptions />
           </Select>
         </label>
+        {seesDue ? (
+          <label className="flex flex-col gap-1 text-sm font-medium">
+            Due state
+            <Select
+              value={view.dueState ?? ''}
+              onChange={(event) =>
+                onChange({
+                  dueState: (event.target.value || undefined) as FleetView['dueState'],
+                  page: 1,
+                })
+              }
+            >
+              <option value="">Any due state</option>
+              {dueStates.map((state) => (
+                <option key={state} value={state}>
+                  {dueStateLabels[state]}
+                </option>
+              ))}
+            </Select>
+          </label>
+        ) : null}
         <details className="relative">
           <summary className="cursor-pointer rounded-md border border-soot-300 bg-white px-3 py-2 text-sm">
             Columns

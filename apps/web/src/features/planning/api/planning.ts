@@ -21,15 +21,35 @@ export function useEngineDue(engineId: string, enabled = true) {
   });
 }
 
-export function usePlanning(query: Partial<PlanningQuery>) {
-  const params = new URLSearchParams(
+const searchOf = (query: Partial<PlanningQuery>) =>
+  new URLSearchParams(
     Object.entries(query)
       .filter((entry) => entry[1] !== undefined && entry[1] !== '')
       .map(([key, value]) => [key, String(value)]),
-  );
+  ).toString();
+
+export function usePlanning(query: Partial<PlanningQuery>, enabled = true) {
   return useQuery({
     queryKey: [...planningKeys.all, 'list', query],
-    queryFn: () => api.get<PlanningResponse>(`/planning?${params.toString()}`),
+    queryFn: () => api.get<PlanningResponse>(`/planning?${searchOf(query)}`),
+    enabled,
+  });
+}
+
+/** Every engine due (inspection or removal) between two days, all pages: what a calendar shows. */
+export function usePlanningBetween(query: Partial<PlanningQuery> & { from: string; to: string }) {
+  return useQuery({
+    queryKey: [...planningKeys.all, 'between', query],
+    queryFn: async () => {
+      const items: PlanningResponse['items'] = [];
+      for (let page = 1; ; page += 1) {
+        const body = await api.get<PlanningResponse>(
+          `/planning?${searchOf({ ...query, page, pageSize: 200 })}`,
+        );
+        items.push(...body.items);
+        if (items.length >= body.total || body.items.length === 0) return items;
+      }
+    },
   });
 }
 
@@ -44,10 +64,5 @@ export function useBook(engineId: string) {
 
 /** Where the whole board, as filtered, downloads as CSV. */
 export function planningCsvUrl(query: Partial<PlanningQuery>): string {
-  const params = new URLSearchParams(
-    Object.entries(query)
-      .filter((entry) => entry[1] !== undefined && entry[1] !== '' && entry[0] !== 'page')
-      .map(([key, value]) => [key, String(value)]),
-  );
-  return apiUrl(`/planning/export?${params.toString()}`);
+  return apiUrl(`/planning/export?${searchOf({ ...query, page: undefined })}`);
 }

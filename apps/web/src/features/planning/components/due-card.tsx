@@ -1,6 +1,6 @@
 import { cautions } from '@emberline/contracts/cautions';
 import type { EngineDue } from '@emberline/contracts/planning';
-import { actionWords, intervalWords } from '@emberline/domain/decision-words';
+import { actionWords, intervalWords, removalKindWords } from '@emberline/domain/decision-words';
 import { Link } from 'react-router-dom';
 import { DueStateBadge } from '../../../components/ui/due-state-badge';
 import { LoadingLine } from '../../../components/ui/page';
@@ -8,6 +8,7 @@ import { Notice } from '../../../components/ui/notice';
 import { formatCount, formatDate, formatHours } from '../../../lib/format';
 import { useEngineDue } from '../api/planning';
 import { BookingForm } from './booking-form';
+import { DueMoveNote } from './due-move-note';
 
 const dimensionWords = { cycles: 'cycles', hours: 'hours', days: 'calendar days' } as const;
 
@@ -74,6 +75,7 @@ export function DueCard({
           </div>
         </dl>
       ) : null}
+      {data.lastMove ? <DueMoveNote move={data.lastMove} /> : null}
       {data.governedBy ? (
         <p>
           Governed by {governedWords(data, rowLabel)}
@@ -94,8 +96,7 @@ export function DueCard({
       ) : null}
       {data.removal ? (
         <p className="font-medium text-red-900">
-          Removal:{' '}
-          {actionWords({ kind: data.removal.kind, cycles: null, hours: null }).replace(/ $/, '')}
+          Removal: {removalKindWords[data.removal.kind]}
           {data.removal.dueDate ? `, due ${formatDate(data.removal.dueDate)}` : ''}
           {data.removal.dueCsn !== null ? ` or at CSN ${formatCount(data.removal.dueCsn)}` : ''}.
         </p>

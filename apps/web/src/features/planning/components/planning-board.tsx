@@ -4,8 +4,9 @@ import {
   type PlanningItem,
   type PlanningQuery,
 } from '@emberline/contracts/planning';
-import { actionWords } from '@emberline/domain/decision-words';
+import { removalKindWords } from '@emberline/domain/decision-words';
 import { FlexRender, tableFeatures, useTable, type ColumnDef } from '@tanstack/react-table';
+import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { DueStateBadge } from '../../../components/ui/due-state-badge';
 import { Button } from '../../../components/ui/button';
@@ -14,6 +15,7 @@ import { Notice } from '../../../components/ui/notice';
 import { formatCount, formatDate, formatHours } from '../../../lib/format';
 import { planningCsvUrl, usePlanning } from '../api/planning';
 import { BookingForm } from './booking-form';
+import { DueMoveNote } from './due-move-note';
 
 const features = tableFeatures({});
 const dimensionWords = { cycles: 'cycles', hours: 'hours', days: 'days' } as const;
@@ -45,14 +47,18 @@ const columns: ColumnDef<typeof features, PlanningItem>[] = [
     header: 'Next due',
     cell: ({ row }) => {
       const next = row.original.nextInspection;
+      const move = row.original.lastMove;
       if (!next) return <span className="text-soot-600">—</span>;
       return (
-        <span className="flex flex-col">
-          <span className="font-medium">{formatDate(next.dueDate)}</span>
+        <span className="flex max-w-xs flex-col gap-0.5">
+          <span className="font-medium" data-due-date={next.dueDate ?? ''}>
+            {formatDate(next.dueDate)}
+          </span>
           <span className="font-mono text-xs">
             CSN {next.dueCsn !== null ? formatCount(next.dueCsn) : '—'} · TSN{' '}
             {next.dueTsn !== null ? formatHours(next.dueTsn) : '—'}
           </span>
+          {move ? <DueMoveNote move={move} compact /> : null}
         </span>
       );
     },
@@ -74,7 +80,7 @@ const columns: ColumnDef<typeof features, PlanningItem>[] = [
       if (!removal) return '—';
       return (
         <span className="font-medium text-red-900">
-          {actionWords({ kind: removal.kind, cycles: null, hours: null }).trim()}
+          {removalKindWords[removal.kind]}
           {removal.dueDate ? `, ${formatDate(removal.dueDate)}` : ''}
         </span>
       );
@@ -121,7 +127,10 @@ export function PlanningBoard({
   customers,
   models,
   canBook,
+  calendar,
 }: {
+  /** Shown in place of the list (with the same filters) when the board is seen as a calendar. */
+  calendar?: ReactNode;
   filters: BoardFilters;
   onFilters: (filters: BoardFilters) => void;
   customers: { id: string; label: string }[];
@@ -129,7 +138,7 @@ export function PlanningBoard({
   canBook: boolean;
 }) {
   const pageSize = 50;
-  const board = usePlanning({ ...filters, pageSize });
+  const board = usePlanning({ ...filters, pageSize }, !calendar);
   const table = useTable({
     features,
     columns,
@@ -181,8 +190,12 @@ export function PlanningBoard({
       >
         Download the list as CSV
       </a>
-      {board.error ? <Notice tone="error">{board.error.message}</Notice> : null}
-      <div className="overflow-x-auto rounded-lg border border-soot-200 bg-white">
+      {calendar ? calendar : null}
+      {calendar ? null : board.error ? <Notice tone="error">{board.error.message}</Notice> : null}
+      <div
+        hidden={Boolean(calendar)}
+        className="overflow-x-auto rounded-lg border border-soot-200 bg-white"
+      >
         <table className="w-full text-left text-sm" aria-busy={board.isFetching || undefined}>
           <caption className="sr-only">Engines by when they fall due, overdue first</caption>
           <thead className="border-b border-soot-200 bg-soot-50 text-xs uppercase tracking-wide text-soot-600">
@@ -218,7 +231,11 @@ export function PlanningBoard({
           <p className="p-4 text-sm text-soot-600">No engine matches these filters.</p>
         ) : null}
       </div>
-      <nav aria-label="Pages" className="flex items-center justify-between text-sm">
+      <nav
+        aria-label="Pages"
+        hidden={Boolean(calendar)}
+        className="flex items-center justify-between text-sm"
+      >
         <p role="status">
           {total === 0
             ? 'No engines'

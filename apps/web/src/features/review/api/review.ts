@@ -11,6 +11,7 @@ import type {
   ReviewQueueQuery,
 } from '@emberline/contracts/review';
 import { api } from '../../../lib/api-client';
+import { findingQueryOptions } from '../../../lib/finding-query';
 import { inspectionKeys } from '../../../lib/inspection-keys';
 
 const path = (id: string) => encodeURIComponent(id);
@@ -46,6 +47,11 @@ export function useJudgedAgainst(limitSetId: string | null) {
     enabled: limitSetId !== null,
     staleTime: Infinity,
   });
+}
+
+/** One finding, wherever it is (an engine's page shows the trends of its open requirements). */
+export function useFinding(findingId: string) {
+  return useQuery(findingQueryOptions(findingId));
 }
 
 /** The earlier findings of the same damage series, oldest first. */

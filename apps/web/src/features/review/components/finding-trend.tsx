@@ -1,7 +1,7 @@
 import type { Finding } from '@emberline/contracts/findings';
 import { LazyTrendChart } from '../../../components/lazy-trend-chart';
 import { formatDate } from '../../../lib/format';
-import { useDamageSeries, useJudgedAgainst } from '../api/review';
+import { useDamageSeries, useFinding, useJudgedAgainst } from '../api/review';
 
 /**
  * The trend of the damage series a finding belongs to, once it has three measurements at
@@ -39,4 +39,10 @@ export function FindingTrend({ finding }: { finding: Finding }) {
       />
     </section>
   );
+}
+
+/** The trend of the damage series of a finding known by its id (an engine's open requirement). */
+export function FindingTrendOf({ findingId }: { findingId: string }) {
+  const finding = useFinding(findingId);
+  return finding.data ? <FindingTrend finding={finding.data} /> : null;
 }
