@@ -14,7 +14,7 @@ import {
 } from '../lib/calendar';
 
 export type { CalendarView };
-import { usePlanningBetween } from '../api/planning';
+import { usePlanning, usePlanningBetween } from '../api/planning';
 import type { BoardFilters } from './planning-board';
 
 /**
@@ -39,6 +39,11 @@ export function PlanningCalendar({
   const from = days[0]!;
   const to = days.at(-1)!;
   const board = usePlanningBetween({ ...filters, from, to });
+  // Engines overdue since before the days shown would otherwise not be seen from this view.
+  const overdue = usePlanning({ ...filters, state: 'overdue', pageSize: 200 });
+  const earlier = (overdue.data?.items ?? []).filter(
+    (item) => (item.nextInspection?.dueDate ?? item.removal?.dueDate ?? to) < from,
+  );
   const entries = entriesByDay(board.data ?? []);
   const title =
     view === 'month' ? monthWords(anchor) : `Week of ${formatDate(from)} to ${formatDate(to)}`;
@@ -61,6 +66,20 @@ export function PlanningCalendar({
         </div>
       </div>
       {board.error ? <Notice tone="error">{board.error.message}</Notice> : null}
+      {earlier.length > 0 ? (
+        <Notice tone="error" title="Overdue from before these days">
+          <ul className="flex flex-wrap gap-x-4 gap-y-1">
+            {earlier.map((item) => (
+              <li key={item.engineId}>
+                <Link to={`/fleet/${item.engineId}`} className="font-mono underline">
+                  {item.serialNumber}
+                </Link>{' '}
+                due {formatDate(item.nextInspection?.dueDate ?? item.removal?.dueDate ?? null)}
+              </li>
+            ))}
+          </ul>
+        </Notice>
+      ) : null}
       <div
         className="grid grid-cols-1 gap-px overflow-hidden rounded-lg border border-soot-200 bg-soot-200 sm:grid-cols-7"
         aria-busy={board.isFetching || undefined}
