@@ -146,7 +146,43 @@ export function findEngineRow(db: DbOrTx, id: string): EngineListRow | undefined
     .get();
 }
 
-/** The engines of an owner and model (or all), each with what a list shows of it. */
+/** What the due status of an engine reads of it (a fleet's worth at once: no more). */
+export type EngineDueRow = Pick<
+  EngineListRow,
+  | 'id'
+  | 'serialNumber'
+  | 'modelId'
+  | 'modelName'
+  | 'organisationId'
+  | 'organisationName'
+  | 'registration'
+  | 'tsn'
+  | 'csn'
+  | 'tsnCsnAsOf'
+  | 'status'
+  | 'preFleetInspection'
+  | 'shopRelease'
+  | 'awaitingBeyondLimits'
+>;
+
+const dueColumns = {
+  id: columns.id,
+  serialNumber: columns.serialNumber,
+  modelId: columns.modelId,
+  modelName: columns.modelName,
+  organisationId: columns.organisationId,
+  organisationName: columns.organisationName,
+  registration: columns.registration,
+  tsn: columns.tsn,
+  csn: columns.csn,
+  tsnCsnAsOf: columns.tsnCsnAsOf,
+  status: columns.status,
+  preFleetInspection: columns.preFleetInspection,
+  shopRelease: columns.shopRelease,
+  awaitingBeyondLimits: columns.awaitingBeyondLimits,
+};
+
+/** The engines of an owner and model (or all), with what their due status reads. */
 export function findEngineRowsIn(
   db: DbOrTx,
   scope: {
@@ -154,13 +190,13 @@ export function findEngineRowsIn(
     organisationId?: string | undefined;
     modelId?: string | undefined;
   },
-): EngineListRow[] {
+): EngineDueRow[] {
   const conditions: SQL[] = [];
   if (scope.engineIds) conditions.push(inArray(engines.id, [...scope.engineIds]));
   if (scope.organisationId) conditions.push(eq(engines.organisationId, scope.organisationId));
   if (scope.modelId) conditions.push(eq(engines.modelId, scope.modelId));
   return db
-    .select(columns)
+    .select(dueColumns)
     .from(engines)
     .innerJoin(engineModels, eq(engineModels.id, engines.modelId))
     .innerJoin(organisations, eq(organisations.id, engines.organisationId))

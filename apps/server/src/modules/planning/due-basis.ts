@@ -9,7 +9,7 @@ import type { DbOrTx } from '../../db/client';
 import { queueMail } from '../../lib/email/outbox';
 import { publicOrigin } from '../auth/auth.service';
 import { findEngineModel, listModelRows } from '../engine-models/engine-models.repository';
-import { findEngineRowsIn, type EngineListRow } from '../engines/engines.repository';
+import { findEngineRowsIn, type EngineDueRow } from '../engines/engines.repository';
 import { listActiveHomeUsers } from '../users/users.repository';
 import {
   bookingsOf,
@@ -110,7 +110,7 @@ const engineRowsOf = (db: DbOrTx, scope: EngineScope) =>
 export function computeDueBases(
   db: DbOrTx,
   scope: EngineScope,
-  rows: readonly EngineListRow[] = engineRowsOf(db, scope),
+  rows: readonly EngineDueRow[] = engineRowsOf(db, scope),
 ): Map<string, DueBasis> {
   const inspections = dueInspections(db, scope);
   const utilization = groupBy(utilizationOf(db, scope), (record) => record.engineId);
@@ -200,7 +200,7 @@ export function refreshDue(
 function alertBookingOverrun(
   ctx: Pick<AppContext, 'config' | 'now'>,
   tx: DbOrTx,
-  engine: EngineListRow,
+  engine: EngineDueRow,
   booking: { plannedDate: string; note: string },
   move: DueMove,
 ): void {
@@ -226,7 +226,7 @@ function alertBookingOverrun(
 export function readDueBases(
   ctx: Pick<AppContext, 'now'>,
   db: DbOrTx,
-  rows: readonly EngineListRow[],
+  rows: readonly EngineDueRow[],
   scope: EngineScope,
 ): Map<string, { basis: DueBasis; lastMove: DueMove | null }> {
   const kept = new Map(

@@ -25,7 +25,7 @@ import { recordScope } from '../../http/record-access';
 import { writeCsv } from '../../lib/csv';
 import { appendAudit } from '../audit/audit.repository';
 import { listRules } from '../limit-sets/limit-sets.repository';
-import { findEngineRowsIn, type EngineListRow } from '../engines/engines.repository';
+import { findEngineRowsIn, type EngineDueRow } from '../engines/engines.repository';
 import { createEnginesService } from '../engines/engines.service';
 import { groupBy, readDueBases } from './due-basis';
 import { bookingsOf, seriesPoints, upsertBooking, type EngineScope } from './planning.repository';
@@ -107,7 +107,7 @@ const dueStateRank: Record<DueState, number> = {
 
 /** An engine's due state on today's date, with the basis it was read from. */
 interface Reading {
-  engine: EngineListRow;
+  engine: EngineDueRow;
   basis: DueBasis;
   lastMove: DueMove | null;
   status: ReturnType<typeof dueStateOn>;
@@ -121,11 +121,7 @@ export function createPlanningService(ctx: AppContext) {
   const today = () => todayIn(config.timeZone, ctx.now());
 
   /** The due state of engines (DESIGN §5.6) on today's date, from their kept bases. */
-  function readingsOf(
-    rows: readonly EngineListRow[],
-    scope: EngineScope,
-    day = today(),
-  ): Reading[] {
+  function readingsOf(rows: readonly EngineDueRow[], scope: EngineScope, day = today()): Reading[] {
     const bases = readDueBases(ctx, db, rows, scope);
     return rows.map((engine) => {
       const { basis, lastMove } = bases.get(engine.id)!;
@@ -224,7 +220,7 @@ export function createPlanningService(ctx: AppContext) {
       );
   }
 
-  const itemOf = (engine: EngineListRow, due: EngineDue): PlanningItem => ({
+  const itemOf = (engine: EngineDueRow, due: EngineDue): PlanningItem => ({
     ...due,
     engineId: engine.id,
     serialNumber: engine.serialNumber,

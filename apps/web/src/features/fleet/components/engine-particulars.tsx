@@ -15,6 +15,17 @@ export function EngineParticulars({ engine }: { engine: EngineDetail }) {
     ['Cycles per day', formatRate(engine.utilization.cyclesPerDay, 'cycles/day')],
     ['Hours per day', formatRate(engine.utilization.hoursPerDay, 'h/day')],
   ];
+  // What the standard interval runs from when no inspection has viewed a row fully.
+  const baselines: [string, { date: string; csn: number; tsn: number } | null][] = [
+    ['Last shop release', engine.shopRelease],
+    ['Last inspection before the fleet', engine.preFleetInspection],
+  ];
+  for (const [label, baseline] of baselines)
+    if (baseline)
+      items.push([
+        label,
+        `${formatDate(baseline.date)} · CSN ${formatCount(baseline.csn)} · TSN ${formatHours(baseline.tsn)} h`,
+      ]);
   return (
     <>
       <dl className="grid grid-cols-2 gap-x-6 gap-y-3 text-sm sm:grid-cols-3 lg:grid-cols-5">
