@@ -35,6 +35,7 @@ const architecture = {
       { type: 'server-db', pattern: 'apps/server/src/db' },
       { type: 'server-images', pattern: 'apps/server/src/lib/images' },
       { type: 'server-email', pattern: 'apps/server/src/lib/email' },
+      { type: 'server-pdf', pattern: 'apps/server/src/lib/pdf' },
       { type: 'server-module', pattern: 'apps/server/src/modules/*', capture: ['module'] },
       { type: 'server', pattern: 'apps/server/src' },
       { type: 'package', pattern: 'packages/*', capture: ['package'] },
@@ -85,6 +86,11 @@ const architecture = {
             from: { element: { types: { noneOf: ['server-images'] } } },
             disallow: { to: { module: { source: 'sharp' } } },
             message: 'Only lib/images calls sharp: add what you need there',
+          },
+          {
+            from: { element: { types: { noneOf: ['server-pdf'] } } },
+            disallow: { to: { module: { source: 'pdfmake' } } },
+            message: 'Only lib/pdf calls pdfmake: hand it a document definition',
           },
           {
             from: { element: { types: { noneOf: ['server-email'] } } },

@@ -135,4 +135,22 @@ test('the engineer works through VT3-D0201 from the queue: signs each finding (o
   await expect(decisions.locator('tbody tr')).toHaveCount(5);
   await expect(decisions).toContainText('Concession INVENTED-TCH-0042');
   await expect(decisions).toContainText('Released (revision 1) by Priya Castellane');
+
+  // The signed report downloads: a PDF named for the engine and the day.
+  const download = page.waitForEvent('download');
+  await decisions
+    .getByRole('link', { name: 'Download the signed report, revision 1 (PDF)' })
+    .click();
+  const file = await download;
+  expect(file.suggestedFilename()).toMatch(/^emberline-VT3-D0201-\d{4}-\d{2}-\d{2}-rev1\.pdf$/);
+  const bytes = Buffer.concat(await (await file.createReadStream()).toArray());
+  expect(bytes.subarray(0, 5).toString()).toBe('%PDF-');
+
+  // Another customer gets nothing of it.
+  await page.goto('/fleet');
+  await page.getByRole('button', { name: 'Sign out' }).click();
+  await expect(page.getByRole('heading', { name: 'Sign in' })).toBeVisible();
+  await signIn(page, 'customer@demo.test');
+  const refused = await page.request.get(`/api/v1/inspections/${D0201}/report`);
+  expect(refused.status()).toBe(404);
 });

@@ -22,6 +22,7 @@ import { imagesRoutes } from './modules/images/images.routes';
 import { inspectionsRoutes } from './modules/inspections/inspections.routes';
 import { reviewRoutes } from './modules/review/review.routes';
 import { planningRoutes } from './modules/planning/planning.routes';
+import { reportsRoutes } from './modules/reports/reports.routes';
 import { healthRoutes } from './modules/health/health.routes';
 import { installationRoutes } from './modules/installation/installation.routes';
 import { openApiRoutes } from './modules/openapi/openapi.routes';
@@ -59,6 +60,7 @@ export function createApiRouter(ctx: AppContext): Router {
   api.use(recordsRoutes(ctx));
   api.use(reviewRoutes(ctx));
   api.use(planningRoutes(ctx));
+  api.use(reportsRoutes(ctx));
   api.use(calculationsRoutes());
   api.use(openApiRoutes());
   return api;

@@ -13,6 +13,8 @@ export const recordsVerificationSchema = z.object({
     dispositions: z.number().int(),
     /** Originals of signed findings hashed again. */
     originals: z.number().int(),
+    /** Stored report PDFs hashed again and compared with their release signatures. */
+    reports: z.number().int(),
   }),
   /** The last record of the chain, as reports print it, so that a cut-off tail shows. */
   head: z.object({ seq: z.number().int(), sha256: z.string() }).nullable(),

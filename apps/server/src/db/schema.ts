@@ -676,3 +676,31 @@ export const jobRuns = sqliteTable('job_runs', {
   lastDay: text().notNull(),
   ranAt: integer({ mode: 'timestamp_ms' }).notNull(),
 });
+
+/**
+ * The signed reports of released inspections: the PDF's bytes as they were mailed and signed
+ * (never regenerated), their hash (the release signature covers it), the revision and the
+ * verification code anyone may check at /verify/<code>. SQLite refuses changes to a row.
+ */
+export const reports = sqliteTable(
+  'reports',
+  {
+    id: text().primaryKey(),
+    inspectionId: text()
+      .notNull()
+      .references(() => inspections.id),
+    revision: integer().notNull(),
+    pdf: blob({ mode: 'buffer' }).notNull(),
+    pdfSha256: text().notNull(),
+    /** At least 128 random bits, base64url: what a reader types or follows to check the report. */
+    verificationCode: text().notNull(),
+    releaseSignatureId: text()
+      .notNull()
+      .references(() => signatures.id),
+    createdAt: integer({ mode: 'timestamp_ms' }).notNull(),
+  },
+  (table) => [
+    uniqueIndex('reports_inspection_revision_idx').on(table.inspectionId, table.revision),
+    uniqueIndex('reports_code_idx').on(table.verificationCode),
+  ],
+);

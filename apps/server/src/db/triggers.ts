@@ -111,6 +111,8 @@ export const triggers: Record<string, string> = {
   row_coverage_locked_insert: `BEFORE INSERT ON row_coverage WHEN ${stateOf('NEW.inspection_id')} BEGIN ${locked}; END`,
   row_coverage_locked_update: `BEFORE UPDATE ON row_coverage WHEN ${stateOf('OLD.inspection_id')} BEGIN ${locked}; END`,
   row_coverage_locked_delete: `BEFORE DELETE ON row_coverage WHEN ${stateOf('OLD.inspection_id')} BEGIN ${locked}; END`,
+  reports_no_update: `BEFORE UPDATE ON reports BEGIN SELECT RAISE(ABORT, 'a signed report never changes; a correction issues a new revision'); END`,
+  reports_no_delete: `BEFORE DELETE ON reports BEGIN SELECT RAISE(ABORT, 'a signed report never changes; a correction issues a new revision'); END`,
   dispositions_no_delete: `BEFORE DELETE ON dispositions
     BEGIN SELECT RAISE(ABORT, 'dispositions are superseded or withdrawn, never deleted'); END`,
   dispositions_state_only: `BEFORE UPDATE ON dispositions WHEN NOT (

@@ -68,6 +68,7 @@ export const routePolicy = {
   'POST /findings/:id/dispositions': 'review:inspection',
   'POST /inspections/:id/outcome': 'review:inspection',
   'POST /inspections/:id/release': 'review:inspection',
+  'GET /inspections/:id/report': 'read:inspection',
   'POST /inspections/:id/images': 'create:inspection',
   'PATCH /images/:id': 'create:inspection',
   'GET /images/:id/thumbnail': 'read:inspection',

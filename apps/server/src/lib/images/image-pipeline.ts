@@ -203,3 +203,38 @@ export async function renderFull(original: string, target: string): Promise<void
 export async function rasteriseSvg(svg: string, quality = 86): Promise<Buffer> {
   return sharp(Buffer.from(svg)).flatten({ background: '#000' }).jpeg({ quality }).toBuffer();
 }
+
+/** Renders an SVG drawing (a stage ring) to a PNG of the given width, for the report. */
+export async function svgToPng(svg: string, width: number): Promise<Buffer> {
+  return sharp(Buffer.from(svg)).resize({ width }).png().toBuffer();
+}
+
+/**
+ * Draws an overlay (SVG in the original image's pixel frame) over a rendition of that image, for
+ * the report: the rendition's size is kept, the overlay scaled to it.
+ */
+export async function drawOverJpeg(
+  rendition: Buffer,
+  overlaySvg: string,
+  originalWidth: number,
+  originalHeight: number,
+): Promise<{ jpeg: Buffer; width: number; height: number }> {
+  const base = sharp(rendition);
+  const { width = originalWidth, height = originalHeight } = await base.metadata();
+  const scaled = overlaySvg.replace(
+    /^<svg([^>]*?)>/,
+    (_match, attrs: string) =>
+      `<svg${attrs
+        .replace(/\swidth="[^"]*"/, '')
+        .replace(/\sheight="[^"]*"/, '')
+        .replace(
+          /\sviewBox="[^"]*"/,
+          '',
+        )} width="${width}" height="${height}" viewBox="0 0 ${originalWidth} ${originalHeight}">`,
+  );
+  const jpeg = await base
+    .composite([{ input: Buffer.from(scaled), top: 0, left: 0 }])
+    .jpeg({ quality: 82 })
+    .toBuffer();
+  return { jpeg, width, height };
+}

@@ -3,6 +3,7 @@ import { GENESIS_SHA256 } from '@emberline/domain/signature-content';
 import type { AppContext } from '../../context';
 import { auditRowHash } from '../../lib/records/audit-hash';
 import { listAuditChainAfter, listUnchainedAudit } from '../audit/audit.repository';
+import { checkReports } from '../reports/report-check';
 import { checkSignedDispositions } from '../review/disposition-check';
 import { listSignaturesAfter } from './records.repository';
 import { checkSignatureChain, macOf, type RecordProblem } from './signature-chain';
@@ -55,6 +56,7 @@ export function createRecordsService(ctx: Pick<AppContext, 'db' | 'recordsKey' |
       const problems: RecordProblem[] = [...chain.problems];
       const auditRows = verifyAudit(problems);
       const signed = checkSignedDispositions(ctx.db, problems);
+      const reports = checkReports(ctx.db, problems);
       for (const [sha256, label] of signed.originals) {
         const file = ctx.storage.originalPath(sha256);
         const actual = (await ctx.storage.exists(file)) ? await ctx.storage.hash(file) : null;
@@ -72,6 +74,7 @@ export function createRecordsService(ctx: Pick<AppContext, 'db' | 'recordsKey' |
           auditRows,
           dispositions: signed.checked,
           originals: signed.originals.size,
+          reports,
         },
         head: head && { seq: head.seq, sha256: head.sha256 },
         keyInsideDataDir: ctx.recordsKey.insideDataDir,

@@ -1,4 +1,7 @@
+import { createHash } from 'node:crypto';
 import { dayWords } from '@emberline/domain/dates';
+import { removalKindWords } from '@emberline/domain/decision-words';
+import { dueWords } from '@emberline/domain/due-status';
 import type { InspectionFlag } from '@emberline/contracts/inspections';
 import type { BeyondAction, Category, FindingEvaluation } from '@emberline/contracts/limits';
 import {
@@ -46,6 +49,10 @@ import type { SignatureRecord } from '../records/signature-chain';
 import { findUserById } from '../users/users.repository';
 import { alertRemovalOrdered } from './review-alerts';
 import { refreshDue } from '../planning/due-basis';
+import { createPlanningService } from '../planning/planning.service';
+import { buildReport } from '../reports/report-builder';
+import { insertReport } from '../reports/reports.repository';
+import { newVerificationCode, verifyUrlOf } from '../reports/reports.service';
 import {
   changedFinding,
   currentDisposition,
@@ -163,6 +170,7 @@ export function createReviewService(
 ) {
   const { db } = ctx;
   const checkPassword = options.confirmPassword ?? confirmPassword;
+  const planning = createPlanningService(ctx);
   const today = () => ctx.now().toISOString().slice(0, 10);
 
   /** The signer as the record names them, once their authority for the model is checked (403). */
@@ -684,13 +692,37 @@ export function createReviewService(
         );
       const signer = signerFor(principal, inspection);
       await checkPassword(ctx, principal, password, meta, 'signing needs it again');
+      // The report is rendered first, outside the write: a report that cannot be made stops the
+      // release as a whole. The release signature then covers the bytes' hash.
+      const revision = inspection.releaseRevision + 1;
+      const verificationCode = newVerificationCode();
+      const due = planning.engineDue(principal, inspection.engineId);
+      const pdf = await buildReport(ctx, {
+        inspectionId: id,
+        review: this.review(principal, id),
+        revision,
+        verificationCode,
+        verifyUrl: verifyUrlOf(ctx, verificationCode),
+        nextDue: [
+          dueWords(due.nextInspection),
+          due.removal
+            ? `${removalKindWords[due.removal.kind]}${due.removal.dueDate ? `, due ${dueWords(due.removal)}` : ''}`
+            : null,
+        ]
+          .filter(Boolean)
+          .join('; '),
+      });
+      const pdfSha256 = createHash('sha256').update(pdf).digest('hex');
       const now = ctx.now();
       inTransaction(db, (tx) => {
         const fresh = findInspection(tx, id)!;
-        if (fresh.state !== 'dispositioned' || !fresh.outcomeSignatureId)
+        if (
+          fresh.state !== 'dispositioned' ||
+          !fresh.outcomeSignatureId ||
+          fresh.releaseRevision + 1 !== revision
+        )
           throw AppError.conflict('The outcome changed a moment ago: reload and sign again.');
         const outcome = findSignatures(tx, [fresh.outcomeSignatureId])[0]!;
-        const revision = fresh.releaseRevision + 1;
         const signature = appendSignature(ctx, tx, {
           kind: 'release',
           subjectId: id,
@@ -698,8 +730,18 @@ export function createReviewService(
           content: releaseContent({
             inspectionId: id,
             outcomeSignatureSha256: outcome.sha256,
-            report: null,
+            report: { pdfSha256, revision },
           }),
+        });
+        insertReport(tx, {
+          id: newId(),
+          inspectionId: id,
+          revision,
+          pdf,
+          pdfSha256,
+          verificationCode,
+          releaseSignatureId: signature.id,
+          createdAt: now,
         });
         setInspectionState(tx, id, 'released', {
           releaseSignatureId: signature.id,

@@ -2,6 +2,7 @@ import { cautions } from '@emberline/contracts/cautions';
 import { decisionWords } from '@emberline/domain/decision-words';
 import { LoadingLine } from '../../../components/ui/page';
 import { Notice } from '../../../components/ui/notice';
+import { apiUrl } from '../../../lib/api-client';
 import { formatDateTime } from '../../../lib/format';
 import { useInspectionReview } from '../api/review';
 
@@ -72,6 +73,26 @@ export function DecisionsSummary({ inspectionId }: { inspectionId: string }) {
           {formatDateTime(release.signature.signedAt)}; signature{' '}
           <span className="font-mono text-xs">{release.signature.sha256.slice(0, 16)}…</span>
         </p>
+      ) : null}
+      {review.data.releases.length > 0 ? (
+        <ul className="flex flex-col gap-1" aria-label="Signed reports">
+          {[...review.data.releases]
+            .sort((a, b) => b.revision - a.revision)
+            .map((item) => (
+              <li key={item.revision}>
+                <a
+                  href={apiUrl(
+                    `/inspections/${encodeURIComponent(inspectionId)}/report?revision=${item.revision}`,
+                  )}
+                  download
+                  className="font-medium text-ember-800 underline"
+                >
+                  Download the signed report, revision {item.revision} (PDF)
+                </a>
+                {item.current ? '' : ' (replaced by a later revision)'}
+              </li>
+            ))}
+        </ul>
       ) : null}
       <p className="text-xs text-soot-600">{cautions.dispositions}</p>
     </div>

@@ -1,0 +1,143 @@
+import { createHash } from 'node:crypto';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { cautions } from '@emberline/contracts/cautions';
+import type { InspectionReview } from '@emberline/contracts/review';
+import { decisionWords } from '@emberline/domain/decision-words';
+import { verdictStyles } from '@emberline/drawings/verdict-style';
+import { rawConnection } from '../../db/client';
+import { demoAccounts, startTestApp, type TestApp } from '../../../test/test-app';
+
+let t: TestApp;
+beforeAll(async () => {
+  // The demo history releases VT3-D0103's first two inspections through the review service, so
+  // their reports are made by the same path a release takes.
+  t = await startTestApp({ env: { DEMO_IMAGES: '1' } });
+});
+afterAll(() => t.close());
+
+/** The text of every page, as an independent reader (pdf.js) extracts it. */
+async function pdfText(bytes: Buffer): Promise<{ pages: number; text: string }> {
+  // pdf.js 6 expects Promise.withResolvers, which Node 20 lacks.
+  const promise = Promise as unknown as { withResolvers?: () => unknown };
+  promise.withResolvers ??= () => {
+    let resolve!: (value: unknown) => void;
+    let reject!: (reason: unknown) => void;
+    const made = new Promise((yes, no) => {
+      resolve = yes;
+      reject = no;
+    });
+    return { promise: made, resolve, reject };
+  };
+  const { getDocument } = await import('pdfjs-dist/legacy/build/pdf.mjs');
+  const document = await getDocument({ data: new Uint8Array(bytes), useSystemFonts: false })
+    .promise;
+  const pages: string[] = [];
+  for (let number = 1; number <= document.numPages; number += 1) {
+    const content = await (await document.getPage(number)).getTextContent();
+    pages.push(content.items.map((item) => ('str' in item ? item.str : '')).join(' '));
+  }
+  return { pages: document.numPages, text: pages.join('\n').replace(/\s+/g, ' ') };
+}
+
+const download = (id: string, cookie: string) =>
+  request(t.app)
+    .get(`/api/v1/inspections/${id}/report`)
+    .set('Cookie', cookie)
+    .buffer(true)
+    .parse((response, done) => {
+      const chunks: Buffer[] = [];
+      response.on('data', (chunk: Buffer) => chunks.push(chunk));
+      response.on('end', () => done(null, Buffer.concat(chunks)));
+    });
+
+describe('the signed report of a released inspection', () => {
+  it('holds the engine, every verdict and decision, the cautions and its verification code, and its hash is signed', async () => {
+    const customer = await t.signIn(demoAccounts.customer);
+    const response = await download('inspection-d0103-h2', customer);
+    expect(response.status).toBe(200);
+    expect(response.headers['content-type']).toBe('application/pdf');
+    const bytes = response.body as Buffer;
+    expect(bytes.subarray(0, 5).toString()).toBe('%PDF-');
+
+    const sqlite = rawConnection(t.runtime.ctx.db);
+    const stored = sqlite
+      .prepare(
+        `SELECT r.pdf_sha256 AS sha, r.verification_code AS code, s.content AS content
+         FROM reports r JOIN signatures s ON s.id = r.release_signature_id
+         WHERE r.inspection_id = 'inspection-d0103-h2'`,
+      )
+      .get() as { sha: string; code: string; content: string };
+    const sha = createHash('sha256').update(bytes).digest('hex');
+    expect(sha).toBe(stored.sha);
+    expect(JSON.parse(stored.content).report).toEqual({ pdfSha256: sha, revision: 1 });
+    expect(stored.code).toMatch(/^[A-Za-z0-9_-]{22}$/);
+
+    const { text, pages } = await pdfText(bytes);
+    expect(pages).toBeGreaterThanOrEqual(2);
+    expect(text).toContain('VT3-D0103');
+    expect(text).toContain(stored.code);
+    expect(text).toContain(cautions.short.replace(/\s+/g, ' '));
+    expect(text).toContain(`Page 1 of ${pages}`);
+    const engineer = await t.signIn(demoAccounts.engineer);
+    const review = (
+      await request(t.app)
+        .get('/api/v1/inspections/inspection-d0103-h2/dispositions')
+        .set('Cookie', engineer)
+    ).body as InspectionReview;
+    const current = review.items.filter((item) => item.current);
+    expect(current.length).toBeGreaterThan(0);
+    for (const item of current) {
+      expect(text).toContain(`F${item.findingNumber}`);
+      expect(text).toContain(decisionWords(item.decision).slice(0, 30));
+      // A hash wraps in its table cell: compared without the breaks.
+      expect(text.replace(/ /g, '')).toContain(item.signature.sha256);
+    }
+    expect(text).toContain(verdictStyles['repeat-inspection'].label);
+  });
+
+  it('is refused to another customer (404), and does not exist before release (404)', async () => {
+    const other = await t.signIn(demoAccounts.customer2);
+    expect((await download('inspection-d0103-h2', other)).status).toBe(404);
+    const engineer = await t.signIn(demoAccounts.engineer);
+    const list = await request(t.app)
+      .get('/api/v1/inspections')
+      .query({ engineId: 'engine-d0201' })
+      .set('Cookie', engineer);
+    const submitted = (list.body.items as { id: string; state: string }[]).find(
+      (item) => item.state === 'submitted',
+    )!;
+    expect((await download(submitted.id, engineer)).status).toBe(404);
+  });
+
+  it('refuses a change to a stored report, and the records check names one made behind its back', async () => {
+    const sqlite = rawConnection(t.runtime.ctx.db);
+    expect(() =>
+      sqlite
+        .prepare("UPDATE reports SET revision = 9 WHERE inspection_id = 'inspection-d0103-h1'")
+        .run(),
+    ).toThrow(/a signed report never changes/);
+    const admin = await t.signIn(demoAccounts.admin);
+    const before = await request(t.app).get('/api/v1/records/verification').set('Cookie', admin);
+    expect(before.body).toMatchObject({ ok: true, checked: { reports: 2 } });
+
+    // One byte changed with the trigger out of the way, as someone with the file could.
+    sqlite.exec('DROP TRIGGER reports_no_update');
+    const row = sqlite
+      .prepare("SELECT id, pdf FROM reports WHERE inspection_id = 'inspection-d0103-h1'")
+      .get() as { id: string; pdf: Buffer };
+    const changed = Buffer.from(row.pdf);
+    changed[changed.length - 20] = changed[changed.length - 20]! ^ 1;
+    sqlite.prepare('UPDATE reports SET pdf = ? WHERE id = ?').run(changed, row.id);
+    const after = await request(t.app).get('/api/v1/records/verification').set('Cookie', admin);
+    expect(after.body.ok).toBe(false);
+    expect(after.body.problems).toEqual([
+      expect.objectContaining({
+        id: row.id,
+        message: expect.stringMatching(
+          /^Report revision 1 of inspection inspection-d0103-h1: its bytes are not the ones release signature \d+ covers\.$/,
+        ),
+      }),
+    ]);
+  });
+});
