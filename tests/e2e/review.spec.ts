@@ -146,6 +146,19 @@ test('the engineer works through VT3-D0201 from the queue: signs each finding (o
   const bytes = Buffer.concat(await (await file.createReadStream()).toArray());
   expect(bytes.subarray(0, 5).toString()).toBe('%PDF-');
 
+  // Its code checks out on the public page, which shows the engine, the day and the revision only.
+  await decisions.getByRole('link', { name: /check it \(code / }).click();
+  await expect(page.getByRole('heading', { name: 'Check a report' })).toBeVisible();
+  await expect(page.getByText('Genuine and current', { exact: true })).toBeVisible();
+  await expect(page.getByTestId('verified-report')).toContainText('VT3-D0201');
+  await page.getByLabel(/Is my copy the signed one/).setInputFiles({
+    name: 'report.pdf',
+    mimeType: 'application/pdf',
+    buffer: bytes,
+  });
+  await expect(page.getByText('The file is the signed report, byte for byte.')).toBeVisible();
+  expect(await seriousViolations(page), 'report check page').toEqual([]);
+
   // Another customer gets nothing of it.
   await page.goto('/fleet');
   await page.getByRole('button', { name: 'Sign out' }).click();

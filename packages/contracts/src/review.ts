@@ -171,6 +171,8 @@ export const inspectionReviewSchema = z.object({
       revision: z.number().int(),
       current: z.boolean(),
       signature: signatureSummarySchema,
+      /** The code printed on that revision's report, to check it at /verify/<code>. */
+      verificationCode: z.string().nullable(),
     }),
   ),
   withdrawals: z.array(

@@ -69,6 +69,8 @@ export const routePolicy = {
   'POST /inspections/:id/outcome': 'review:inspection',
   'POST /inspections/:id/release': 'review:inspection',
   'GET /inspections/:id/report': 'read:inspection',
+  'GET /verify/:code': 'public',
+  'POST /verify/:code/file': 'public',
   'POST /inspections/:id/images': 'create:inspection',
   'PATCH /images/:id': 'create:inspection',
   'GET /images/:id/thumbnail': 'read:inspection',

@@ -21,6 +21,10 @@ const router = createBrowserRouter([
     lazy: async () => ({ Component: (await import('./routes/reset-password')).ResetPasswordRoute }),
   },
   {
+    path: '/verify/:code',
+    lazy: async () => ({ Component: (await import('./routes/verify')).VerifyRoute }),
+  },
+  {
     path: '/accept-invitation',
     lazy: async () => ({
       Component: (await import('./routes/accept-invitation')).AcceptInvitationRoute,

@@ -49,6 +49,15 @@ export function sealSignature(
   return { ...header, id: input.id, content: input.content, sha256, mac: macOf(key, sha256) };
 }
 
+/** Whether one record still hashes to what was signed and carries the records key's seal. */
+export function sealHolds(key: Buffer, record: SignatureRecord): boolean {
+  return (
+    canonicalSha256(record.content) === record.contentSha256 &&
+    canonicalSha256(signatureHeader(record)) === record.sha256 &&
+    macOf(key, record.sha256) === record.mac
+  );
+}
+
 export interface RecordProblem {
   kind: 'signature' | 'audit';
   id: string;

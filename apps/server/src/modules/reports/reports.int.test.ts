@@ -110,6 +110,37 @@ describe('the signed report of a released inspection', () => {
     expect((await download(submitted.id, engineer)).status).toBe(404);
   });
 
+  it('tells anyone with its code whether it is genuine and current, with three facts only, and whether a file is it', async () => {
+    const sqlite = rawConnection(t.runtime.ctx.db);
+    const stored = sqlite
+      .prepare(
+        "SELECT verification_code AS code, pdf FROM reports WHERE inspection_id = 'inspection-d0103-h1'",
+      )
+      .get() as { code: string; pdf: Buffer };
+    const answer = await request(t.app).get(`/api/v1/verify/${stored.code}`);
+    expect(answer.status).toBe(200);
+    expect(answer.body).toEqual({
+      genuine: true,
+      current: true,
+      engineSerialNumber: 'VT3-D0103',
+      inspectionDate: expect.stringMatching(/^\d{4}-\d{2}-\d{2}$/),
+      revision: 1,
+      message: expect.stringMatching(/^Genuine and current/),
+    });
+    expect((await request(t.app).get('/api/v1/verify/AAAAAAAAAAAAAAAAAAAAAA')).status).toBe(404);
+    expect((await request(t.app).get('/api/v1/verify/short')).status).toBe(400);
+
+    const file = (bytes: Buffer) =>
+      request(t.app)
+        .post(`/api/v1/verify/${stored.code}/file`)
+        .set('Content-Type', 'application/pdf')
+        .send(bytes);
+    expect((await file(stored.pdf)).body).toMatchObject({ matches: true });
+    const changed = Buffer.from(stored.pdf);
+    changed[100] = changed[100]! ^ 1;
+    expect((await file(changed)).body).toMatchObject({ matches: false });
+  });
+
   it('refuses a change to a stored report, and the records check names one made behind its back', async () => {
     const sqlite = rawConnection(t.runtime.ctx.db);
     expect(() =>
@@ -129,6 +160,16 @@ describe('the signed report of a released inspection', () => {
     const changed = Buffer.from(row.pdf);
     changed[changed.length - 20] = changed[changed.length - 20]! ^ 1;
     sqlite.prepare('UPDATE reports SET pdf = ? WHERE id = ?').run(changed, row.id);
+    const code = (
+      sqlite.prepare('SELECT verification_code AS code FROM reports WHERE id = ?').get(row.id) as {
+        code: string;
+      }
+    ).code;
+    const verified = await request(t.app).get(`/api/v1/verify/${code}`);
+    expect(verified.body).toMatchObject({
+      genuine: false,
+      message: expect.stringMatching(/^This report does not check out/),
+    });
     const after = await request(t.app).get('/api/v1/records/verification').set('Cookie', admin);
     expect(after.body.ok).toBe(false);
     expect(after.body.problems).toEqual([
@@ -139,5 +180,12 @@ describe('the signed report of a released inspection', () => {
         ),
       }),
     ]);
+  });
+
+  it('stops a flood of checks from one address (429)', async () => {
+    let status = 200;
+    for (let attempt = 0; attempt < 40 && status !== 429; attempt += 1)
+      status = (await request(t.app).get('/api/v1/verify/AAAAAAAAAAAAAAAAAAAAAA')).status;
+    expect(status).toBe(429);
   });
 });

@@ -1,6 +1,6 @@
 import { and, desc, eq } from 'drizzle-orm';
 import type { DbOrTx } from '../../db/client';
-import { reports, signatures } from '../../db/schema';
+import { engines, inspections, reports, signatures } from '../../db/schema';
 
 export type ReportRow = typeof reports.$inferSelect;
 
@@ -43,4 +43,30 @@ export function reportsWithReleases(db: DbOrTx) {
     .from(reports)
     .leftJoin(signatures, eq(signatures.id, reports.releaseSignatureId))
     .all();
+}
+
+/** A report by its verification code, with its inspection's engine and date. */
+export function findReportByCode(db: DbOrTx, code: string) {
+  return db
+    .select({
+      id: reports.id,
+      inspectionId: reports.inspectionId,
+      revision: reports.revision,
+      pdf: reports.pdf,
+      pdfSha256: reports.pdfSha256,
+      releaseSignatureId: reports.releaseSignatureId,
+      inspectionDate: inspections.date,
+      releaseRevision: inspections.releaseRevision,
+      engineSerialNumber: engines.serialNumber,
+    })
+    .from(reports)
+    .innerJoin(inspections, eq(inspections.id, reports.inspectionId))
+    .innerJoin(engines, eq(engines.id, inspections.engineId))
+    .where(eq(reports.verificationCode, code))
+    .get();
+}
+
+/** The latest revision of an inspection's report. */
+export function latestRevision(db: DbOrTx, inspectionId: string): number {
+  return findReport(db, inspectionId)?.revision ?? 0;
 }

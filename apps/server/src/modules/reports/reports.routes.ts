@@ -1,5 +1,12 @@
-import { Router } from 'express';
+import express, { Router } from 'express';
 import { z } from 'zod';
+import {
+  reportFileCheckSchema,
+  reportVerificationSchema,
+  verificationCodeParamsSchema,
+} from '@emberline/contracts/reports';
+import { AppError } from '../../http/app-error';
+import { requestMeta } from '../../http/request-meta';
 import { idParamsSchema } from '@emberline/contracts/users';
 import type { AppContext } from '../../context';
 import { principalOf } from '../../http/principal';
@@ -33,5 +40,44 @@ export function reportsRoutes(ctx: AppContext): Router {
       res.send(bytes);
     },
   );
+  // Anyone holding a report may check it: no sign-in, limited per address.
+  route(
+    router,
+    'GET /verify/:code',
+    {
+      summary:
+        'Whether the report of a verification code is genuine and current, with its engine, day and revision',
+      params: verificationCodeParamsSchema,
+      response: reportVerificationSchema,
+    },
+    (req, res) => {
+      res.json(reports.verify(res.locals.params.code, requestMeta(req).ip));
+    },
+  );
+  route(
+    router,
+    'POST /verify/:code/file',
+    {
+      summary: 'Whether a PDF (the body) is, byte for byte, the report of a verification code',
+      params: verificationCodeParamsSchema,
+      response: reportFileCheckSchema,
+    },
+    pdfBody,
+    (req, res) => {
+      if (!Buffer.isBuffer(req.body))
+        throw new AppError(
+          415,
+          'unsupported_media_type',
+          'Send the PDF file itself, as application/pdf',
+        );
+      res.json(reports.checkFile(res.locals.params.code, requestMeta(req).ip, req.body));
+    },
+  );
   return router;
 }
+
+// The PDF itself is the body of a file check.
+const pdfBody = express.raw({
+  type: ['application/pdf', 'application/octet-stream'],
+  limit: '60mb',
+});

@@ -51,7 +51,7 @@ import { alertRemovalOrdered } from './review-alerts';
 import { refreshDue } from '../planning/due-basis';
 import { createPlanningService } from '../planning/planning.service';
 import { buildReport } from '../reports/report-builder';
-import { insertReport } from '../reports/reports.repository';
+import { findReport, insertReport } from '../reports/reports.repository';
 import { newVerificationCode, verifyUrlOf } from '../reports/reports.service';
 import {
   changedFinding,
@@ -350,6 +350,7 @@ export function createReviewService(
           revision: index + 1,
           current: signature.id === inspection.releaseSignatureId,
           signature: toSignatureSummary(signature),
+          verificationCode: findReport(db, inspection.id, index + 1)?.verificationCode ?? null,
         })),
         withdrawals: withdrawals.map((signature) => {
           const content = signature.content as ReturnType<typeof withdrawalContent>;
@@ -429,7 +430,15 @@ export function createReviewService(
               ]
             : [],
         releases: latest
-          ? [{ revision: releases.length, current: true, signature: toSignatureSummary(latest) }]
+          ? [
+              {
+                revision: releases.length,
+                current: true,
+                signature: toSignatureSummary(latest),
+                verificationCode:
+                  findReport(db, inspection.id, releases.length)?.verificationCode ?? null,
+              },
+            ]
           : [],
         withdrawals: [],
         recurrences: [],

@@ -2,6 +2,7 @@ import { cautions } from '@emberline/contracts/cautions';
 import { decisionWords } from '@emberline/domain/decision-words';
 import { LoadingLine } from '../../../components/ui/page';
 import { Notice } from '../../../components/ui/notice';
+import { Link } from 'react-router-dom';
 import { apiUrl } from '../../../lib/api-client';
 import { formatDateTime } from '../../../lib/format';
 import { useInspectionReview } from '../api/review';
@@ -90,6 +91,17 @@ export function DecisionsSummary({ inspectionId }: { inspectionId: string }) {
                   Download the signed report, revision {item.revision} (PDF)
                 </a>
                 {item.current ? '' : ' (replaced by a later revision)'}
+                {item.verificationCode ? (
+                  <>
+                    {' · '}
+                    <Link
+                      to={`/verify/${item.verificationCode}`}
+                      className="text-ember-800 underline"
+                    >
+                      check it (code <span className="font-mono">{item.verificationCode}</span>)
+                    </Link>
+                  </>
+                ) : null}
               </li>
             ))}
         </ul>
