@@ -27,8 +27,13 @@ export const contactInputSchema = z.strictObject({
     .trim()
     .min(1, { message: 'Say what they do, such as technical records' })
     .max(80),
+  /** Gets each released inspection's signed report by e-mail. */
+  receivesReports: z.boolean().default(true),
+  /** Gets the urgent notices: an outcome ordering removal before the next flight. */
+  receivesUrgent: z.boolean().default(true),
 });
-export type ContactInput = z.infer<typeof contactInputSchema>;
+export type ContactInput = z.input<typeof contactInputSchema>;
+export type ParsedContactInput = z.output<typeof contactInputSchema>;
 
 export const contactSchema = contactInputSchema.extend({ id: z.string(), createdAt: z.string() });
 export type Contact = z.infer<typeof contactSchema>;

@@ -142,6 +142,10 @@ export const reportContacts = sqliteTable(
     name: text().notNull(),
     email: text().notNull(),
     role: text().notNull(),
+    /** Gets each released inspection's signed report. */
+    receivesReports: integer({ mode: 'boolean' }).notNull().default(true),
+    /** Gets the urgent notices (an outcome ordering removal before the next flight). */
+    receivesUrgent: integer({ mode: 'boolean' }).notNull().default(true),
     createdAt: createdAt(),
   },
   (table) => [uniqueIndex('report_contacts_org_email_idx').on(table.organisationId, table.email)],

@@ -76,3 +76,14 @@ export function insertContact(db: DbOrTx, row: typeof reportContacts.$inferInser
 export function deleteContact(db: DbOrTx, id: string): void {
   db.delete(reportContacts).where(eq(reportContacts.id, id)).run();
 }
+
+/** The contacts of an organisation that get reports, or urgent notices. */
+export function contactsFor(
+  db: DbOrTx,
+  organisationId: string,
+  purpose: 'reports' | 'urgent',
+): ContactRow[] {
+  return listContacts(db, organisationId).filter((contact) =>
+    purpose === 'reports' ? contact.receivesReports : contact.receivesUrgent,
+  );
+}

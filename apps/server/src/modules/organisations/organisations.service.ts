@@ -1,6 +1,6 @@
 import type {
   Contact,
-  ContactInput,
+  ParsedContactInput,
   Organisation,
   OrganisationDetail,
   OrganisationInput,
@@ -33,6 +33,8 @@ const toContact = (row: ContactRow): Contact => ({
   name: row.name,
   email: row.email,
   role: row.role,
+  receivesReports: row.receivesReports,
+  receivesUrgent: row.receivesUrgent,
   createdAt: row.createdAt.toISOString(),
 });
 
@@ -133,7 +135,12 @@ export function createOrganisationsService(ctx: AppContext) {
       return this.detail(id);
     },
 
-    addContact(principal: Principal, id: string, input: ContactInput, meta: RequestMeta): Contact {
+    addContact(
+      principal: Principal,
+      id: string,
+      input: ParsedContactInput,
+      meta: RequestMeta,
+    ): Contact {
       mustFind(id);
       const contactId = newId();
       const now = ctx.now();

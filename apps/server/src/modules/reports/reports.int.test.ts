@@ -1,4 +1,7 @@
 import { createHash } from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import { simpleParser } from 'mailparser';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { cautions } from '@emberline/contracts/cautions';
@@ -6,7 +9,7 @@ import type { InspectionReview } from '@emberline/contracts/review';
 import { decisionWords } from '@emberline/domain/decision-words';
 import { verdictStyles } from '@emberline/drawings/verdict-style';
 import { rawConnection } from '../../db/client';
-import { demoAccounts, startTestApp, type TestApp } from '../../../test/test-app';
+import { demoAccounts, startTestApp, waitForMail, type TestApp } from '../../../test/test-app';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -94,6 +97,38 @@ describe('the signed report of a released inspection', () => {
       expect(text.replace(/ /g, '')).toContain(item.signature.sha256);
     }
     expect(text).toContain(verdictStyles['repeat-inspection'].label);
+  });
+
+  it('is e-mailed to the owner’s report contacts only, with the stored PDF attached', async () => {
+    const caught = await waitForMail(t.runtime, 'records@corvid.demo.test');
+    const store = t.runtime.ctx.caughtMail!;
+    const reportMails = async () =>
+      (await store.list()).filter((item) =>
+        item.subject.startsWith('Inspection report: engine VT3-D0103'),
+      );
+    // Both releases' messages, as the delivery worker hands them over.
+    for (let wait = 0; wait < 100 && (await reportMails()).length < 2; wait += 1)
+      await new Promise((resolve) => setTimeout(resolve, 50));
+    const reportsMail = await reportMails();
+    expect(reportsMail).toHaveLength(2);
+    for (const summary of reportsMail)
+      expect([...summary.to].sort()).toEqual([
+        'powerplant@corvid.demo.test',
+        'records@corvid.demo.test',
+      ]);
+    expect(caught.attachmentList).toEqual([
+      expect.objectContaining({ contentType: 'application/pdf' }),
+    ]);
+    // The attachment, read back from the message as the fake received it, is the stored report.
+    const parsed = await simpleParser(
+      fs.readFileSync(path.join(store.directory, `${reportsMail[0]!.id}.eml`)),
+    );
+    const attached = parsed.attachments[0]!.content;
+    const sqlite = rawConnection(t.runtime.ctx.db);
+    const hashes = (
+      sqlite.prepare('SELECT pdf_sha256 AS sha FROM reports').all() as { sha: string }[]
+    ).map((row) => row.sha);
+    expect(hashes).toContain(createHash('sha256').update(attached).digest('hex'));
   });
 
   it('is refused to another customer (404), and does not exist before release (404)', async () => {

@@ -9,6 +9,8 @@ import { inspectionModelRows } from '../inspections/inspection-access';
 import type { InspectionRow } from '../inspections/inspections.repository';
 import { listActiveHomeUsers } from '../users/users.repository';
 import { beyondLimitsAlertEmail, removalOrderedEmail } from './review-emails';
+import { urgentNoticeEmail } from '../reports/report-emails';
+import { contactsFor } from '../organisations/organisations.repository';
 
 /**
  * Alerts the home organisation's reviewers, inside the submission's transaction, when a submitted
@@ -60,6 +62,25 @@ export function alertRemovalOrdered(
   removals: BeyondAction[],
 ): void {
   if (removals.length === 0) return;
+  // Before the next flight: the owner's contacts for urgent notices hear of it at once.
+  const grounding = removals.filter((action) => action.kind === 'remove-before-next-flight');
+  const urgent = contactsFor(tx, inspection.organisationId, 'urgent');
+  if (grounding.length > 0 && urgent.length > 0)
+    queueMail(ctx, tx, {
+      kind: 'urgent',
+      ...urgentNoticeEmail({
+        to: urgent.map((contact) => contact.email),
+        engineSerialNumber: inspection.engineSerialNumber,
+        inspectionDate: inspection.date,
+        removals: grounding,
+        link: `${publicOrigin(ctx.config.publicOrigins, ctx.config.port)}/fleet/${inspection.engineId}`,
+      }),
+      record: {
+        type: 'inspection',
+        id: inspection.id,
+        label: `Inspection of ${inspection.engineSerialNumber} on ${inspection.date}`,
+      },
+    });
   const planners = listActiveHomeUsers(tx, permissionGrants['plan:inspection']);
   if (planners.length === 0) return;
   queueMail(ctx, tx, {

@@ -304,6 +304,58 @@ describe('engineering review', () => {
     expect(caught.text).toMatch(/Remove within 50 cycles\./);
   });
 
+  it('sends the owner an urgent notice at once for a removal before the next flight, and releases only to an owner with a report contact', async () => {
+    const { inspectionId, findings } = await prepare();
+    for (const finding of findings)
+      await dispose(finding.id, {
+        decision:
+          finding.evaluation!.category === 'beyond-limits'
+            ? {
+                kind: 'remove',
+                action: { kind: 'remove-before-next-flight', cycles: null, hours: null },
+              }
+            : decisionFor(finding),
+      }).expect(201);
+    await request(t.app)
+      .post(`/api/v1/inspections/${inspectionId}/outcome`)
+      .set('Cookie', engineer)
+      .send({ password: DEMO_PASSWORD })
+      .expect(201);
+    const messages = await request(t.app)
+      .get('/api/v1/outbox/messages')
+      .query({ pageSize: 100 })
+      .set('Cookie', admin);
+    const urgent = (
+      messages.body.items as { kind: string; subject: string; recipients: { address: string }[] }[]
+    ).filter((item) => item.kind === 'urgent');
+    expect(urgent.map((item) => item.subject)).toEqual([
+      'Urgent: engine VT3-D0101 to be removed before its next flight',
+    ]);
+    expect(urgent[0]!.recipients.map((recipient) => recipient.address).sort()).toEqual([
+      'powerplant@corvid.demo.test',
+      'records@corvid.demo.test',
+    ]);
+
+    // With no contact for reports, the owner could not receive the report: nothing is released.
+    rawConnection(t.runtime.ctx.db)
+      .prepare(
+        "UPDATE report_contacts SET receives_reports = 0 WHERE organisation_id = 'org-corvid'",
+      )
+      .run();
+    const refused = await request(t.app)
+      .post(`/api/v1/inspections/${inspectionId}/release`)
+      .set('Cookie', engineer)
+      .send({ password: DEMO_PASSWORD });
+    expect(refused.status).toBe(422);
+    expect(refused.body.error.message).toBe(
+      'Corvid Regional Airways (demo) has no contact for reports: add one under Admin → Organisations, then release. The signed report is e-mailed to them.',
+    );
+    const inspection = await request(t.app)
+      .get(`/api/v1/inspections/${inspectionId}`)
+      .set('Cookie', engineer);
+    expect(inspection.body.state).toBe('dispositioned');
+  });
+
   it('refuses the finding’s own recorder, whatever their role, and a signer without authorisation', async () => {
     // An administrator may record and review, but not disposition what they recorded.
     const own = await prepare({ recorder: admin });

@@ -52,6 +52,11 @@ import { refreshDue } from '../planning/due-basis';
 import { createPlanningService } from '../planning/planning.service';
 import { buildReport } from '../reports/report-builder';
 import { findReport, insertReport } from '../reports/reports.repository';
+import { reportEmail } from '../reports/report-emails';
+import { contactsFor } from '../organisations/organisations.repository';
+import { findEngineRow } from '../engines/engines.repository';
+import { queueMail } from '../../lib/email/outbox';
+import { publicOrigin } from '../auth/auth.service';
 import { newVerificationCode, verifyUrlOf } from '../reports/reports.service';
 import {
   changedFinding,
@@ -701,6 +706,12 @@ export function createReviewService(
         );
       const signer = signerFor(principal, inspection);
       await checkPassword(ctx, principal, password, meta, 'signing needs it again');
+      // The report goes to the owner's report contacts: without one, nothing is released.
+      const engine = findEngineRow(db, inspection.engineId)!;
+      if (contactsFor(db, inspection.organisationId, 'reports').length === 0)
+        throw AppError.unprocessable(
+          `${engine.organisationName} has no contact for reports: add one under Admin → Organisations, then release. The signed report is e-mailed to them.`,
+        );
       // The report is rendered first, outside the write: a report that cannot be made stops the
       // release as a whole. The release signature then covers the bytes' hash.
       const revision = inspection.releaseRevision + 1;
@@ -751,6 +762,25 @@ export function createReviewService(
           verificationCode,
           releaseSignatureId: signature.id,
           createdAt: now,
+        });
+        // Mailed in the same transaction: the message exists exactly when the release does.
+        queueMail(ctx, tx, {
+          kind: 'report',
+          ...reportEmail({
+            to: contactsFor(tx, inspection.organisationId, 'reports').map((item) => item.email),
+            engineSerialNumber: inspection.engineSerialNumber,
+            inspectionDate: inspection.date,
+            revision,
+            link: `${publicOrigin(ctx.config.publicOrigins, ctx.config.port)}/inspections/${id}`,
+            verifyUrl: verifyUrlOf(ctx, verificationCode),
+            filename: `emberline-${inspection.engineSerialNumber}-${inspection.date}-rev${revision}.pdf`,
+            pdf,
+          }),
+          record: {
+            type: 'inspection',
+            id,
+            label: `Inspection of ${inspection.engineSerialNumber} on ${inspection.date}`,
+          },
         });
         setInspectionState(tx, id, 'released', {
           releaseSignatureId: signature.id,

@@ -44,7 +44,9 @@ function Contacts({ organisationId }: { organisationId: string }) {
   const add = useAddContact(organisationId);
   const remove = useRemoveContact(organisationId);
   const [error, setError] = useState('');
-  const form = useZodForm(contactInputSchema, { defaultValues: { name: '', email: '', role: '' } });
+  const form = useZodForm(contactInputSchema, {
+    defaultValues: { name: '', email: '', role: '', receivesReports: true, receivesUrgent: true },
+  });
   const onSubmit = form.handleSubmit((values) => {
     setError('');
     add.mutate(values, {
@@ -83,6 +85,14 @@ function Contacts({ organisationId }: { organisationId: string }) {
                   <span>
                     <span className="font-medium">{contact.name}</span> · {contact.role} ·{' '}
                     <span className="font-mono">{contact.email}</span>
+                    <span className="block text-xs text-soot-600">
+                      {[
+                        contact.receivesReports ? 'gets signed reports' : null,
+                        contact.receivesUrgent ? 'gets urgent notices' : null,
+                      ]
+                        .filter(Boolean)
+                        .join(' and ') || 'gets no e-mail'}
+                    </span>
                   </span>
                   <Button
                     variant="ghost"
@@ -117,6 +127,17 @@ function Contacts({ organisationId }: { organisationId: string }) {
                 <Input {...props} placeholder="Technical records" {...form.register('role')} />
               )}
             </Field>
+            <fieldset className="flex flex-wrap gap-4 text-sm md:col-span-3">
+              <legend className="sr-only">What they get</legend>
+              <label className="flex items-center gap-2">
+                <input type="checkbox" {...form.register('receivesReports')} />
+                Signed reports of released inspections
+              </label>
+              <label className="flex items-center gap-2">
+                <input type="checkbox" {...form.register('receivesUrgent')} />
+                Urgent notices (removal before the next flight)
+              </label>
+            </fieldset>
             <Button type="submit" variant="secondary" busy={add.isPending} className="self-start">
               Add contact
             </Button>
