@@ -231,6 +231,11 @@ export const engineSchema = z.object({
    * beyond limits; null when none waits (and always for customers, who see released ones only).
    */
   awaitingDisposition: z.object({ inspectionId: z.string(), beyondLimits: z.boolean() }).nullable(),
+  /**
+   * The day of an inspection submitted and not yet released: all an owner learns of it before
+   * release (no findings, verdicts or states).
+   */
+  inspectionInReview: isoDateSchema.nullable(),
   /** When it is next due (DESIGN §5.6), for those who plan; null for customers. */
   nextDue: z
     .object({

@@ -27,6 +27,9 @@ const columns = {
   awaitingInspectionId: sql<string | null>`(SELECT i.id FROM inspections i
     WHERE i.engine_id = ${engines.id} AND i.state = 'submitted'
     ORDER BY i.date DESC, i.created_at DESC LIMIT 1)`,
+  inspectionInReview: sql<string | null>`(SELECT i.date FROM inspections i
+    WHERE i.engine_id = ${engines.id} AND i.state IN ('submitted', 'dispositioned')
+    ORDER BY i.date DESC LIMIT 1)`,
   awaitingBeyondLimits: sql<number>`EXISTS (SELECT 1 FROM inspections i
     JOIN findings f ON f.inspection_id = i.id
     WHERE i.engine_id = ${engines.id} AND i.state = 'submitted'
@@ -50,6 +53,7 @@ export interface EngineListRow {
   shopRelease: EngineRecord['shopRelease'];
   createdAt: Date;
   awaitingInspectionId: string | null;
+  inspectionInReview: string | null;
   awaitingBeyondLimits: number;
 }
 

@@ -131,6 +131,20 @@ describe('the signed report of a released inspection', () => {
     expect(hashes).toContain(createHash('sha256').update(attached).digest('hex'));
   });
 
+  it('tells the owner only the day of an inspection still in review, nothing of its findings', async () => {
+    const owner = await t.signIn(demoAccounts.customer2);
+    const engine = await request(t.app).get('/api/v1/engines/engine-d0201').set('Cookie', owner);
+    expect(engine.status).toBe(200);
+    expect(engine.body.inspectionInReview).toMatch(/^\d{4}-\d{2}-\d{2}$/);
+    expect(engine.body.awaitingDisposition).toBeNull();
+    expect(engine.body.nextDue).toBeNull();
+    const inspections = await request(t.app)
+      .get('/api/v1/inspections')
+      .query({ engineId: 'engine-d0201' })
+      .set('Cookie', owner);
+    expect(inspections.body.items).toEqual([]);
+  });
+
   it('is refused to another customer (404), and does not exist before release (404)', async () => {
     const other = await t.signIn(demoAccounts.customer2);
     expect((await download('inspection-d0103-h2', other)).status).toBe(404);

@@ -3,6 +3,7 @@ import { ArrowLeft } from 'lucide-react';
 import { Link, useParams } from 'react-router-dom';
 import { Notice } from '../../components/ui/notice';
 import { ApiError } from '../../lib/api-client';
+import { formatDate } from '../../lib/format';
 import { LoadingLine, PageHeader, Panel } from '../../components/ui/page';
 import { useSignedInUser } from '../../features/auth/hooks/use-signed-in-user';
 import { useEngine } from '../../features/fleet/api/engines';
@@ -96,6 +97,15 @@ export function EngineRoute() {
           >
             {can(user.role, 'review:inspection') ? 'Open the review' : 'Open the inspection'}
           </Link>
+        </Notice>
+      ) : null}
+      {data.inspectionInReview && !data.awaitingDisposition ? (
+        <Notice
+          tone="caution"
+          title={`Inspection of ${formatDate(data.inspectionInReview)} in review`}
+        >
+          Its findings, verdicts and decisions are shown here, with the signed report, once it is
+          released.
         </Notice>
       ) : null}
       {can(user.role, 'read:planning') ? (
