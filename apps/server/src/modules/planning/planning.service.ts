@@ -105,6 +105,19 @@ const dueStateRank: Record<DueState, number> = {
   removed: 6,
 };
 
+/** What needs a planner first: by due state, then by the day it falls due. */
+const byDue = (a: Reading, b: Reading) =>
+  dueStateRank[a.status.state] - dueStateRank[b.status.state] ||
+  compareText(a.date ?? '9999', b.date ?? '9999');
+
+/** The fleet list's "Next due" of an engine's due state. */
+const nextDueOf = (status: Reading['status']) => ({
+  state: status.state,
+  dueDate: status.nextInspection?.dueDate ?? null,
+  dueCsn: status.nextInspection?.dueCsn ?? null,
+  governing: status.nextInspection?.governing ?? null,
+});
+
 /** An engine's due state on today's date, with the basis it was read from. */
 interface Reading {
   engine: EngineDueRow;
@@ -136,15 +149,10 @@ export function createPlanningService(ctx: AppContext) {
         awaitingBeyondLimits: Boolean(engine.awaitingBeyondLimits),
         soon: config.dueSoon,
       });
-      const inspection = status.nextInspection?.dueDate ?? null;
-      const removal = status.removal?.dueDate ?? null;
-      const date =
-        inspection && removal
-          ? inspection < removal
-            ? inspection
-            : removal
-          : inspection || removal;
-      return { engine, basis, lastMove, status, date };
+      const dates = [status.nextInspection?.dueDate, status.removal?.dueDate].filter(
+        (date): date is string => Boolean(date),
+      );
+      return { engine, basis, lastMove, status, date: dates.sort()[0] ?? null };
     });
   }
 
@@ -196,7 +204,10 @@ export function createPlanningService(ctx: AppContext) {
     });
   }
 
-  const scopeOf = (principal: Principal, query: PlanningQuery): EngineScope => ({
+  const scopeOf = (
+    principal: Principal,
+    query: Pick<PlanningQuery, 'organisationId' | 'modelId'>,
+  ): EngineScope => ({
     organisationId: recordScope(principal).organisationId ?? query.organisationId,
     modelId: query.modelId,
   });
@@ -212,12 +223,7 @@ export function createPlanningService(ctx: AppContext) {
           date != null && (!query.from || date >= query.from) && (!query.to || date <= query.to);
         return within(status.nextInspection?.dueDate) || within(status.removal?.dueDate);
       })
-      .sort(
-        (a, b) =>
-          dueStateRank[a.status.state] - dueStateRank[b.status.state] ||
-          compareText(a.date ?? '9999', b.date ?? '9999') ||
-          compareText(a.engine.serialNumber, b.engine.serialNumber),
-      );
+      .sort((a, b) => byDue(a, b) || compareText(a.engine.serialNumber, b.engine.serialNumber));
   }
 
   const itemOf = (engine: EngineDueRow, due: EngineDue): PlanningItem => ({
@@ -261,17 +267,7 @@ export function createPlanningService(ctx: AppContext) {
         ...page,
         items: page.items.map((item) => {
           const status = due.get(item.id);
-          return {
-            ...item,
-            nextDue: status
-              ? {
-                  state: status.state,
-                  dueDate: status.nextInspection?.dueDate ?? null,
-                  dueCsn: status.nextInspection?.dueCsn ?? null,
-                  governing: status.nextInspection?.governing ?? null,
-                }
-              : null,
-          };
+          return { ...item, nextDue: status ? nextDueOf(status) : null };
         }),
       };
     },
@@ -292,11 +288,7 @@ export function createPlanningService(ctx: AppContext) {
         page: 1,
         pageSize: 1_000_000,
       });
-      const ids = all.items.map((item) => item.id);
-      const scope: EngineScope = {
-        organisationId: recordScope(principal).organisationId ?? query.organisationId,
-        modelId: query.modelId,
-      };
+      const scope = scopeOf(principal, query);
       const readings = new Map(
         readingsOf(findEngineRowsIn(db, scope), scope).map((reading) => [
           reading.engine.id,
@@ -304,25 +296,24 @@ export function createPlanningService(ctx: AppContext) {
         ]),
       );
       const direction = query.sort === 'nextDue' && query.order === 'desc' ? -1 : 1;
-      const items = ids
-        .map((id) => readings.get(id)!)
-        .filter((reading) => !dueState || reading.status.state === dueState)
+      // The list's own order stays for its other sorts (a stable sort keeps it).
+      const items = all.items
+        .map((item) => ({ item, reading: readings.get(item.id)! }))
+        .filter(({ reading }) => !dueState || reading.status.state === dueState)
         .sort((a, b) =>
           query.sort === 'nextDue'
-            ? direction *
-                (dueStateRank[a.status.state] - dueStateRank[b.status.state] ||
-                  compareText(a.date ?? '9999', b.date ?? '9999')) ||
-              compareText(a.engine.serialNumber, b.engine.serialNumber)
+            ? direction * byDue(a.reading, b.reading) ||
+              compareText(a.item.serialNumber, b.item.serialNumber)
             : 0,
         );
-      const byId = new Map(all.items.map((item) => [item.id, item]));
-      const shown = items.slice((page - 1) * pageSize, page * pageSize);
-      return this.withNextDue(principal, {
-        items: shown.map((reading) => byId.get(reading.engine.id)!),
+      return {
+        items: items
+          .slice((page - 1) * pageSize, page * pageSize)
+          .map(({ item, reading }) => ({ ...item, nextDue: nextDueOf(reading.status) })),
         total: items.length,
         page,
         pageSize,
-      });
+      };
     },
 
     engineDue(principal: Principal, engineId: string): EngineDue {

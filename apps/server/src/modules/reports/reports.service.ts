@@ -15,6 +15,11 @@ export function newVerificationCode(): string {
   return randomBytes(16).toString('base64url');
 }
 
+/** The file name a report downloads and is attached under. */
+export function reportFilename(engineSerialNumber: string, date: string, revision: number): string {
+  return `emberline-${engineSerialNumber}-${date}-rev${revision}.pdf`;
+}
+
 export function verifyUrlOf(ctx: Pick<AppContext, 'config'>, code: string): string {
   return `${publicOrigin(ctx.config.publicOrigins, ctx.config.port)}/verify/${code}`;
 }
@@ -85,7 +90,7 @@ export function createReportsService(ctx: AppContext) {
       if (!report) throw AppError.notFound('This inspection has no released report.');
       return {
         bytes: report.pdf,
-        filename: `emberline-${inspection.engineSerialNumber}-${inspection.date}-rev${report.revision}.pdf`,
+        filename: reportFilename(inspection.engineSerialNumber, inspection.date, report.revision),
       };
     },
   };

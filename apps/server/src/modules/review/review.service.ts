@@ -57,7 +57,7 @@ import { contactsFor } from '../organisations/organisations.repository';
 import { findEngineRow } from '../engines/engines.repository';
 import { queueMail } from '../../lib/email/outbox';
 import { publicOrigin } from '../auth/auth.service';
-import { newVerificationCode, verifyUrlOf } from '../reports/reports.service';
+import { newVerificationCode, reportFilename, verifyUrlOf } from '../reports/reports.service';
 import {
   changedFinding,
   currentDisposition,
@@ -773,7 +773,7 @@ export function createReviewService(
             revision,
             link: `${publicOrigin(ctx.config.publicOrigins, ctx.config.port)}/inspections/${id}`,
             verifyUrl: verifyUrlOf(ctx, verificationCode),
-            filename: `emberline-${inspection.engineSerialNumber}-${inspection.date}-rev${revision}.pdf`,
+            filename: reportFilename(inspection.engineSerialNumber, inspection.date, revision),
             pdf,
           }),
           record: {
