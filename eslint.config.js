@@ -36,6 +36,7 @@ const architecture = {
       { type: 'server-images', pattern: 'apps/server/src/lib/images' },
       { type: 'server-email', pattern: 'apps/server/src/lib/email' },
       { type: 'server-pdf', pattern: 'apps/server/src/lib/pdf' },
+      { type: 'server-xlsx', pattern: 'apps/server/src/lib/xlsx' },
       { type: 'server-module', pattern: 'apps/server/src/modules/*', capture: ['module'] },
       { type: 'server', pattern: 'apps/server/src' },
       { type: 'package', pattern: 'packages/*', capture: ['package'] },
@@ -43,6 +44,7 @@ const architecture = {
     'boundaries/files': [
       { category: 'repository', pattern: '**/*.repository.ts' },
       { category: 'routes', pattern: '**/*.routes.ts' },
+      { category: 'test', pattern: '**/*.test.ts' },
       // Every file has a category, so that "none of these categories" matches a plain file.
       { category: 'source', pattern: '**/*' },
     ],
@@ -91,6 +93,14 @@ const architecture = {
             from: { element: { types: { noneOf: ['server-pdf'] } } },
             disallow: { to: { module: { source: 'pdfmake' } } },
             message: 'Only lib/pdf calls pdfmake: hand it a document definition',
+          },
+          {
+            from: {
+              element: { types: { noneOf: ['server-xlsx'] } },
+              file: { categories: { noneOf: ['test'] } },
+            },
+            disallow: { to: { module: { source: 'exceljs' } } },
+            message: 'Only lib/xlsx writes workbooks (exceljs): hand it a header and rows',
           },
           {
             from: { element: { types: { noneOf: ['server-email'] } } },

@@ -159,6 +159,14 @@ test('the engineer works through VT3-D0201 from the queue: signs each finding (o
   await expect(page.getByText('The file is the signed report, byte for byte.')).toBeVisible();
   expect(await seriousViolations(page), 'report check page').toEqual([]);
 
+  // The owner's Reports list it, and the inspection logs the e-mail that carried it.
+  await page.goto('/reports');
+  await expect(page.getByTestId('report-row').filter({ hasText: 'VT3-D0201' })).toHaveCount(1);
+  await page.goto(`/inspections/${D0201}`);
+  await expect(page.getByRole('table', { name: 'Delivery log' })).toContainText(
+    'Signed report, revision 1',
+  );
+
   // Another customer gets nothing of it.
   await page.goto('/fleet');
   await page.getByRole('button', { name: 'Sign out' }).click();

@@ -1,3 +1,4 @@
+import { seriousViolations } from './axe';
 import { DEMO_PASSWORD, expect, signIn, test } from './fixtures';
 
 // What each demo role should find in the main navigation (DESIGN §2 roles, §8 screen names).
@@ -66,11 +67,25 @@ test('an unknown address shows the not-found page', async ({ page }) => {
   await expect(page.getByRole('heading', { name: 'Page not found' })).toBeVisible();
 });
 
-test('screens of later releases say plainly that they are not built yet', async ({ page }) => {
-  await signIn(page, 'planner@demo.test');
+test('a customer finds their own engines’ signed reports, and when each engine is due as released', async ({
+  page,
+}) => {
+  await signIn(page, 'customer@demo.test');
   await page.getByRole('link', { name: 'Reports' }).click();
   await expect(page.getByRole('heading', { name: 'Reports' })).toBeVisible();
-  await expect(page.getByText('Not built yet')).toBeVisible();
+  const rows = page.getByTestId('report-row');
+  await expect(rows).toHaveCount(2);
+  for (const row of await rows.all()) {
+    await expect(row).toContainText('VT3-D0103');
+    await expect(row.getByRole('link', { name: /^PDF/ })).toBeVisible();
+  }
+  expect(await seriousViolations(page), 'reports').toEqual([]);
+
+  // The fleet shows each engine's next due date; the engine says it is as released.
+  await page.getByRole('link', { name: 'Fleet' }).click();
+  await expect(page.getByRole('columnheader', { name: /Next due/ })).toBeVisible();
+  await page.getByRole('link', { name: 'VT3-D0103' }).click();
+  await expect(page.getByTestId('due-card')).toContainText('As of the latest released inspection');
 });
 
 test('a demo installation says so before and after signing in', async ({ page }) => {

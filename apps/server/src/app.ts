@@ -23,6 +23,7 @@ import { inspectionsRoutes } from './modules/inspections/inspections.routes';
 import { reviewRoutes } from './modules/review/review.routes';
 import { planningRoutes } from './modules/planning/planning.routes';
 import { reportsRoutes } from './modules/reports/reports.routes';
+import { exportsRoutes } from './modules/exports/exports.routes';
 import { healthRoutes } from './modules/health/health.routes';
 import { installationRoutes } from './modules/installation/installation.routes';
 import { openApiRoutes } from './modules/openapi/openapi.routes';
@@ -52,6 +53,8 @@ export function createApiRouter(ctx: AppContext): Router {
   api.use(utilizationRoutes(ctx));
   api.use(inspectionsRoutes(ctx));
   api.use(imagesRoutes(ctx));
+  // Before the findings routes: /findings/export is not a finding.
+  api.use(exportsRoutes(ctx));
   api.use(findingsRoutes(ctx));
   api.use(coverageRoutes(ctx));
   api.use(limitSetsRoutes(ctx));

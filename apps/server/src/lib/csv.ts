@@ -83,13 +83,33 @@ export function readCsv(bytes: Buffer, required: readonly string[]): CsvRow[] {
   return rows;
 }
 
-/** A CSV file (RFC 4180 quoting, CRLF line ends) from a header and its rows. */
+/** A cell of a written table: text, a number, or nothing. */
+export type TableCell = string | number | null;
+
+/**
+ * Text a spreadsheet would take for a formula (it begins with =, +, -, @, a tab or a carriage
+ * return) gets a leading apostrophe, so that a value someone typed is never run when the file is
+ * opened (OWASP, "CSV Injection"). Numbers are left as they are.
+ */
+export function escapeFormula(text: string): string {
+  return /^[=+\-@\t\r]/.test(text) ? `'${text}` : text;
+}
+
+/**
+ * A CSV file (RFC 4180 quoting, CRLF line ends) from a header and its rows, text escaped against
+ * formula injection.
+ */
 export function writeCsv(
   header: readonly string[],
-  rows: readonly (readonly (string | number | null)[])[],
+  rows: readonly (readonly TableCell[])[],
 ): string {
   return Papa.unparse(
-    { fields: [...header], data: rows.map((row) => row.map((cell) => cell ?? '')) },
+    {
+      fields: [...header],
+      data: rows.map((row) =>
+        row.map((cell) => (typeof cell === 'string' ? escapeFormula(cell) : (cell ?? ''))),
+      ),
+    },
     { newline: '\r\n' },
   );
 }

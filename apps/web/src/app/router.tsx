@@ -3,7 +3,6 @@ import { LoadingLine } from '../components/ui/page';
 import { RequireAuth } from '../features/auth/components/require-auth';
 import { AppShell } from './routes/app-shell';
 import { FleetRoute } from './routes/fleet';
-import { NotBuiltYet } from './routes/not-built-yet';
 import { NotFoundRoute } from './routes/not-found';
 import { SignInRoute } from './routes/sign-in';
 
@@ -82,13 +81,7 @@ const router = createBrowserRouter([
       },
       {
         path: 'reports',
-        element: (
-          <NotBuiltYet
-            title="Reports"
-            permission="read:report"
-            purpose="Signed inspection reports, as e-mailed to the customer’s contacts."
-          />
-        ),
+        lazy: async () => ({ Component: (await import('./routes/reports')).ReportsRoute }),
       },
       {
         path: 'account',

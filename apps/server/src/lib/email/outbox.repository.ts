@@ -130,3 +130,41 @@ export function countOutboxByState(db: DbOrTx): { state: OutboxState; n: number 
     .groupBy(outboxMessages.state)
     .all();
 }
+
+/** The messages about some records (a record's delivery log), oldest first. */
+export function listMessagesAbout(
+  db: DbOrTx,
+  about: readonly { type: string; ids: readonly string[]; kinds?: readonly string[] }[],
+): OutboxRow[] {
+  const matches = about
+    .filter((item) => item.ids.length > 0)
+    .map((item) =>
+      and(
+        eq(outboxMessages.recordType, item.type),
+        inArray(outboxMessages.recordId, [...item.ids]),
+        item.kinds ? inArray(outboxMessages.kind, [...item.kinds]) : undefined,
+      ),
+    );
+  if (matches.length === 0) return [];
+  return db
+    .select()
+    .from(outboxMessages)
+    .where(or(...matches))
+    .orderBy(asc(outboxMessages.createdAt), asc(outboxMessages.id))
+    .all();
+}
+
+/** Messages of one kind that have not reached everyone yet: failed, or waiting for a person. */
+export function listUndelivered(db: DbOrTx, kind: string): OutboxRow[] {
+  return db
+    .select()
+    .from(outboxMessages)
+    .where(
+      and(
+        eq(outboxMessages.kind, kind),
+        inArray(outboxMessages.state, ['failed', 'needs-attention']),
+      ),
+    )
+    .orderBy(asc(outboxMessages.createdAt))
+    .all();
+}

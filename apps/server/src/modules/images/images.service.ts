@@ -7,6 +7,7 @@ import type {
 import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction } from '../../db/client';
 import { AppError } from '../../http/app-error';
+import { recordScope } from '../../http/record-access';
 import type { Principal } from '../../http/principal';
 import { newId } from '../../lib/ids';
 import { ImageRefusal, processImageQueued, renderFull } from '../../lib/images/image-pipeline';
@@ -209,7 +210,12 @@ export function createImagesService(ctx: AppContext) {
       return { path: target, sha256: image.sha256 };
     },
 
+    /**
+     * The bytes as uploaded, for staff only: they carry the probe's metadata (a position
+     * included). Owners get renditions; to them an original answers as an unknown image.
+     */
     original(principal: Principal, id: string): { path: string; image: ImageMeta } {
+      if (recordScope(principal).releasedOnly) throw AppError.notFound('There is no such image');
       const image = visibleImage(principal, id);
       return { path: storage.originalPath(image.sha256), image };
     },

@@ -38,12 +38,22 @@ export const groupBy = <T, K>(items: readonly T[], key: (item: T) => K) => {
   return groups;
 };
 
+/** Which inspections count: every signed one (staff), or the released ones as released (owners). */
+export interface DueView {
+  releasedOnly: boolean;
+}
+
 /**
  * The inspections of some engines with the decisions their counting outcome signed: the current
- * outcome, or, while a correction after release waits, the outcome of the latest release. One
- * query a kind of row, whatever the number of engines.
+ * outcome, or, while a correction after release waits, the outcome of the latest release. As an
+ * owner sees them, only released inspections count, each with the outcome of its latest release.
+ * One query a kind of row, whatever the number of engines.
  */
-function dueInspections(db: DbOrTx, scope: EngineScope): Map<string, DueInspection[]> {
+function dueInspections(
+  db: DbOrTx,
+  scope: EngineScope,
+  view: DueView,
+): Map<string, DueInspection[]> {
   const rows = signedInspections(db, scope);
   const releases = new Map(
     releaseSignaturesOf(db, scope).map((signature) => [signature.subjectId, signature]),
@@ -53,11 +63,13 @@ function dueInspections(db: DbOrTx, scope: EngineScope): Map<string, DueInspecti
   const outcomesBySha = new Map(outcomes.map((signature) => [signature.sha256, signature]));
   const counting = rows.flatMap((row) => {
     const release = releases.get(row.id);
-    const outcome = row.outcomeSignatureId
-      ? outcomesById.get(row.outcomeSignatureId)
-      : outcomesBySha.get(
-          (release?.content as ReleaseContent | undefined)?.outcomeSignatureSha256 ?? '',
-        );
+    const released = outcomesBySha.get(
+      (release?.content as ReleaseContent | undefined)?.outcomeSignatureSha256 ?? '',
+    );
+    const outcome =
+      !view.releasedOnly && row.outcomeSignatureId
+        ? outcomesById.get(row.outcomeSignatureId)
+        : released;
     return outcome ? [{ row, outcome, content: outcome.content as OutcomeContent }] : [];
   });
   const places = new Map(findingPlaces(db, scope).map((place) => [place.id, place]));
@@ -106,13 +118,17 @@ const engineRowsOf = (db: DbOrTx, scope: EngineScope) =>
     modelId: scope.modelId,
   });
 
-/** The due bases of the engines in scope, computed from their records now (DESIGN §5.6). */
+/**
+ * The due bases of the engines in scope, computed from their records now (DESIGN §5.6): from every
+ * signed inspection (what is kept), or from the released ones only (what an owner is told).
+ */
 export function computeDueBases(
   db: DbOrTx,
   scope: EngineScope,
   rows: readonly EngineDueRow[] = engineRowsOf(db, scope),
+  view: DueView = { releasedOnly: false },
 ): Map<string, DueBasis> {
-  const inspections = dueInspections(db, scope);
+  const inspections = dueInspections(db, scope, view);
   const utilization = groupBy(utilizationOf(db, scope), (record) => record.engineId);
   const models = new Map(
     [...new Set(rows.map((row) => row.modelId))].map((modelId) => [

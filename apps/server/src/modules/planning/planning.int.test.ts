@@ -106,7 +106,7 @@ async function recordRepeatInspection(): Promise<string> {
 }
 
 describe('due status of an engine (DESIGN §5.6)', () => {
-  it('is unknown for an engine with no inspection and no earlier record, and refused to customers', async () => {
+  it('is unknown for an engine with no inspection and no earlier record', async () => {
     const admin = await t.signIn(demoAccounts.admin);
     const created = await request(t.app).post('/api/v1/engines').set('Cookie', admin).send({
       serialNumber: 'VT3-T0001',
@@ -124,8 +124,8 @@ describe('due status of an engine (DESIGN §5.6)', () => {
     expect(response.status).toBe(200);
     expect(response.body).toMatchObject({ state: 'unknown', nextInspection: null });
     expect(response.body.reason).toMatch(/No inspection or earlier record of/);
-    const customer = await t.signIn(demoAccounts.customer);
-    expect((await dueOf(created.body.id, customer)).status).toBe(403);
+    const customer2 = await t.signIn(demoAccounts.customer2);
+    expect((await dueOf(created.body.id, customer2)).status).toBe(404);
     expect((await dueOf('engine-unknown')).status).toBe(404);
   });
 
@@ -151,6 +151,43 @@ describe('due status of an engine (DESIGN §5.6)', () => {
     });
     expect(due.nextInspection).toMatchObject({ dueCsn: 14_525, governing: 'cycles' });
     expect(due.interval).toEqual({ cycles: 400, hours: null, days: null });
+  });
+
+  it('tells the owner the due status as of the latest released inspection, nothing of one in review', async () => {
+    const id = await recordRepeatInspection();
+    const customer = await t.signIn(demoAccounts.customer);
+    const staff = (await dueOf('engine-d0101')).body as EngineDue;
+    expect(staff.governedBy?.inspectionId).toBe(id);
+
+    // Signed but not released: the owner's due status does not know of it.
+    const before = await dueOf('engine-d0101', customer);
+    expect(before.status).toBe(200);
+    const owners = before.body as EngineDue;
+    expect(owners.requirements.map((item) => item.inspectionId)).not.toContain(id);
+    expect(owners.governedBy?.inspectionId).not.toBe(id);
+    expect(owners.nextInspection?.dueCsn).not.toBe(14_525);
+    expect(owners.booking).toBeNull();
+    expect(owners.lastMove).toBeNull();
+    const listed = await request(t.app)
+      .get('/api/v1/engines')
+      .query({ serial: 'VT3-D0101' })
+      .set('Cookie', customer);
+    expect(listed.body.items[0].nextDue.dueCsn).toBe(owners.nextInspection?.dueCsn ?? null);
+
+    await request(t.app)
+      .post(`/api/v1/inspections/${id}/release`)
+      .set('Cookie', engineer)
+      .send({ password: DEMO_PASSWORD })
+      .expect(201);
+    const after = (await dueOf('engine-d0101', customer)).body as EngineDue;
+    expect(after.governedBy).toEqual({
+      kind: 'repeat',
+      row: 'hpt1-ngv',
+      position: 10,
+      inspectionId: id,
+    });
+    expect(after.nextInspection).toMatchObject({ dueCsn: 14_525, governing: 'cycles' });
+    expect(after.trendWarnings).toEqual([]);
   });
 
   it('books the next inspection on or before its due date, never in the past or after it', async () => {
@@ -341,7 +378,8 @@ describe('due status of an engine (DESIGN §5.6)', () => {
       )!;
       expect(stale.reason).toMatch(/Utilization not recorded for more than 30 days/);
 
-      // The fleet list carries the same state for the engines of its page, not to customers.
+      // The fleet list carries the same state for the engines of its page (to the owner, as of
+      // the released inspections: the same here, where nothing waits for release).
       const fleet = await request(t.app)
         .get('/api/v1/engines')
         .query({ serial: 'VT3-D0102' })
@@ -352,7 +390,7 @@ describe('due status of an engine (DESIGN §5.6)', () => {
         .get('/api/v1/engines')
         .query({ serial: 'VT3-D0102' })
         .set('Cookie', customer);
-      expect(theirs.body.items[0].nextDue).toBeNull();
+      expect(theirs.body.items[0].nextDue).toEqual(fleet.body.items[0].nextDue);
 
       // The fleet sorts by due state and date (what needs a planner first), and filters by state.
       const byDue = await request(t.app)
@@ -376,10 +414,15 @@ describe('due status of an engine (DESIGN §5.6)', () => {
       expect(unknown.body.items.map((item: { serialNumber: string }) => item.serialNumber)).toEqual(
         ['VT3-D0105'],
       );
-      const refused = await request(t.app)
+      const theirsOnly = await request(t.app)
         .get('/api/v1/engines')
-        .query({ dueState: 'overdue' })
+        .query({ sort: 'nextDue', organisationId: 'org-pellucid' })
         .set('Cookie', customer);
-      expect(refused.status).toBe(403);
+      expect(theirsOnly.status).toBe(200);
+      expect(
+        theirsOnly.body.items.every(
+          (item: { organisationId: string }) => item.organisationId === 'org-corvid',
+        ),
+      ).toBe(true);
     });
 });

@@ -11,7 +11,6 @@ import {
 } from '@emberline/contracts/planning';
 import type { Rule } from '@emberline/contracts/limits';
 import type { EngineListQuery, EngineListResponse } from '@emberline/contracts/fleet';
-import { can } from '@emberline/contracts/permissions';
 import { dayWords, daysBetween } from '@emberline/domain/dates';
 import { trendWarning } from '@emberline/domain/trend';
 import { MM2_PER_SQUARE_INCH, MM_PER_INCH } from '@emberline/domain/units';
@@ -27,7 +26,7 @@ import { appendAudit } from '../audit/audit.repository';
 import { listRules } from '../limit-sets/limit-sets.repository';
 import { findEngineRowsIn, type EngineDueRow } from '../engines/engines.repository';
 import { createEnginesService } from '../engines/engines.service';
-import { groupBy, readDueBases } from './due-basis';
+import { computeDueBases, groupBy, readDueBases, type DueView } from './due-basis';
 import { bookingsOf, seriesPoints, upsertBooking, type EngineScope } from './planning.repository';
 
 /** "Today" in the installation's time zone, as `YYYY-MM-DD`. */
@@ -133,9 +132,24 @@ export function createPlanningService(ctx: AppContext) {
   const engines = createEnginesService(ctx);
   const today = () => todayIn(config.timeZone, ctx.now());
 
-  /** The due state of engines (DESIGN §5.6) on today's date, from their kept bases. */
-  function readingsOf(rows: readonly EngineDueRow[], scope: EngineScope, day = today()): Reading[] {
-    const bases = readDueBases(ctx, db, rows, scope);
+  /**
+   * The due state of engines (DESIGN §5.6) on today's date: from their kept bases, or, as an owner
+   * is told it, from their released inspections only (computed now, with nothing of the review).
+   */
+  function readingsOf(
+    rows: readonly EngineDueRow[],
+    scope: EngineScope,
+    day = today(),
+    view: DueView = { releasedOnly: false },
+  ): Reading[] {
+    const bases = view.releasedOnly
+      ? new Map(
+          [...computeDueBases(db, scope, rows, view)].map(([engineId, basis]) => [
+            engineId,
+            { basis, lastMove: null },
+          ]),
+        )
+      : readDueBases(ctx, db, rows, scope);
     return rows.map((engine) => {
       const { basis, lastMove } = bases.get(engine.id)!;
       const status = dueStateOn(basis, {
@@ -146,7 +160,7 @@ export function createPlanningService(ctx: AppContext) {
           tsn: engine.tsn,
           tsnCsnAsOf: engine.tsnCsnAsOf,
         },
-        awaitingBeyondLimits: Boolean(engine.awaitingBeyondLimits),
+        awaitingBeyondLimits: !view.releasedOnly && Boolean(engine.awaitingBeyondLimits),
         soon: config.dueSoon,
       });
       const dates = [status.nextInspection?.dueDate, status.removal?.dueDate].filter(
@@ -163,9 +177,11 @@ export function createPlanningService(ctx: AppContext) {
   function completed(
     readings: readonly Reading[],
     scope: EngineScope,
-    options = { warnings: true },
+    options = { warnings: true, bookings: true },
   ): EngineDue[] {
-    const bookings = new Map(bookingsOf(db, scope).map((booking) => [booking.engineId, booking]));
+    const bookings = new Map(
+      options.bookings ? bookingsOf(db, scope).map((booking) => [booking.engineId, booking]) : [],
+    );
     const warningsOf = options.warnings
       ? seriesWarnings(db, [
           ...new Set(
@@ -203,6 +219,11 @@ export function createPlanningService(ctx: AppContext) {
       };
     });
   }
+
+  /** Staff read every signed inspection; an owner, the released ones as released. */
+  const viewOf = (principal: Principal): DueView => ({
+    releasedOnly: recordScope(principal).releasedOnly,
+  });
 
   const scopeOf = (
     principal: Principal,
@@ -246,7 +267,7 @@ export function createPlanningService(ctx: AppContext) {
       const readings = readingsOf(findEngineRowsIn(db, {}), {}, day)
         .filter(({ status }) => status.state !== 'removed')
         .sort((a, b) => compareText(a.date ?? '9999', b.date ?? '9999'));
-      const dues = completed(readings, {}, { warnings: false });
+      const dues = completed(readings, {}, { warnings: false, bookings: true });
       return readings.map((reading, index) => itemOf(reading.engine, dues[index]!));
     },
 
@@ -255,13 +276,15 @@ export function createPlanningService(ctx: AppContext) {
      * the list's rows go in as they are.
      */
     withNextDue(principal: Principal, page: EngineListResponse): EngineListResponse {
-      if (!can(principal.user.role, 'read:planning') || page.items.length === 0) return page;
+      if (page.items.length === 0) return page;
       const ids = page.items.map((item) => item.id);
       const due = new Map(
-        readingsOf(findEngineRowsIn(db, { engineIds: ids }), { engineIds: ids }).map((reading) => [
-          reading.engine.id,
-          reading.status,
-        ]),
+        readingsOf(
+          findEngineRowsIn(db, { engineIds: ids }),
+          { engineIds: ids },
+          today(),
+          viewOf(principal),
+        ).map((reading) => [reading.engine.id, reading.status]),
       );
       return {
         ...page,
@@ -277,8 +300,6 @@ export function createPlanningService(ctx: AppContext) {
      * list's filters read, then ordered and paged (those who may read planning only).
      */
     fleetByDue(principal: Principal, query: EngineListQuery): EngineListResponse {
-      if (!can(principal.user.role, 'read:planning'))
-        throw AppError.forbidden('Due states are shown to engineers, planners and administrators.');
       const { dueState, page, pageSize } = query;
       const all = engines.list(principal, {
         ...query,
@@ -290,10 +311,9 @@ export function createPlanningService(ctx: AppContext) {
       });
       const scope = scopeOf(principal, query);
       const readings = new Map(
-        readingsOf(findEngineRowsIn(db, scope), scope).map((reading) => [
-          reading.engine.id,
-          reading,
-        ]),
+        readingsOf(findEngineRowsIn(db, scope), scope, today(), viewOf(principal)).map(
+          (reading) => [reading.engine.id, reading],
+        ),
       );
       const direction = query.sort === 'nextDue' && query.order === 'desc' ? -1 : 1;
       // The list's own order stays for its other sorts (a stable sort keeps it).
@@ -316,10 +336,18 @@ export function createPlanningService(ctx: AppContext) {
       };
     },
 
+    /**
+     * An engine's due status. Its owner is told it as of the latest released inspection: no
+     * booking, no trend warning and no move, nothing of an inspection still in review.
+     */
     engineDue(principal: Principal, engineId: string): EngineDue {
       const engine = engines.visibleEngine(principal, engineId);
       const scope = { engineId: engine.id };
-      return completed(readingsOf([engine], scope), scope)[0]!;
+      const view = viewOf(principal);
+      return completed(readingsOf([engine], scope, today(), view), scope, {
+        warnings: !view.releasedOnly,
+        bookings: !view.releasedOnly,
+      })[0]!;
     },
 
     /**
@@ -345,7 +373,7 @@ export function createPlanningService(ctx: AppContext) {
     exportCsv(principal: Principal, query: PlanningQuery): string {
       const scope = scopeOf(principal, query);
       const readings = board(scope, query);
-      const dues = completed(readings, scope, { warnings: false });
+      const dues = completed(readings, scope, { warnings: false, bookings: true });
       const items = readings.map((reading, index) => itemOf(reading.engine, dues[index]!));
       return writeCsv(
         [
@@ -393,7 +421,10 @@ export function createPlanningService(ctx: AppContext) {
     ): EngineDue {
       const engine = engines.visibleEngine(principal, engineId);
       const scope = { engineId: engine.id };
-      const current = completed(readingsOf([engine], scope), scope, { warnings: false })[0]!;
+      const current = completed(readingsOf([engine], scope), scope, {
+        warnings: false,
+        bookings: true,
+      })[0]!;
       const day = today();
       const dueDate = current.nextInspection?.dueDate ?? null;
       const refuse = (message: string) =>

@@ -159,6 +159,20 @@ describe('the signed report of a released inspection', () => {
     expect((await download(submitted.id, engineer)).status).toBe(404);
   });
 
+  it('gives the owner renditions only: the original bytes (with the probe’s metadata) are for staff', async () => {
+    const customer = await t.signIn(demoAccounts.customer);
+    const inspection = await request(t.app)
+      .get('/api/v1/inspections/inspection-d0103-h2')
+      .set('Cookie', customer);
+    const imageId = (inspection.body.images as { id: string }[])[0]!.id;
+    const status = async (which: string, cookie: string) =>
+      (await request(t.app).get(`/api/v1/images/${imageId}/${which}`).set('Cookie', cookie)).status;
+    for (const which of ['thumbnail', 'preview', 'full'])
+      expect(await status(which, customer)).toBe(200);
+    expect(await status('original', customer)).toBe(404);
+    expect(await status('original', await t.signIn(demoAccounts.planner))).toBe(200);
+  });
+
   it('tells anyone with its code whether it is genuine and current, with three facts only, and whether a file is it', async () => {
     const sqlite = rawConnection(t.runtime.ctx.db);
     const stored = sqlite

@@ -1,6 +1,10 @@
 import express, { Router } from 'express';
 import { z } from 'zod';
 import {
+  deliveryLogSchema,
+  reportListQuerySchema,
+  reportListResponseSchema,
+  undeliveredUrgentNoticesSchema,
   reportFileCheckSchema,
   reportVerificationSchema,
   verificationCodeParamsSchema,
@@ -38,6 +42,43 @@ export function reportsRoutes(ctx: AppContext): Router {
       res.setHeader('Content-Type', 'application/pdf');
       res.setHeader('Content-Disposition', `attachment; filename="${filename}"`);
       res.send(bytes);
+    },
+  );
+  route(
+    router,
+    'GET /reports',
+    {
+      summary:
+        'Issued reports, newest release first, paged; customers see their own organisation’s',
+      query: reportListQuerySchema,
+      response: reportListResponseSchema,
+    },
+    (_req, res) => {
+      res.json(reports.list(principalOf(res), res.locals.query));
+    },
+  );
+  route(
+    router,
+    'GET /inspections/:id/deliveries',
+    {
+      summary:
+        'The delivery log of an inspection: each report revision’s e-mail and urgent notices',
+      params: idParamsSchema,
+      response: deliveryLogSchema,
+    },
+    (_req, res) => {
+      res.json(reports.deliveries(principalOf(res), res.locals.params.id));
+    },
+  );
+  route(
+    router,
+    'GET /urgent-notices/undelivered',
+    {
+      summary: 'Urgent notices to owners that have not been delivered (failed or needing a person)',
+      response: undeliveredUrgentNoticesSchema,
+    },
+    (_req, res) => {
+      res.json(reports.undeliveredUrgent());
     },
   );
   // Anyone holding a report may check it: no sign-in, limited per address.

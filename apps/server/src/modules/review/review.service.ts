@@ -753,8 +753,9 @@ export function createReviewService(
             report: { pdfSha256, revision },
           }),
         });
+        const reportId = newId();
         insertReport(tx, {
-          id: newId(),
+          id: reportId,
           inspectionId: id,
           revision,
           pdf,
@@ -776,10 +777,11 @@ export function createReviewService(
             filename: reportFilename(inspection.engineSerialNumber, inspection.date, revision),
             pdf,
           }),
+          // The report's own delivery log reads the messages about it.
           record: {
-            type: 'inspection',
-            id,
-            label: `Inspection of ${inspection.engineSerialNumber} on ${inspection.date}`,
+            type: 'report',
+            id: reportId,
+            label: `Report revision ${revision}, inspection of ${inspection.engineSerialNumber} on ${inspection.date}`,
           },
         });
         setInspectionState(tx, id, 'released', {

@@ -9,6 +9,7 @@ import { useLogout } from '../../features/auth/api/auth';
 import { useSignedInUser } from '../../features/auth/hooks/use-signed-in-user';
 import { RecordsKeyBanner } from '../../features/installation/components/records-key-banner';
 import { OutboxAttentionBanner } from '../../features/outbox/components/attention-banner';
+import { UrgentNoticeBanner } from '../../features/reports/components/urgent-notice-banner';
 
 export function AppShell() {
   const user = useSignedInUser();
@@ -81,6 +82,7 @@ export function AppShell() {
         </div>
       </header>
       <RecordsKeyBanner />
+      <UrgentNoticeBanner enabled={can(user.role, 'review:inspection')} />
       <OutboxAttentionBanner enabled={can(user.role, 'read:outbox')} />
       <main id="main" className="mx-auto w-full max-w-7xl flex-1 px-6 py-8">
         <Outlet />

@@ -1,5 +1,6 @@
 import { can } from '@emberline/contracts/permissions';
 import { ArrowLeft } from 'lucide-react';
+import { ExportLinks } from '../../components/ui/export-links';
 import { Link, useParams } from 'react-router-dom';
 import { Notice } from '../../components/ui/notice';
 import { ApiError } from '../../lib/api-client';
@@ -108,17 +109,16 @@ export function EngineRoute() {
           released.
         </Notice>
       ) : null}
-      {can(user.role, 'read:planning') ? (
-        <Panel>
-          <h2 className="mb-4 text-lg font-semibold">Next due</h2>
-          <DueCard
-            engineId={data.id}
-            serialNumber={data.serialNumber}
-            canBook={can(user.role, 'plan:inspection')}
-            rowLabel={(key) => model.data?.rows.find((row) => row.key === key)?.label ?? key}
-          />
-        </Panel>
-      ) : null}
+      <Panel>
+        <h2 className="mb-4 text-lg font-semibold">Next due</h2>
+        <DueCard
+          engineId={data.id}
+          serialNumber={data.serialNumber}
+          canBook={can(user.role, 'plan:inspection')}
+          asReleased={!can(user.role, 'read:all-organisations')}
+          rowLabel={(key) => model.data?.rows.find((row) => row.key === key)?.label ?? key}
+        />
+      </Panel>
       {can(user.role, 'read:planning') ? <EngineTrends engineId={data.id} /> : null}
       <Panel>
         <h2 className="mb-4 text-lg font-semibold">Particulars</h2>
@@ -142,6 +142,12 @@ export function EngineRoute() {
           ) : null}
         </div>
         <InspectionsList engineId={data.id} />
+        <div className="mt-3">
+          <ExportLinks
+            path={`/engines/${encodeURIComponent(data.id)}/export`}
+            formats={['csv', 'xlsx']}
+          />
+        </div>
       </Panel>
     </div>
   );

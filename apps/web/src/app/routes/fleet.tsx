@@ -3,6 +3,7 @@ import { engineListQuerySchema } from '@emberline/contracts/fleet';
 import { can } from '@emberline/contracts/permissions';
 import { Plus } from 'lucide-react';
 import { Link, useSearchParams } from 'react-router-dom';
+import { ExportLinks } from '../../components/ui/export-links';
 import { PageHeader } from '../../components/ui/page';
 import { useSignedInUser } from '../../features/auth/hooks/use-signed-in-user';
 import { useEngineModels } from '../../features/engine-models/api/engine-models';
@@ -76,9 +77,16 @@ export function FleetRoute() {
         view={view}
         onChange={onChange}
         models={models.data ?? []}
-        seesDue={can(user.role, 'read:planning')}
         owners={seesOwners ? (owners.data ?? []) : null}
       />
+      <div className="mt-4">
+        <ExportLinks
+          label="Export the fleet’s findings (the model and owner chosen above)"
+          path="/findings/export"
+          formats={['csv', 'xlsx']}
+          query={{ modelId: view.modelId, organisationId: view.organisationId }}
+        />
+      </div>
     </>
   );
 }

@@ -22,7 +22,9 @@ import { VideoFrames } from '../../features/inspections/components/video-frames'
 import { RecordHistory } from '../../features/audit/components/record-history';
 import { FindingTrend } from '../../features/review/components/finding-trend';
 import { DecisionsSummary } from '../../features/review/components/decisions-summary';
+import { DeliveryLog } from '../../features/reports/components/delivery-log';
 import { ApiError } from '../../lib/api-client';
+import { ExportLinks } from '../../components/ui/export-links';
 import { formatDate, formatHours } from '../../lib/format';
 
 export function InspectionRoute() {
@@ -122,6 +124,12 @@ export function InspectionRoute() {
           <DecisionsSummary inspectionId={data.id} />
         </Panel>
       ) : null}
+      {data.state === 'released' ? (
+        <Panel className="flex flex-col gap-3">
+          <h2 className="text-lg font-semibold">E-mails to the owner</h2>
+          <DeliveryLog inspectionId={data.id} />
+        </Panel>
+      ) : null}
       <Panel className="flex flex-col gap-4">
         <h2 className="text-lg font-semibold">
           Images <span className="text-sm font-normal text-soot-600">({data.images.length})</span>
@@ -152,7 +160,14 @@ export function InspectionRoute() {
         ) : null}
       </Panel>
       <Panel className="flex flex-col gap-4">
-        <h2 className="text-lg font-semibold">Findings and coverage</h2>
+        <div className="flex flex-wrap items-baseline justify-between gap-2">
+          <h2 className="text-lg font-semibold">Findings and coverage</h2>
+          <ExportLinks
+            label="Export"
+            path={`/inspections/${encodeURIComponent(data.id)}/export`}
+            formats={['csv', 'xlsx', 'json']}
+          />
+        </div>
         {findings.data ? <OutcomeSummary outcome={findings.data.outcome} /> : <LoadingLine />}
         {findings.error ? <Notice tone="error">{findings.error.message}</Notice> : null}
         {findings.data && coverage.data ? (

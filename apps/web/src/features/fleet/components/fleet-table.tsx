@@ -122,11 +122,9 @@ interface FleetTableProps {
   models: EngineModelSummary[];
   /** Owners to filter by; null for a customer, who only sees their own. */
   owners: Organisation[] | null;
-  /** The caller may read due states (engineers, planners, administrators). */
-  seesDue: boolean;
 }
 
-export function FleetTable({ view, onChange, models, owners, seesDue }: FleetTableProps) {
+export function FleetTable({ view, onChange, models, owners }: FleetTableProps) {
   const { hidden: hiddenInAddress, ...query } = view;
   // Shown at once, while the address follows (router navigations are transitions, and a
   // controlled checkbox would snap back until one lands).
@@ -155,11 +153,9 @@ export function FleetTable({ view, onChange, models, owners, seesDue }: FleetTab
   const columnVisibility: ColumnVisibilityState = useMemo(
     () =>
       Object.fromEntries(
-        [...hidden, ...(owners ? [] : ['organisationName']), ...(seesDue ? [] : ['nextDue'])].map(
-          (id) => [id, false],
-        ),
+        [...hidden, ...(owners ? [] : ['organisationName'])].map((id) => [id, false]),
       ),
-    [hidden, owners, seesDue],
+    [hidden, owners],
   );
 
   const table = useTable({
@@ -251,27 +247,25 @@ export function FleetTable({ view, onChange, models, owners, seesDue }: FleetTab
             <EngineStatusOptions />
           </Select>
         </label>
-        {seesDue ? (
-          <label className="flex flex-col gap-1 text-sm font-medium">
-            Due state
-            <Select
-              value={view.dueState ?? ''}
-              onChange={(event) =>
-                onChange({
-                  dueState: (event.target.value || undefined) as FleetView['dueState'],
-                  page: 1,
-                })
-              }
-            >
-              <option value="">Any due state</option>
-              {dueStates.map((state) => (
-                <option key={state} value={state}>
-                  {dueStateLabels[state]}
-                </option>
-              ))}
-            </Select>
-          </label>
-        ) : null}
+        <label className="flex flex-col gap-1 text-sm font-medium">
+          Due state
+          <Select
+            value={view.dueState ?? ''}
+            onChange={(event) =>
+              onChange({
+                dueState: (event.target.value || undefined) as FleetView['dueState'],
+                page: 1,
+              })
+            }
+          >
+            <option value="">Any due state</option>
+            {dueStates.map((state) => (
+              <option key={state} value={state}>
+                {dueStateLabels[state]}
+              </option>
+            ))}
+          </Select>
+        </label>
         <details className="relative">
           <summary className="cursor-pointer rounded-md border border-soot-300 bg-white px-3 py-2 text-sm">
             Columns

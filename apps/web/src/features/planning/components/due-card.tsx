@@ -31,11 +31,14 @@ export function DueCard({
   serialNumber,
   rowLabel,
   canBook,
+  asReleased = false,
 }: {
   engineId: string;
   serialNumber: string;
   rowLabel: (key: string) => string;
   canBook: boolean;
+  /** The owner's view: computed from released inspections only, which the card says. */
+  asReleased?: boolean;
 }) {
   const due = useEngineDue(engineId);
   if (due.isPending) return <LoadingLine />;
@@ -48,6 +51,12 @@ export function DueCard({
         <DueStateBadge state={data.state} />
         <span>{data.reason}</span>
       </div>
+      {asReleased ? (
+        <p className="text-soot-700">
+          As of the latest released inspection: an inspection still in review counts once it is
+          released.
+        </p>
+      ) : null}
       {next ? (
         <dl className="grid gap-x-6 gap-y-2 sm:grid-cols-3">
           <div>

@@ -1,0 +1,40 @@
+import { z } from 'zod';
+import { isoDateSchema } from './forecast';
+
+/** Findings as CSV or XLSX (one row a recorded finding, units in the headers). */
+export const tableFormats = ['csv', 'xlsx'] as const;
+/** An inspection also exports whole, as JSON in the contract shapes. */
+export const exportFormats = [...tableFormats, 'json'] as const;
+export type ExportFormat = (typeof exportFormats)[number];
+
+export const exportFormatLabels: Record<ExportFormat, string> = {
+  csv: 'CSV',
+  xlsx: 'Excel (XLSX)',
+  json: 'JSON (whole inspection)',
+};
+
+export const inspectionExportQuerySchema = z.strictObject({
+  format: z.enum(exportFormats, { message: 'Choose csv, xlsx or json' }),
+});
+
+export const engineExportQuerySchema = z.strictObject({
+  format: z.enum(tableFormats, { message: 'Choose csv or xlsx' }),
+});
+
+/** The fleet's findings, narrowed like the fleet list; customers get their own whatever is asked. */
+export const fleetExportQuerySchema = z
+  .strictObject({
+    format: z.enum(tableFormats, { message: 'Choose csv or xlsx' }),
+    modelId: z.string().trim().min(1).max(64).optional(),
+    organisationId: z.string().trim().min(1).max(64).optional(),
+    engineId: z.string().trim().min(1).max(64).optional(),
+    /** Inspections on or after this day. */
+    from: isoDateSchema.optional(),
+    /** Inspections on or before this day. */
+    to: isoDateSchema.optional(),
+  })
+  .refine((query) => !query.from || !query.to || query.from <= query.to, {
+    message: 'The first day comes after the last',
+    path: ['to'],
+  });
+export type FleetExportQuery = z.output<typeof fleetExportQuerySchema>;
