@@ -7,6 +7,7 @@ import { benchImpact } from './impact';
 import { benchIngest } from './ingest';
 import { benchInitialJavaScript } from './initial-javascript';
 import { benchPlanning } from './planning';
+import { benchReport } from './report';
 import { benchSessionCheck } from './session-check';
 
 const benches: [string, () => Promise<Result | Result[]>][] = [
@@ -18,6 +19,7 @@ const benches: [string, () => Promise<Result | Result[]>][] = [
   ['planning', benchPlanning],
   ['ingest', benchIngest],
   ['annotation', benchAnnotation],
+  ['report', benchReport],
 ];
 interface Result {
   name: string;

@@ -89,3 +89,30 @@ export async function submitForReview(app: Express, cookie: string, id: string):
       .expect(200);
   await request(app).post(`/api/v1/inspections/${id}/submission`).set('Cookie', cookie).expect(200);
 }
+
+/** Records every row of an inspection as fully viewed. */
+export async function coverAllRows(
+  app: Express,
+  cookie: string,
+  id: string,
+  rows: readonly string[] = ['hpt1-ngv', 'hpt1-blade'],
+): Promise<void> {
+  for (const row of rows)
+    await request(app)
+      .put(`/api/v1/inspections/${id}/coverage/${row}`)
+      .set('Cookie', cookie)
+      .send({ status: 'full', viewedPositions: [], noDamageFound: false, reason: '' })
+      .expect(200);
+}
+
+/** A GET whose body is read as bytes, whatever its type (a PDF, a workbook). */
+export const getBytes = (app: Express, url: string, cookie: string) =>
+  request(app)
+    .get(`/api/v1${url}`)
+    .set('Cookie', cookie)
+    .buffer(true)
+    .parse((response, done) => {
+      const chunks: Buffer[] = [];
+      response.on('data', (chunk: Buffer) => chunks.push(chunk));
+      response.on('end', () => done(null, Buffer.concat(chunks)));
+    });

@@ -1,5 +1,7 @@
 import type { TrendRequest, TrendResult } from '@emberline/contracts/trend';
+import type { Rule } from '@emberline/contracts/limits';
 import { DomainError } from './errors';
+import { MM2_PER_SQUARE_INCH, MM_PER_INCH } from './units';
 
 /**
  * Least-squares trend of one damage series (DESIGN §5.4): value = a + b·csn, r² from three points,
@@ -64,5 +66,47 @@ export function trendWarning(
   return {
     cyclesRemaining: result.cyclesRemaining,
     projectedCsnAtLimit: result.projectedCsnAtLimit,
+  };
+}
+
+/** A measured point of a damage series, in mm (or mm² for an area rule). */
+export interface SeriesPoint {
+  csn: number;
+  value: number;
+  uncertainty: number;
+}
+
+/**
+ * What a damage series is projected against (DESIGN §5.4, §5.6): the outer limit of the rule that
+ * judged its latest finding (the repeat limit, else the serviceable one) in mm or mm², and the
+ * measurements of the series in that measure. Null for a rule without such a limit.
+ */
+export function seriesAgainstRule(
+  rule: Pick<Rule, 'measure' | 'unit' | 'repeatMax' | 'serviceableMax'>,
+  points: readonly {
+    csn: number;
+    lengthMm: number | null;
+    areaMm2: number | null;
+    uncertaintyMm: number | null;
+    uncertaintyMm2: number | null;
+  }[],
+): { area: boolean; limit: number; points: SeriesPoint[] } | null {
+  const outer = rule.repeatMax ?? rule.serviceableMax;
+  if (outer === null) return null;
+  const area = rule.measure === 'area';
+  const limit =
+    rule.unit === 'in'
+      ? outer * MM_PER_INCH
+      : rule.unit === 'in2'
+        ? outer * MM2_PER_SQUARE_INCH
+        : outer;
+  return {
+    area,
+    limit,
+    points: points.flatMap((point) => {
+      const value = area ? point.areaMm2 : point.lengthMm;
+      const uncertainty = (area ? point.uncertaintyMm2 : point.uncertaintyMm) ?? 0;
+      return value === null ? [] : [{ csn: point.csn, value, uncertainty }];
+    }),
   };
 }

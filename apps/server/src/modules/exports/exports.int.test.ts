@@ -9,6 +9,7 @@ import { MM_PER_INCH } from '@emberline/domain/units';
 import { verdictStyles } from '@emberline/drawings/verdict-style';
 import { demoAccounts, startTestApp, type TestApp } from '../../../test/test-app';
 import {
+  getBytes,
   openInspection,
   still,
   tenMillimetreReference,
@@ -22,16 +23,7 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-const bytesOf = (url: string, cookie: string) =>
-  request(t.app)
-    .get(`/api/v1${url}`)
-    .set('Cookie', cookie)
-    .buffer(true)
-    .parse((response, done) => {
-      const chunks: Buffer[] = [];
-      response.on('data', (chunk: Buffer) => chunks.push(chunk));
-      response.on('end', () => done(null, Buffer.concat(chunks)));
-    });
+const bytesOf = (url: string, cookie: string) => getBytes(t.app, url, cookie);
 
 /** A CSV export as an independent parser (papaparse) reads it: one object a row. */
 async function csvRows(url: string, cookie: string) {

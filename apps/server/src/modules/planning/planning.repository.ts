@@ -164,6 +164,8 @@ export function seriesPoints(db: DbOrTx, seriesIds: readonly string[]) {
     .select({
       id: findings.id,
       seriesId: findings.seriesId,
+      inspectionId: findings.inspectionId,
+      inspectionState: inspections.state,
       csn: inspections.csn,
       date: inspections.date,
       lengthMm: findings.lengthMm,

@@ -12,8 +12,7 @@ import {
 import type { Rule } from '@emberline/contracts/limits';
 import type { EngineListQuery, EngineListResponse } from '@emberline/contracts/fleet';
 import { dayWords, daysBetween } from '@emberline/domain/dates';
-import { trendWarning } from '@emberline/domain/trend';
-import { MM2_PER_SQUARE_INCH, MM_PER_INCH } from '@emberline/domain/units';
+import { seriesAgainstRule, trendWarning } from '@emberline/domain/trend';
 import { removalKindWords } from '@emberline/domain/decision-words';
 import { dueStateOn, type DueBasis } from '@emberline/domain/due-status';
 import type { AppContext, RequestMeta } from '../../context';
@@ -69,21 +68,9 @@ function seriesWarnings(db: DbOrTx, seriesIds: readonly string[]) {
           ? rulesOf(latest.limitSetId).get(evaluation.ruleId)
           : undefined;
       if (!latest || !rule) return [];
-      const outer = rule.repeatMax ?? rule.serviceableMax;
-      if (outer === null) return [];
-      const area = rule.measure === 'area';
-      const limit =
-        rule.unit === 'in'
-          ? outer * MM_PER_INCH
-          : rule.unit === 'in2'
-            ? outer * MM2_PER_SQUARE_INCH
-            : outer;
-      const measured = series.flatMap((point) => {
-        const value = area ? point.areaMm2 : point.lengthMm;
-        const uncertainty = (area ? point.uncertaintyMm2 : point.uncertaintyMm) ?? 0;
-        return value === null ? [] : [{ csn: point.csn, value, uncertainty }];
-      });
-      const warning = trendWarning(measured, limit, expectedCsn);
+      const against = seriesAgainstRule(rule, series);
+      if (!against) return [];
+      const warning = trendWarning(against.points, against.limit, expectedCsn);
       return warning
         ? [{ seriesId, findingId: latest.id, cyclesRemaining: Math.round(warning.cyclesRemaining) }]
         : [];

@@ -8,7 +8,10 @@ import { MM_PER_INCH, MM2_PER_SQUARE_INCH } from '@emberline/domain/units';
 import { annotationOverlay, type OverlayShape } from '@emberline/drawings/overlay';
 import { clockOfPositionOne, stageRing } from '@emberline/drawings/stage-ring';
 import { renderSvg } from '@emberline/drawings/svg';
+import { trendChart } from '@emberline/drawings/trend-chart';
 import { verdictStyles } from '@emberline/drawings/verdict-style';
+import type { Rule } from '@emberline/contracts/limits';
+import { seriesAgainstRule, trend } from '@emberline/domain/trend';
 import type { AppContext } from '../../context';
 import { drawOverJpeg, svgToPng } from '../../lib/images/image-pipeline';
 import { renderPdf } from '../../lib/pdf/pdf-renderer';
@@ -18,8 +21,10 @@ import { findEngineRow } from '../engines/engines.repository';
 import { listFindings } from '../findings/findings.repository';
 import { listImages, readRendition } from '../images/images.repository';
 import { findInspection } from '../inspections/inspections.repository';
-import { findLimitSet } from '../limit-sets/limit-sets.repository';
+import { findLimitSet, listRules } from '../limit-sets/limit-sets.repository';
 import { lastSignature } from '../records/records.repository';
+import { groupBy } from '../planning/due-basis';
+import { seriesPoints } from '../planning/planning.repository';
 import { reportDocument, type ReportContent } from './report-document';
 
 const words = (key: string) => key.replace(/-/g, ' ');
@@ -42,7 +47,12 @@ export interface ReportRequest {
  * here and put in words; `reportDocument` lays it out and `renderPdf` makes the bytes. Nothing is
  * written: the caller stores the bytes and signs their hash.
  */
-export async function buildReport(ctx: AppContext, request: ReportRequest): Promise<Buffer> {
+export async function buildReport(
+  ctx: AppContext,
+  request: ReportRequest,
+  /** `images: false` leaves the annotated images out: the benchmark's ceiling, never a report. */
+  options: { images?: boolean } = {},
+): Promise<Buffer> {
   const { db } = ctx;
   const inspection = findInspection(db, request.inspectionId)!;
   const engine = findEngineRow(db, inspection.engineId)!;
@@ -99,30 +109,33 @@ export async function buildReport(ctx: AppContext, request: ReportRequest): Prom
 
   // Each image with findings, drawn over with the same overlay the screen shows.
   const imageMeta = new Map(listImages(db, inspection.id).map((image) => [image.id, image]));
-  const images: ReportContent['images'] = [];
   const byImage = new Map<string, typeof findings>();
   for (const finding of findings)
     byImage.set(finding.imageId, [...(byImage.get(finding.imageId) ?? []), finding]);
-  for (const [imageId, onImage] of byImage) {
-    const meta = imageMeta.get(imageId);
-    const preview = readRendition(db, imageId, 'preview');
-    if (!meta || !preview) continue;
-    const shapes: OverlayShape[] = onImage.map((finding) => ({
-      id: finding.id,
-      label: `F${finding.number}`,
-      kind: finding.shape.kind,
-      points: finding.shape.points,
-      category: verdictOf(finding),
-    }));
-    const overlay = renderSvg(
-      annotationOverlay({ width: meta.width, height: meta.height, shapes }),
-    );
-    const drawn = await drawOverJpeg(preview.data, overlay, meta.width, meta.height);
-    images.push({
-      ...drawn,
-      caption: `${meta.originalName ?? 'Image'}: ${onImage.map((finding) => `F${finding.number}`).join(', ')} (${label(onImage[0]!.rowKey)})`,
-    });
-  }
+  // Drawn side by side (sharp works off the event loop), kept in the order of the findings.
+  const drawnImages = await Promise.all(
+    [...(options.images === false ? [] : byImage)].map(async ([imageId, onImage]) => {
+      const meta = imageMeta.get(imageId);
+      const preview = readRendition(db, imageId, 'preview');
+      if (!meta || !preview) return null;
+      const shapes: OverlayShape[] = onImage.map((finding) => ({
+        id: finding.id,
+        label: `F${finding.number}`,
+        kind: finding.shape.kind,
+        points: finding.shape.points,
+        category: verdictOf(finding),
+      }));
+      const overlay = renderSvg(
+        annotationOverlay({ width: meta.width, height: meta.height, shapes }),
+      );
+      const drawn = await drawOverJpeg(preview.data, overlay, meta.width, meta.height);
+      return {
+        ...drawn,
+        caption: `${meta.originalName ?? 'Image'}: ${onImage.map((finding) => `F${finding.number}`).join(', ')} (${label(onImage[0]!.rowKey)})`,
+      };
+    }),
+  );
+  const images: ReportContent['images'] = drawnImages.filter((image) => image !== null);
 
   const measurement = (finding: (typeof findings)[number]) => {
     if (finding.lengthMm !== null)
@@ -132,6 +145,58 @@ export async function buildReport(ctx: AppContext, request: ReportRequest): Prom
     if (finding.count !== null) return `count ${finding.count}`;
     return '—';
   };
+
+  // The damage trend of each series with three measurements or more, up to this inspection
+  // (drafts of others aside), against the outer limit of the rule that judged this finding.
+  const series = groupBy(
+    seriesPoints(db, [...new Set(findings.map((finding) => finding.seriesId))]),
+    (point) => point.seriesId,
+  );
+  const rulesOf = new Map<string, Map<string, Rule>>();
+  const trends: ReportContent['trends'] = [];
+  for (const finding of findings) {
+    const ruleId = (finding.evaluation as { ruleId?: string | null } | null)?.ruleId;
+    if (!finding.limitSetId || !ruleId) continue;
+    if (!rulesOf.has(finding.limitSetId))
+      rulesOf.set(
+        finding.limitSetId,
+        new Map(listRules(db, finding.limitSetId).map((rule) => [rule.id, rule])),
+      );
+    const rule = rulesOf.get(finding.limitSetId)!.get(ruleId);
+    const points = (series.get(finding.seriesId) ?? []).filter(
+      (point) =>
+        point.csn <= inspection.csn &&
+        (point.inspectionState !== 'draft' || point.inspectionId === inspection.id),
+    );
+    const against = rule && seriesAgainstRule(rule, points);
+    if (!against || against.points.length < 3) continue;
+    const unit = against.area ? 'mm²' : 'mm';
+    const dateAt = new Map(points.map((point) => [point.csn, point.date]));
+    const distinct = new Set(against.points.map((point) => point.csn)).size >= 2;
+    const fit = distinct
+      ? trend({
+          points: against.points.map((point) => ({ csn: point.csn, value: point.value })),
+          limit: against.limit,
+        })
+      : null;
+    const caption = `F${finding.number}, ${label(finding.rowKey)} ${finding.position}, ${words(finding.damage)} in the ${words(finding.zone)}: ${against.points.length} measurements`;
+    const svg = renderSvg(
+      trendChart({ title: caption, points: against.points, limit: against.limit, fit, unit }),
+    );
+    trends.push({
+      caption,
+      chart: { png: await svgToPng(svg, 960), width: 480 },
+      lines: [
+        ...against.points.map(
+          (measured) =>
+            `CSN ${countWords(measured.csn)} (${dayWords(dateAt.get(measured.csn)!)}): ${measured.value.toFixed(2)} ± ${measured.uncertainty.toFixed(2)} ${unit}`,
+        ),
+        fit
+          ? `Straight line: ${fit.slopePerCycle >= 0 ? '+' : ''}${(fit.slopePerCycle * 1000).toFixed(3)} ${unit} per 1,000 cycles${fit.r2 !== null ? ` (r² ${fit.r2.toFixed(2)})` : ''}; ${fit.projectedCsnAtLimit !== null && fit.cyclesRemaining !== null ? `it reaches the limit of ${against.limit.toFixed(2)} ${unit} at about CSN ${countWords(Math.round(fit.projectedCsnAtLimit))}, ${countWords(Math.round(fit.cyclesRemaining))} cycles after the last measurement.` : `it does not grow towards the limit of ${against.limit.toFixed(2)} ${unit}.`}`
+          : 'Measured at one CSN only: no line is drawn.',
+      ],
+    });
+  }
 
   const chain = lastSignature(db);
   const content: ReportContent = {
@@ -226,7 +291,7 @@ export async function buildReport(ctx: AppContext, request: ReportRequest): Prom
       };
     }),
     images,
-    trends: [],
+    trends,
     signatures: [
       ...request.review.items.filter((item) => item.current).map((item) => item.signature),
       outcome.signature,

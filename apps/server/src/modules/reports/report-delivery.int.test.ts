@@ -20,6 +20,8 @@ import {
   type TestApp,
 } from '../../../test/test-app';
 import {
+  coverAllRows,
+  getBytes,
   openInspection,
   still,
   submitForReview,
@@ -27,6 +29,7 @@ import {
   uploadImages,
 } from '../../../test/inspection-fixtures';
 import { rawConnection } from '../../db/client';
+import { pdfText } from '../../../test/pdf-text';
 import { caughtMailStore } from '../../lib/email/caught-mail';
 import { startSmtpFake, type SmtpFake } from '../../lib/email/smtp-fake';
 
@@ -80,12 +83,7 @@ async function dispositionedCrack(t: TestApp) {
     .expect(201);
   const finding = recorded.body as Finding;
   expect(finding.evaluation?.category).toBe('beyond-limits');
-  for (const row of ['hpt1-ngv', 'hpt1-blade'])
-    await request(t.app)
-      .put(`/api/v1/inspections/${id}/coverage/${row}`)
-      .set('Cookie', inspector)
-      .send({ status: 'full', viewedPositions: [], noDamageFound: false, reason: '' })
-      .expect(200);
+  await coverAllRows(t.app, inspector, id);
   await submitForReview(t.app, inspector, id);
   const disposition = await request(t.app)
     .post(`/api/v1/findings/${finding.id}/dispositions`)
@@ -267,16 +265,7 @@ describe('delivery of reports and urgent notices (DESIGN §5.7)', () => {
     );
 
     const download = (revision: number) =>
-      request(t.app)
-        .get(`/api/v1/inspections/${id}/report`)
-        .query({ revision })
-        .set('Cookie', customer)
-        .buffer(true)
-        .parse((response, done) => {
-          const chunks: Buffer[] = [];
-          response.on('data', (chunk: Buffer) => chunks.push(chunk));
-          response.on('end', () => done(null, Buffer.concat(chunks)));
-        });
+      getBytes(t.app, `/inspections/${id}/report?revision=${revision}`, customer);
     const [one, two] = [await download(1), await download(2)];
     expect([one.status, two.status]).toEqual([200, 200]);
     expect(one.headers['content-disposition']).toContain('rev1.pdf');
@@ -304,6 +293,85 @@ describe('delivery of reports and urgent notices (DESIGN §5.7)', () => {
       current: true,
       revision: 2,
     });
+  });
+
+  it('draws the damage trend of a series measured three times into the report', async () => {
+    const t = await startTestApp({ delivery: 'manual', env: { DEMO_IMAGES: '1' } });
+    apps.push(t);
+    const inspector = await t.signIn(demoAccounts.inspector);
+    const engineer = await t.signIn(demoAccounts.engineer);
+    // VT3-D0103's blade 12 crack was measured at its two released inspections: a third follows.
+    const earlier = await get<{ items: Finding[] }>(
+      t,
+      '/inspections/inspection-d0103-h2/findings',
+      engineer,
+    );
+    const crack = earlier.items.find((item) => item.row === 'hpt1-blade')!;
+    const h2 = await get<{ csn: number; date: string }>(
+      t,
+      '/inspections/inspection-d0103-h2',
+      engineer,
+    );
+    const id = await openInspection(t.app, inspector, {
+      engineId: 'engine-d0103',
+      date: t.clock.now().toISOString().slice(0, 10),
+      csn: h2.csn + 120,
+    });
+    const [image] = await uploadImages(t.app, inspector, id, [await still(1600, 1200)]);
+    const recorded = await request(t.app)
+      .post(`/api/v1/inspections/${id}/findings`)
+      .set('Cookie', inspector)
+      .send({
+        imageId: image,
+        shape: {
+          kind: 'polyline',
+          points: [
+            [200, 600],
+            [256, 600],
+          ],
+        },
+        calibration: tenMillimetreReference,
+        row: 'hpt1-blade',
+        position: crack.position,
+        zone: crack.zone,
+        damage: 'crack',
+        method: 'image',
+        previousFindingId: crack.id,
+      })
+      .expect(201);
+    const finding = recorded.body as Finding;
+    await coverAllRows(t.app, inspector, id);
+    await submitForReview(t.app, inspector, id);
+    const evaluation = finding.evaluation!;
+    await request(t.app)
+      .post(`/api/v1/findings/${finding.id}/dispositions`)
+      .set('Cookie', engineer)
+      .send({
+        decision:
+          evaluation.category === 'serviceable'
+            ? { kind: 'serviceable' }
+            : evaluation.category === 'repeat-inspection'
+              ? { kind: 'repeat-inspection', repeatInterval: evaluation.repeatInterval }
+              : removeBeforeNextFlight,
+        rationale: 'Grows as the series foretold (invented limits)',
+        password: DEMO_PASSWORD,
+      })
+      .expect(201);
+    await signOutcome(t, id, engineer);
+    await release(t, id, engineer);
+
+    const response = await getBytes(t.app, `/inspections/${id}/report`, engineer);
+    expect(response.status).toBe(200);
+    const { text } = await pdfText(response.body as Buffer);
+    expect(text).toContain('Damage trends');
+    expect(text).toContain(`F${finding.number}, HPT stage 1 blades ${crack.position}`);
+    expect(text).toContain('3 measurements');
+    expect(text).toContain(`CSN ${(h2.csn + 120).toLocaleString('en-GB')}`);
+    expect(text).toMatch(/Straight line: [+-]\d\.\d{3} mm per 1,000 cycles \(r² \d\.\d{2}\)/);
+
+    // The two reports before it held no trend: their series had fewer than three measurements.
+    const first = await getBytes(t.app, '/inspections/inspection-d0103-h2/report', engineer);
+    expect((await pdfText(first.body as Buffer)).text).not.toContain('Damage trends');
   });
 
   it('lists to each customer their own reports only, whatever the query asks; staff see every one', async () => {

@@ -28,7 +28,7 @@ export interface ReportContent {
     signer: string;
   }[];
   images: { caption: string; jpeg: Buffer; width: number; height: number }[];
-  trends: { caption: string; lines: string[] }[];
+  trends: { caption: string; lines: string[]; chart: { png: Buffer; width: number } }[];
   signatures: { kind: string; signer: string; signedAt: string; sha256: string }[];
   chainHead: string;
 }
@@ -169,7 +169,7 @@ export function reportDocument(content: ReportContent): TDocumentDefinitions {
         ? {
             table: {
               headerRows: 1,
-              widths: [18, 50, 22, 45, 40, 68, 48, '*', 35, 45],
+              widths: [16, 46, 18, 38, 34, 62, 42, '*', 22, 52],
               body: [
                 [
                   'No.',
@@ -217,10 +217,20 @@ export function reportDocument(content: ReportContent): TDocumentDefinitions {
       ]),
       ...(content.trends.length
         ? [
-            heading('Damage trends'),
-            ...content.trends.map((trend): Content => ({
-              stack: [{ text: trend.caption, bold: true }, ...trend.lines],
-              margin: [0, 0, 0, 6],
+            ...content.trends.map((trend, index): Content => ({
+              // The heading stays with the first chart: never alone at the foot of a page.
+              stack: [
+                ...(index === 0 ? [heading('Damage trends')] : []),
+                { text: trend.caption, bold: true },
+                {
+                  image: dataUrl('image/png', trend.chart.png),
+                  width: 360,
+                  margin: [0, 4, 0, 4],
+                },
+                ...trend.lines.map((line) => ({ text: line, fontSize: 8.5 })),
+              ],
+              unbreakable: true,
+              margin: [0, 0, 0, 10],
             })),
             {
               text: 'A trend is a straight line through past measurements, not a prediction: the approved manual and the engineer decide.',
