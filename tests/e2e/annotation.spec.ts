@@ -246,3 +246,50 @@ test('every drawing tool can be chosen and used from the keyboard', async ({ pag
   await page.keyboard.press('Enter');
   await expect(page.getByTestId('calibration-state')).toHaveText('Plane 2 × 2 mm');
 });
+
+test('a finding follows the still’s tag, and one placed elsewhere is recorded only when the inspector says so', async ({
+  page,
+}) => {
+  await signIn(page, 'inspector@demo.test');
+  const id = await inspectionWithDemoStills(page);
+  const detail = await (await page.request.get(`/api/v1/inspections/${id}`)).json();
+  const blade = detail.images.find(
+    (image: { originalName: string }) => image.originalName === 'hpt1-blade-pos12.jpg',
+  );
+  const tagged = await page.request.patch(`/api/v1/images/${blade.id}`, {
+    data: { rowKey: 'hpt1-blade', position: 2 },
+  });
+  expect(tagged.status()).toBe(200);
+  await page.goto(`/inspections/${id}`);
+  const area = page.getByTestId('drawing-area');
+  const findingForm = page.getByRole('form', { name: 'Record the finding' });
+  // First the untagged vane still, with the form set to another row, then the tagged blade still.
+  await page
+    .getByTestId('image-strip')
+    .getByRole('button', { name: /hpt1-ngv-pos04/ })
+    .click();
+  await findingForm.getByRole('combobox', { name: 'Row', exact: true }).selectOption('hpt1-ngv');
+  await findingForm.getByLabel(/^Position/).fill('9');
+  await page
+    .getByTestId('image-strip')
+    .getByRole('button', { name: /hpt1-blade-pos12/ })
+    .click();
+  await expect(findingForm.getByRole('combobox', { name: 'Row', exact: true })).toHaveValue(
+    'hpt1-blade',
+  );
+  await expect(findingForm.getByLabel(/^Position/)).toHaveValue('2');
+
+  // Draw a crack, then move it to another blade: the form asks once.
+  await page.getByRole('button', { name: /^Line/ }).click();
+  await clickAt(area, 760, 420);
+  await clickAt(area, 825, 535);
+  await area.press('Enter');
+  await findingForm.getByRole('combobox', { name: 'Damage', exact: true }).selectOption('crack');
+  await findingForm.getByLabel(/^Position/).fill('3');
+  const notice = findingForm.getByText('Not where the still is tagged');
+  await expect(notice).toBeVisible();
+  await expect(page.getByRole('button', { name: 'Record finding' })).toBeDisabled();
+  await findingForm.getByRole('button', { name: /all the same/ }).click();
+  await expect(findingForm.getByText('You said it belongs there.')).toBeVisible();
+  await expect(page.getByRole('button', { name: 'Record finding' })).toBeEnabled();
+});

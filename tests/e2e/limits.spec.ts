@@ -1,3 +1,4 @@
+import { seriousViolations } from './axe';
 import { expect, signIn, test } from './fixtures';
 
 // The demo's invented revision D-1 is in force; the blade-edge crack on VT3-D0103 (1.34 mm in the
@@ -9,6 +10,11 @@ test('the engineer copies the demo revision, tightens a crack limit, checks the 
 }) => {
   // Publishing with a wrong password is refused first.
   expectHttpError(422, /\/publication$/);
+  // No request with an empty id (the draft screen once asked for /engine-models//limit-sets).
+  const emptyIds: string[] = [];
+  page.on('request', (request) => {
+    if (/\/api\/v1\/.*\/\//.test(request.url())) emptyIds.push(request.url());
+  });
   await signIn(page, 'engineer@demo.test');
   await page
     .getByRole('navigation', { name: 'Main' })
@@ -77,6 +83,36 @@ test('the engineer copies the demo revision, tightens a crack limit, checks the 
   );
   await expect(page.getByTestId('impact-engines')).toContainText('VT3-D0103');
   await impact.screenshot({ path: 'test-results/limits-impact.png' });
+
+  // What the draft changes against D-1, field by field.
+  await expect(page.getByTestId('rule-change')).toHaveCount(1);
+  await expect(page.getByTestId('rule-change')).toContainText('Changed: HPT stage 1 blades, crack');
+  await expect(page.getByTestId('rule-change')).toContainText('repeatMax: 1.5 → 1.2');
+
+  // Its author cannot check it, and it cannot be published unchecked.
+  await expect(page.getByTestId('limit-check')).toContainText('You made or changed this draft');
+  await expect(page.getByRole('button', { name: 'Publish…' })).toBeDisabled();
+  await expect(page.getByRole('button', { name: 'Sign the check…' })).toBeDisabled();
+  const draftUrl = page.url();
+  await page.getByRole('button', { name: 'Sign out' }).click();
+  await expect(page.getByRole('heading', { name: 'Sign in' })).toBeVisible();
+
+  // A second engineer signs the independent check.
+  await signIn(page, 'engineer2@demo.test');
+  await page.goto(draftUrl);
+  await page.getByRole('button', { name: 'Sign the check…' }).click();
+  const check = page.getByRole('form', { name: 'Check revision D-3' });
+  await expect(check).toContainText('takes effect on 2027-01-15');
+  await check.getByLabel(/Your password/).fill('emberline-demo');
+  await check.getByRole('button', { name: 'Sign the check of D-3' }).click();
+  await expect(page.getByTestId('limit-check')).toContainText('Checked by Anselm Ruddock');
+  expect(emptyIds).toEqual([]);
+  expect(await seriousViolations(page), 'limit draft, checked').toEqual([]);
+  await page.screenshot({ path: 'test-results/limits-checked.png', fullPage: true });
+  await page.getByRole('button', { name: 'Sign out' }).click();
+  await expect(page.getByRole('heading', { name: 'Sign in' })).toBeVisible();
+  await signIn(page, 'engineer@demo.test');
+  await page.goto(draftUrl);
 
   await page.getByRole('button', { name: 'Publish…' }).click();
   const publish = page.getByRole('form', { name: 'Publish revision D-3' });

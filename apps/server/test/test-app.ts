@@ -101,6 +101,7 @@ export const demoAccounts = {
   admin: 'admin@demo.test',
   inspector: 'inspector@demo.test',
   engineer: 'engineer@demo.test',
+  engineer2: 'engineer2@demo.test',
   planner: 'planner@demo.test',
   customer: 'customer@demo.test',
   customer2: 'customer2@demo.test',

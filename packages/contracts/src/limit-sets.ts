@@ -33,7 +33,32 @@ export const limitSetSummarySchema = z.object({
 });
 export type LimitSetSummary = z.infer<typeof limitSetSummarySchema>;
 
-export const limitSetSchema = limitSetSummarySchema.extend({ rules: z.array(ruleSchema) });
+/** What differs in a draft from the revision it was copied from, rule by rule. */
+export const ruleChangeSchema = z.object({
+  ruleId: z.string(),
+  kind: z.enum(['added', 'removed', 'changed']),
+  /** For a changed rule: each field that differs, with its old and new value. */
+  fields: z.array(z.object({ field: z.string(), from: z.unknown(), to: z.unknown() })),
+});
+export type RuleChange = z.infer<typeof ruleChangeSchema>;
+
+/** The independent check of a draft (DESIGN §5.5): signed by an engineer who changed nothing in it. */
+export const limitCheckSchema = z.object({
+  signerName: z.string(),
+  signedAt: z.string(),
+});
+export type LimitCheck = z.infer<typeof limitCheckSchema>;
+
+export const limitSetSchema = limitSetSummarySchema.extend({
+  rules: z.array(ruleSchema),
+  /** The check that stands for the draft as it is now; null when none (or an edit came after). */
+  check: limitCheckSchema.nullable(),
+  /** Who changed the draft (they may not check it). */
+  editorIds: z.array(z.string()),
+  /** Against the revision it was copied from; empty for a revision copied from none. */
+  changes: z.array(ruleChangeSchema),
+  basedOnRevision: z.string().nullable(),
+});
 export type LimitSet = z.infer<typeof limitSetSchema>;
 
 export const limitSetListResponseSchema = z.object({ items: z.array(limitSetSummarySchema) });
@@ -59,6 +84,11 @@ export const limitSetParticularsSchema = limitSetCopyInputSchema;
 
 export const limitRulesInputSchema = z.strictObject({ rules: z.array(ruleSchema).max(5000) });
 export type LimitRulesInput = z.input<typeof limitRulesInputSchema>;
+
+/** The independent check asks for the checker's password again. */
+export const limitCheckInputSchema = z.strictObject({
+  password: z.string().min(1, { message: 'Enter your password to sign the check' }).max(200),
+});
 
 /** Publishing asks for the engineer's password again. */
 export const publishInputSchema = z.strictObject({

@@ -37,7 +37,7 @@ describe('inspection flags', () => {
     const flags = inspectionFlags({ ...base, csn: 10_000, tsn: 21_000 }, engine, records);
     expect(flags.map((flag) => flag.code)).toEqual(['csn-doubt', 'tsn-doubt']);
     expect(flags[0]!.message).toBe(
-      'CSN 10,000 does not fit the utilization records, which give about 10,200 on 2026-02-28.',
+      'CSN 10,000 does not fit the utilization records, which give about 10,200 on 28 Feb 2026.',
     );
   });
 
@@ -48,7 +48,39 @@ describe('inspection flags', () => {
     ).toEqual([]);
   });
 
-  it('after the last figures, raises only values below them', () => {
+  it('after the last figures, raises a jump of more than twice the 90-day rate plus 10 cycles (20 hours)', () => {
+    // The records give 300 cycles and 600 h over the 90 days to 31 March: 3.33 cycles and 6.67 h a
+    // day. 31 days later the allowance is 2 × 3.33 × 31 + 10 = 216.7 cycles and 2 × 6.67 × 31 + 20
+    // = 433.3 h.
+    const at = (csn: number, tsn: number) =>
+      inspectionFlags({ ...base, date: '2026-05-01', csn, tsn }, engine, records).map(
+        (flag) => flag.code,
+      );
+    expect(at(10_300 + 216, 20_600 + 433)).toEqual([]);
+    expect(at(10_300 + 218, 20_600 + 433)).toEqual(['csn-doubt']);
+    expect(at(10_300 + 216, 20_600 + 435)).toEqual(['tsn-doubt']);
+    // The jump that went through: 3,260 cycles in two days.
+    const jump = inspectionFlags(
+      { ...base, date: '2026-04-02', csn: 13_560, tsn: 20_610 },
+      engine,
+      records,
+    );
+    expect(jump.map((flag) => flag.code)).toEqual(['csn-doubt']);
+    expect(jump[0]!.message).toBe(
+      'CSN 13,560 is 3,260 cycles more than the 10,300 of 31 Mar 2026, 2 days earlier; the engine flies about 7 cycles in that time.',
+    );
+  });
+
+  it('without utilization records, raises more than 20 cycles (40 hours) a day', () => {
+    const at = (csn: number, tsn: number) =>
+      inspectionFlags({ ...base, date: '2026-04-10', csn, tsn }, engine, []).map(
+        (flag) => flag.code,
+      );
+    expect(at(10_300 + 200, 20_600 + 400)).toEqual([]);
+    expect(at(10_300 + 201, 20_600 + 401)).toEqual(['csn-doubt', 'tsn-doubt']);
+  });
+
+  it('after the last figures, raises values below them', () => {
     expect(
       inspectionFlags({ ...base, date: '2026-05-01', csn: 10_400, tsn: 20_800 }, engine, records),
     ).toEqual([]);

@@ -1,5 +1,5 @@
-import { daysBetween } from './dates';
-import type { UtilizationIncrement } from './utilization';
+import { dayWords, daysBetween } from './dates';
+import { dailyUtilization, type UtilizationIncrement } from './utilization';
 
 export interface FlagInput {
   date: string;
@@ -44,7 +44,9 @@ const round = (value: number) => Math.round(value).toLocaleString('en-GB');
  * inspector qualification on the day, and CSN or TSN that do not fit the engine's records. The
  * records give the engine's CSN and TSN on the day as its figures "as of" less what was flown
  * since; a difference of more than 1 % (and at least 10 cycles or hours) is raised. For a day after
- * the last figures the records cannot tell, so only a value below them is raised.
+ * the last figures, a value below them is raised, and so is one that grew by more than twice what
+ * the 90-day rate gives over the days since, plus 10 cycles (20 hours); without utilization
+ * records, by more than 20 cycles (40 hours) a day.
  */
 export function inspectionFlags(
   input: FlagInput,
@@ -64,6 +66,7 @@ export function inspectionFlags(
       message: `The inspector’s qualification expired on ${input.qualificationExpiresOn}, before the inspection on ${input.date}.`,
     });
   }
+  const rates = dailyUtilization(records);
   const check = (
     code: 'csn-doubt' | 'tsn-doubt',
     label: string,
@@ -71,11 +74,27 @@ export function inspectionFlags(
     asOf: number,
     flown: number,
   ) => {
+    const cycles = code === 'csn-doubt';
+    const unit = cycles ? 'cycles' : 'hours';
     if (input.date > engine.tsnCsnAsOf) {
-      if (given < asOf)
+      if (given < asOf) {
         flags.push({
           code,
-          message: `${label} ${round(given)} is below the ${round(asOf)} the engine already had on ${engine.tsnCsnAsOf}.`,
+          message: `${label} ${round(given)} is below the ${round(asOf)} the engine already had on ${dayWords(engine.tsnCsnAsOf)}.`,
+        });
+        return;
+      }
+      const days = daysBetween(engine.tsnCsnAsOf, input.date);
+      const perDay = cycles ? rates.cyclesPerDay : rates.hoursPerDay;
+      const allowance =
+        perDay !== null ? 2 * perDay * days + (cycles ? 10 : 20) : (cycles ? 20 : 40) * days;
+      if (given - asOf > allowance)
+        flags.push({
+          code,
+          message:
+            perDay !== null
+              ? `${label} ${round(given)} is ${round(given - asOf)} ${unit} more than the ${round(asOf)} of ${dayWords(engine.tsnCsnAsOf)}, ${days} ${days === 1 ? 'day' : 'days'} earlier; the engine flies about ${round(perDay * days)} ${unit} in that time.`
+              : `${label} ${round(given)} is ${round(given - asOf)} ${unit} more than the ${round(asOf)} of ${dayWords(engine.tsnCsnAsOf)}, ${days} ${days === 1 ? 'day' : 'days'} earlier: more than ${cycles ? 20 : 40} ${unit} a day, and no utilization is recorded.`,
         });
       return;
     }
@@ -83,7 +102,7 @@ export function inspectionFlags(
     if (Math.abs(given - expected) > Math.max(10, 0.01 * expected)) {
       flags.push({
         code,
-        message: `${label} ${round(given)} does not fit the utilization records, which give about ${round(expected)} on ${input.date}.`,
+        message: `${label} ${round(given)} does not fit the utilization records, which give about ${round(expected)} on ${dayWords(input.date)}.`,
       });
     }
   };

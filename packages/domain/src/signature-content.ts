@@ -232,6 +232,16 @@ export function publicationContent(subject: PublicationSubject) {
   };
 }
 
+/** A limit revision's independent check covers its content hash as checked. */
+export function limitCheckContent(subject: PublicationSubject) {
+  return {
+    limitSetId: subject.limitSetId,
+    modelId: subject.modelId,
+    revision: subject.revision,
+    contentSha256: subject.contentSha256,
+  };
+}
+
 export interface ReleaseSubject {
   inspectionId: string;
   outcomeSignatureSha256: string;

@@ -1,3 +1,4 @@
+import { addDays } from '@emberline/domain/dates';
 import type { Rule } from '@emberline/contracts/limits';
 import { validateRuleZones, validateRules } from '@emberline/domain/rules';
 import type { DbOrTx } from '../db/client';
@@ -378,7 +379,8 @@ export function loadDemoLimits(tx: DbOrTx, now: Date, effectiveDate: string): vo
     manualReference: 'VT-300 Demo Engine Manual 72-00-00 (invented), draft of revision 2',
     invented: true,
     status: 'draft',
-    effectiveDate: null,
+    // A month after the demo is loaded; the draft still waits for its independent check.
+    effectiveDate: addDays(now.toISOString().slice(0, 10), 30),
     basedOnId: DEMO_LIMIT_SET_ID,
     createdBy: 'user-engineer',
     createdAt: now,

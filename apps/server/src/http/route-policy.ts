@@ -97,6 +97,7 @@ export const routePolicy = {
   'POST /limit-sets/:id/copies': 'edit:limit-set',
   'PATCH /limit-sets/:id': 'edit:limit-set',
   'PUT /limit-sets/:id/rules': 'edit:limit-set',
+  'POST /limit-sets/:id/check': 'edit:limit-set',
   'POST /limit-sets/:id/publication': 'edit:limit-set',
   'GET /limit-sets/:id/impact': 'read:limit-set',
   'GET /limit-sets/:id/export': 'read:limit-set',

@@ -131,6 +131,7 @@ export function listHistory(db: DbOrTx, records: { entityType: string; ids: read
     .select({
       id: auditLog.id,
       at: auditLog.at,
+      actorUserId: auditLog.actorUserId,
       actorName: users.name,
       action: auditLog.action,
       before: auditLog.before,

@@ -2,6 +2,7 @@ import request from 'supertest';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import type { HistoryEntry } from '@emberline/contracts/audit';
 import { demoAccounts, DEMO_PASSWORD, startTestApp, type TestApp } from '../../../test/test-app';
+import { checkLimitDraft } from '../../../test/limit-fixtures';
 import {
   openInspection,
   still,
@@ -107,6 +108,7 @@ describe('history in words', () => {
   });
 
   it('tells a limit revision’s history, and filters the audit log by record, person and day', async () => {
+    await checkLimitDraft(t.app, (email) => t.signIn(email), DEMO_DRAFT_LIMIT_SET_ID);
     await request(t.app)
       .post(`/api/v1/limit-sets/${DEMO_DRAFT_LIMIT_SET_ID}/publication`)
       .set('Cookie', engineer)

@@ -357,6 +357,24 @@ describe('inspections', () => {
     expect(acknowledged.body.flags[1].acknowledgedAt).toBeNull();
   });
 
+  it('flags a CSN that jumped past what the engine can have flown since its last figures', async () => {
+    const engine = (
+      await request(t.app).get('/api/v1/engines/engine-d0101').set('Cookie', inspector)
+    ).body as { csn: number; tsn: number; tsnCsnAsOf: string };
+    const day = t.clock.now().toISOString().slice(0, 10);
+    expect(day > engine.tsnCsnAsOf).toBe(true);
+    const created = await request(t.app)
+      .post('/api/v1/inspections')
+      .set('Cookie', inspector)
+      .send({ ...inspection, date: day, csn: engine.csn + 3_260, tsn: engine.tsn + 10 });
+    expect(created.status).toBe(201);
+    const flags = created.body.flags as { code: string; message: string }[];
+    expect(flags.map((flag) => flag.code)).toEqual(['csn-doubt']);
+    expect(flags[0]!.message).toMatch(
+      /is 3,260 cycles more than the .* days? earlier; the engine flies about \d+ cycles in that time\.$/,
+    );
+  });
+
   it('refuses a row the engine model does not have, a future date, and an engine of nobody', async () => {
     const open = async (body: object, cookie = inspector) =>
       (await request(t.app).post('/api/v1/inspections').set('Cookie', cookie).send(body)).status;

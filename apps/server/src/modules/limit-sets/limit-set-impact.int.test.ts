@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { limitSetImpactSchema, type LimitSetImpact } from '@emberline/contracts/limit-sets';
 import { categories } from '@emberline/contracts/limits';
 import { demoAccounts, startTestApp, type TestApp } from '../../../test/test-app';
+import { checkLimitDraft } from '../../../test/limit-fixtures';
 import { DEMO_INSPECTION_ID } from '../../demo/demo-history';
 import { DEMO_DRAFT_LIMIT_SET_ID, DEMO_LIMIT_SET_ID } from '../../demo/demo-limits';
 
@@ -76,6 +77,7 @@ describe('the impact preview of a draft revision', () => {
 
   it('foretells what publishing stores on the open inspections', async () => {
     const impact = await previewD2();
+    await checkLimitDraft(t.app, (email) => t.signIn(email), DEMO_DRAFT_LIMIT_SET_ID);
     const engineer = await t.signIn(demoAccounts.engineer);
     const published = await request(t.app)
       .post(`/api/v1/limit-sets/${DEMO_DRAFT_LIMIT_SET_ID}/publication`)

@@ -10,6 +10,7 @@ import {
   uploadImages,
 } from '../../../test/inspection-fixtures';
 import { demoAccounts, startTestApp, type TestApp } from '../../../test/test-app';
+import { checkLimitDraft } from '../../../test/limit-fixtures';
 import { DEMO_MODEL_ID, demoModelRows } from '../../demo/demo-fleet';
 import { DEMO_DRAFT_LIMIT_SET_ID, DEMO_LIMIT_SET_ID } from '../../demo/demo-limits';
 
@@ -147,6 +148,7 @@ describe('the limit library, write side', () => {
         revision: 'D-3',
         title: 'Invented demo limits, tightened',
         manualReference: 'VT-300 Demo Engine Manual (invented), rev. 2',
+        effectiveDate: '2026-07-01',
       });
     expect(copy.status).toBe(201);
     expect(copy.body).toMatchObject({
@@ -176,6 +178,22 @@ describe('the limit library, write side', () => {
       .set('Cookie', engineer)
       .send({ rules });
     expect(saved.status).toBe(200);
+    // What the draft changes against D-1, rule by rule.
+    expect(saved.body.basedOnRevision).toBe('D-1');
+    expect(saved.body.changes).toEqual([
+      {
+        ruleId: 'hpt1-blade.crack.edges',
+        kind: 'changed',
+        fields: [
+          {
+            field: 'repeatMax',
+            from: (copy.body.rules as Rule[]).find((rule) => rule.id === 'hpt1-blade.crack.edges')!
+              .repeatMax,
+            to: 1,
+          },
+        ],
+      },
+    ]);
     expect(
       (
         await request(t.app)
@@ -201,6 +219,38 @@ describe('the limit library, write side', () => {
       ).status,
     ).toBe(403);
 
+    // Not in force before an independent check, which its author may not sign.
+    const unchecked = await request(t.app)
+      .post(`/api/v1/limit-sets/${copy.body.id}/publication`)
+      .set('Cookie', engineer)
+      .send({ password: 'emberline-demo' });
+    expect(unchecked.status).toBe(422);
+    expect(unchecked.body.error.message).toMatch(/has no independent check of its present content/);
+    const byAuthor = await request(t.app)
+      .post(`/api/v1/limit-sets/${copy.body.id}/check`)
+      .set('Cookie', engineer)
+      .send({ password: 'emberline-demo' });
+    expect(byAuthor.status).toBe(422);
+    expect(byAuthor.body.error.message).toBe(
+      'You made or changed this draft: another engineer checks it against the manual.',
+    );
+    await checkLimitDraft(t.app, (email) => t.signIn(email), copy.body.id);
+    // Any change after the check clears it.
+    const changed = await request(t.app)
+      .put(`/api/v1/limit-sets/${copy.body.id}/rules`)
+      .set('Cookie', engineer)
+      .send({ rules });
+    expect(changed.status).toBe(200);
+    expect(changed.body.check).toBeNull();
+    expect(
+      (
+        await request(t.app)
+          .post(`/api/v1/limit-sets/${copy.body.id}/publication`)
+          .set('Cookie', engineer)
+          .send({ password: 'emberline-demo' })
+      ).status,
+    ).toBe(422);
+    await checkLimitDraft(t.app, (email) => t.signIn(email), copy.body.id);
     const published = await request(t.app)
       .post(`/api/v1/limit-sets/${copy.body.id}/publication`)
       .set('Cookie', engineer)

@@ -8,6 +8,7 @@ import {
   limitSetParticularsSchema,
   limitSetListResponseSchema,
   limitSetSchema,
+  limitCheckInputSchema,
   publishInputSchema,
 } from '@emberline/contracts/limit-sets';
 import { idParamsSchema } from '@emberline/contracts/users';
@@ -196,6 +197,31 @@ export function limitSetsRoutes(ctx: AppContext): Router {
           requestMeta(req),
         ),
       );
+    },
+  );
+
+  route(
+    router,
+    'POST /limit-sets/:id/check',
+    {
+      summary:
+        'Sign the independent check of a draft (password again): by an engineer who did not make or change it; any later change clears it',
+      params: idParamsSchema,
+      body: limitCheckInputSchema,
+      response: limitSetSchema,
+      status: 201,
+    },
+    async (req, res) => {
+      res
+        .status(201)
+        .json(
+          await limitSets.check(
+            principalOf(res),
+            res.locals.params.id,
+            res.locals.body.password,
+            requestMeta(req),
+          ),
+        );
     },
   );
 

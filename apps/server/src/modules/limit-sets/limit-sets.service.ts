@@ -1,4 +1,5 @@
 import type {
+  RuleChange,
   LimitFileFormat,
   LimitImportPreview,
   LimitSet,
@@ -7,7 +8,7 @@ import type {
   LimitSetSummary,
 } from '@emberline/contracts/limit-sets';
 import type { Rule } from '@emberline/contracts/limits';
-import { publicationContent } from '@emberline/domain/signature-content';
+import { limitCheckContent, publicationContent } from '@emberline/domain/signature-content';
 import { ruleProblems, validateRuleZones, validateRules } from '@emberline/domain/rules';
 import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction } from '../../db/client';
@@ -16,7 +17,8 @@ import { appendSignature } from '../records/signature-writer';
 import type { Principal } from '../../http/principal';
 import { canonicalSha256 } from '../../lib/canonical';
 import { newId } from '../../lib/ids';
-import { appendAudit } from '../audit/audit.repository';
+import { appendAudit, listHistory } from '../audit/audit.repository';
+import { signaturesOf } from '../records/records.repository';
 import { confirmPassword } from '../auth/password-check';
 import { findEngineModel, listModelRows } from '../engine-models/engine-models.repository';
 import {
@@ -108,6 +110,79 @@ export function createLimitSetsService(ctx: AppContext) {
       });
   }
 
+  /** The actions that change a draft: whoever did one may not check it, and one clears a check. */
+  const editing = new Set([
+    'limit-set.copied',
+    'limit-set.particulars-changed',
+    'limit-set.rules-replaced',
+  ]);
+
+  /** Who made the draft or changed it. */
+  function editorsOf(row: LimitSetRow): string[] {
+    const edits = listHistory(db, [{ entityType: 'limit-set', ids: [row.id] }]).filter((entry) =>
+      editing.has(entry.action),
+    );
+    return [
+      ...new Set(
+        [row.createdBy, ...edits.map((entry) => entry.actorUserId)].filter(
+          (id): id is string => Boolean(id),
+        ),
+      ),
+    ];
+  }
+
+  /**
+   * The check that stands for a revision as it is now: the latest limit-check signature, if it
+   * covers the present content and (for a draft) no change was recorded after it.
+   */
+  function currentCheck(row: LimitSetRow, rules: readonly Rule[]) {
+    const latest = signaturesOf(db, 'limit-check', row.id).at(-1);
+    if (!latest) return null;
+    const covered = (latest.content as { contentSha256?: string }).contentSha256;
+    if (covered !== canonicalSha256(limitSetContent(row, rules))) return null;
+    if (row.status === 'draft') {
+      // The audit log's order, not the clock: a change after the check clears it.
+      const history = listHistory(db, [{ entityType: 'limit-set', ids: [row.id] }]);
+      let checkedAt = -1;
+      history.forEach((entry, index) => {
+        if (entry.action === 'limit-set.checked') checkedAt = index;
+      });
+      if (checkedAt === -1) return null;
+      if (history.slice(checkedAt + 1).some((entry) => editing.has(entry.action))) return null;
+    }
+    return latest;
+  }
+
+  /** What a draft changes against the revision it was copied from, rule by rule. */
+  function changesOf(row: LimitSetRow, rules: readonly Rule[]): RuleChange[] {
+    if (!row.basedOnId) return [];
+    const before = new Map(listRules(db, row.basedOnId).map((rule) => [rule.id, rule]));
+    const after = new Map(rules.map((rule) => [rule.id, rule]));
+    const changes: RuleChange[] = [];
+    for (const rule of rules) {
+      const old = before.get(rule.id);
+      if (!old) {
+        changes.push({ ruleId: rule.id, kind: 'added', fields: [] });
+        continue;
+      }
+      const fields = [...new Set([...Object.keys(old), ...Object.keys(rule)])]
+        .filter(
+          (field) =>
+            JSON.stringify(old[field as keyof Rule] ?? null) !==
+            JSON.stringify(rule[field as keyof Rule] ?? null),
+        )
+        .map((field) => ({
+          field,
+          from: old[field as keyof Rule] ?? null,
+          to: rule[field as keyof Rule] ?? null,
+        }));
+      if (fields.length) changes.push({ ruleId: rule.id, kind: 'changed', fields });
+    }
+    for (const rule of before.values())
+      if (!after.has(rule.id)) changes.push({ ruleId: rule.id, kind: 'removed', fields: [] });
+    return changes;
+  }
+
   return {
     list(modelId: string): LimitSetSummary[] {
       if (!findEngineModel(db, modelId)) throw AppError.notFound('There is no such engine model');
@@ -117,7 +192,74 @@ export function createLimitSetsService(ctx: AppContext) {
     detail(id: string): LimitSet {
       const row = findLimitSet(db, id);
       if (!row) throw AppError.notFound('There is no such limit-set revision');
-      return { ...toLimitSetSummary(row), rules: listRules(db, id) };
+      const rules = listRules(db, id);
+      const check = currentCheck(row, rules);
+      return {
+        ...toLimitSetSummary(row),
+        rules,
+        check: check ? { signerName: check.signer.name, signedAt: check.signedAt } : null,
+        editorIds: row.status === 'draft' ? editorsOf(row) : [],
+        changes: changesOf(row, rules),
+        basedOnRevision: row.basedOnId ? (findLimitSet(db, row.basedOnId)?.revision ?? null) : null,
+      };
+    },
+
+    /**
+     * The independent check of a draft (DESIGN §5.5): an engineer who neither made nor changed it
+     * signs that its rules, as they are now, were checked against the manual. Any later change
+     * clears it; publication needs it.
+     */
+    async check(
+      principal: Principal,
+      id: string,
+      password: string,
+      meta: RequestMeta,
+    ): Promise<LimitSet> {
+      const row = draft(id);
+      if (!row.effectiveDate)
+        throw AppError.unprocessable(
+          'Give the draft its effective date before it is checked: the check covers it.',
+          { fields: { effectiveDate: ['Give the effective date'] }, form: [] },
+        );
+      const rules = listRules(db, id);
+      if (rules.length === 0)
+        throw AppError.unprocessable('A revision without rules cannot be checked');
+      checkRules(row.modelId, rules);
+      if (editorsOf(row).includes(principal.user.id))
+        throw AppError.unprocessable(
+          'You made or changed this draft: another engineer checks it against the manual.',
+        );
+      await confirmPassword(ctx, principal, password, meta, 'signing the check needs it again');
+      const contentSha256 = canonicalSha256(limitSetContent(row, rules));
+      const now = ctx.now();
+      inTransaction(db, (tx) => {
+        const signature = appendSignature(ctx, tx, {
+          kind: 'limit-check',
+          subjectId: id,
+          signer: {
+            id: principal.user.id,
+            name: principal.user.name,
+            role: principal.user.role,
+            authorisationRef: null,
+          },
+          content: limitCheckContent({
+            limitSetId: id,
+            modelId: row.modelId,
+            revision: row.revision,
+            contentSha256,
+          }),
+        });
+        appendAudit(tx, now, {
+          actorUserId: principal.user.id,
+          action: 'limit-set.checked',
+          entityType: 'limit-set',
+          entityId: id,
+          after: { revision: row.revision, contentSha256, signatureSha256: signature.sha256 },
+          requestId: meta.requestId,
+          ip: meta.ip,
+        });
+      });
+      return this.detail(id);
     },
 
     /** Changes a draft's revision number, title, manual reference or effective date. */
@@ -341,6 +483,14 @@ export function createLimitSetsService(ctx: AppContext) {
       if (rules.length === 0)
         throw AppError.unprocessable('A revision without rules cannot be published');
       checkRules(row.modelId, rules);
+      if (!row.effectiveDate)
+        throw AppError.unprocessable(
+          'Give the draft its effective date, have it checked, then publish.',
+        );
+      if (!currentCheck(row, rules))
+        throw AppError.unprocessable(
+          'This draft has no independent check of its present content: an engineer who did not make or change it signs the check first (any change clears it).',
+        );
       const contentSha256 = canonicalSha256(limitSetContent(row, rules));
       const now = ctx.now();
       const reopened = draftInspectionIds(db, row.modelId);

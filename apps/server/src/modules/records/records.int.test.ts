@@ -5,6 +5,7 @@ import { canonicalSha256 } from '../../lib/canonical';
 import { rawConnection, inTransaction } from '../../db/client';
 import { signatureHeader } from '@emberline/domain/signature-content';
 import { demoAccounts, DEMO_PASSWORD, startTestApp, type TestApp } from '../../../test/test-app';
+import { checkLimitDraft } from '../../../test/limit-fixtures';
 import { DEMO_DRAFT_LIMIT_SET_ID } from '../../demo/demo-limits';
 import { appendSignature } from './signature-writer';
 import { macOf } from './signature-chain';
@@ -63,6 +64,7 @@ function tamper(sql: string, ...params: unknown[]) {
 
 describe('the signature chain', () => {
   it('signs a publication into the chain, and the records check finds it whole', async () => {
+    await checkLimitDraft(t.app, (email) => t.signIn(email), DEMO_DRAFT_LIMIT_SET_ID);
     const engineer = await t.signIn(demoAccounts.engineer);
     const published = await request(t.app)
       .post(`/api/v1/limit-sets/${DEMO_DRAFT_LIMIT_SET_ID}/publication`)
@@ -72,19 +74,17 @@ describe('the signature chain', () => {
     const row = rawConnection(t.runtime.ctx.db)
       .prepare("select * from signatures where kind = 'publication'")
       .get() as { seq: number; subject_id: string; content: string; prev_sha256: string };
-    expect(row).toMatchObject({
-      seq: 1,
-      subject_id: DEMO_DRAFT_LIMIT_SET_ID,
-      prev_sha256: '0'.repeat(64),
-    });
+    // The independent check is the first record; the publication follows it in the chain.
+    expect(row).toMatchObject({ seq: 2, subject_id: DEMO_DRAFT_LIMIT_SET_ID });
+    expect(row.prev_sha256).not.toBe('0'.repeat(64));
     expect(JSON.parse(row.content)).toMatchObject({
       revision: 'D-2',
       limitSetId: DEMO_DRAFT_LIMIT_SET_ID,
     });
     signThree();
     const result = await verification();
-    expect(result).toMatchObject({ ok: true, checked: { signatures: 4 }, problems: [] });
-    expect(result.head?.seq).toBe(4);
+    expect(result).toMatchObject({ ok: true, checked: { signatures: 5 }, problems: [] });
+    expect(result.head?.seq).toBe(5);
   });
 
   it('has SQLite refuse to change or remove a signature', () => {

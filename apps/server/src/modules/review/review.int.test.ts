@@ -11,6 +11,7 @@ import {
   waitForMail,
   type TestApp,
 } from '../../../test/test-app';
+import { checkLimitDraft } from '../../../test/limit-fixtures';
 import {
   openInspection,
   still,
@@ -548,6 +549,7 @@ describe('engineering review', () => {
     const submitted = await prepare();
     const draft = await prepare({ submit: false });
     const before = submitted.findings.map((finding) => finding.evaluation);
+    await checkLimitDraft(t.app, (email) => t.signIn(email), DEMO_DRAFT_LIMIT_SET_ID);
     await request(t.app)
       .post(`/api/v1/limit-sets/${DEMO_DRAFT_LIMIT_SET_ID}/publication`)
       .set('Cookie', engineer)

@@ -25,7 +25,9 @@ import {
   InventedLabel,
   LimitSetStatusBadge,
 } from '../../features/limit-sets/components/limit-set-status';
+import { formatDateTime } from '../../lib/format';
 import { PublishForm } from '../../features/limit-sets/components/publish-form';
+import { DraftChanges } from '../../features/limit-sets/components/draft-changes';
 import { RuleEditor } from '../../features/limit-sets/components/rule-editor';
 import { RulesTable } from '../../features/limit-sets/components/rules-table';
 import { blankRule, fromRule, type RuleForm } from '../../features/limit-sets/lib/rule-form';
@@ -55,7 +57,7 @@ function LimitSetPage({ id }: { id: string }) {
   const [editing, setEditing] = useState<Editing | null>(null);
   const [copying, setCopying] = useState(false);
   const [renaming, setRenaming] = useState(false);
-  const [publishing, setPublishing] = useState(false);
+  const [signing, setSigning] = useState<'check' | 'publish' | null>(null);
   const [impactAsked, setImpactAsked] = useState(false);
   const impact = useImpact(id, impactAsked && set.data?.status === 'draft');
 
@@ -65,6 +67,8 @@ function LimitSetPage({ id }: { id: string }) {
   const editable = data.status === 'draft' && can(user.role, 'edit:limit-set');
   const rows = model.data?.rows ?? [];
   const inForce = siblings.data?.find((item) => item.status === 'published') ?? null;
+  const mine = data.editorIds.includes(user.id);
+  const canCheck = Boolean(data.effectiveDate) && !mine && data.rules.length > 0;
 
   const save = (rules: Rule[]) =>
     replace.mutate(rules, {
@@ -183,22 +187,61 @@ function LimitSetPage({ id }: { id: string }) {
             >
               {impactAsked ? 'Check the impact again' : 'Show the impact'}
             </Button>
-            <Button type="button" onClick={() => setPublishing(true)} disabled={publishing}>
+            <Button
+              type="button"
+              variant="secondary"
+              onClick={() => setSigning('check')}
+              disabled={signing !== null || !canCheck}
+            >
+              Sign the check…
+            </Button>
+            <Button
+              type="button"
+              onClick={() => setSigning('publish')}
+              disabled={signing !== null || !data.check || !data.effectiveDate}
+            >
               Publish…
             </Button>
           </div>
+          <p className="mb-3 text-sm" data-testid="limit-check">
+            {data.check
+              ? `Checked by ${data.check.signerName}, ${formatDateTime(data.check.signedAt)}: it can be published.`
+              : !data.effectiveDate
+                ? 'Give the draft its effective date (Change the particulars…); then an engineer who did not make or change it signs the check, and it can be published.'
+                : mine
+                  ? 'You made or changed this draft: another engineer signs its check before it can be published.'
+                  : 'Not checked yet: an engineer who did not make or change this draft signs the check before it can be published. Any change clears the check.'}
+          </p>
           {impact.error ? <Notice tone="error">{impact.error.message}</Notice> : null}
           {impact.data ? <ImpactPanel impact={impact.data} /> : null}
-          {publishing ? (
+          {signing ? (
             <div className="mt-4">
               <PublishForm
+                key={signing}
+                kind={signing}
                 limitSetId={id}
                 revision={data.revision}
+                effectiveDate={data.effectiveDate}
                 inForce={inForce?.revision ?? null}
-                onCancel={() => setPublishing(false)}
+                onCancel={() => setSigning(null)}
               />
             </div>
           ) : null}
+        </Panel>
+      ) : null}
+
+      {data.status === 'draft' && data.basedOnRevision ? (
+        <Panel>
+          <DraftChanges
+            changes={data.changes}
+            basedOn={data.basedOnRevision}
+            ruleTitle={(ruleId) => {
+              const rule = data.rules.find((item) => item.id === ruleId);
+              return rule
+                ? `${rows.find((row) => row.key === rule.row)?.label ?? rule.row}, ${rule.damage.replace(/-/g, ' ')}`
+                : 'a rule of the earlier revision';
+            }}
+          />
         </Panel>
       ) : null}
 

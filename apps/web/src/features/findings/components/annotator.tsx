@@ -1,4 +1,11 @@
-import { useMemo, useReducer, useState, type ButtonHTMLAttributes, type ReactNode } from 'react';
+import {
+  useEffect,
+  useMemo,
+  useReducer,
+  useState,
+  type ButtonHTMLAttributes,
+  type ReactNode,
+} from 'react';
 import { cautions } from '@emberline/contracts/cautions';
 import {
   findingDetailsSchema,
@@ -130,6 +137,17 @@ export function Annotator({
       image.position,
     ),
   });
+  // The form follows the still's tag: when it is shown, and when it is tagged or re-tagged.
+  const tagged = rows.find((candidate) => candidate.key === image.rowKey);
+  const tagPosition = image.position;
+  useEffect(() => {
+    if (!tagged || !tagPosition) return;
+    form.setValue('row', tagged.key);
+    form.setValue('zone', tagged.zones[0] ?? '');
+    form.setValue('position', tagPosition);
+  }, [form, image.id, tagged, tagPosition]);
+  // A finding placed elsewhere than the still's tag is recorded only once the inspector says so.
+  const [elsewhereConfirmed, setElsewhereConfirmed] = useState<string | null>(null);
   const details = form.watch();
   const row = rows.find((candidate) => candidate.key === details.row);
   const zone = row?.zones.includes(details.zone) ? details.zone : (row?.zones[0] ?? '');
@@ -207,8 +225,13 @@ export function Annotator({
   });
 
   const [formError, setFormError] = useState('');
+  const elsewhere =
+    tagged && tagPosition && (details.row !== tagged.key || details.position !== tagPosition)
+      ? `${image.id}:${details.row}:${details.position}`
+      : null;
   const submit = form.handleSubmit((entered) => {
     if (!shape) return;
+    if (elsewhere && elsewhereConfirmed !== elsewhere) return;
     setFormError('');
     const input: FindingInput = {
       ...entered,
@@ -287,14 +310,6 @@ export function Annotator({
         index={Math.min(index, images.length - 1)}
         onIndex={(next) => {
           dispatch({ type: 'clear' });
-          // A still taken at a known row and position places the next finding there.
-          const shown = images[next];
-          const placed = rows.find((candidate) => candidate.key === shown?.rowKey);
-          if (placed && shown?.position) {
-            form.setValue('row', placed.key);
-            form.setValue('zone', placed.zones[0] ?? '');
-            form.setValue('position', shown.position);
-          }
           onIndex(next);
         }}
         details={imageDetails}
@@ -515,6 +530,23 @@ export function Annotator({
               Record the finding
             </h3>
             <FindingFields form={form} rows={rows} candidates={candidates.data} />
+            {elsewhere && tagged ? (
+              <Notice tone="caution" title="Not where the still is tagged">
+                This still is tagged {tagged.label} {tagPosition}; the finding would be recorded on{' '}
+                {row?.label ?? details.row} {details.position}.{' '}
+                {elsewhereConfirmed === elsewhere ? (
+                  'You said it belongs there.'
+                ) : (
+                  <button
+                    type="button"
+                    className="font-medium underline"
+                    onClick={() => setElsewhereConfirmed(elsewhere)}
+                  >
+                    Record it on {row?.label ?? details.row} {details.position} all the same
+                  </button>
+                )}
+              </Notice>
+            ) : null}
             {formError ? <Notice tone="error">{formError}</Notice> : null}
             <p role="status" className="text-sm text-soot-700">
               {announcement}
@@ -522,7 +554,12 @@ export function Annotator({
             <Button
               type="submit"
               busy={record.isPending}
-              disabled={!state.complete || !shape || !located}
+              disabled={
+                !state.complete ||
+                !shape ||
+                !located ||
+                (elsewhere !== null && elsewhereConfirmed !== elsewhere)
+              }
             >
               Record finding
             </Button>

@@ -111,6 +111,17 @@ export function useImportRules(id: string) {
 }
 
 /** Publishing judges the open inspections again: their findings are fetched afresh. */
+/** The independent check of a draft, signed with the checker's password. */
+export function useCheckLimitSet(id: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (password: string) => api.post<LimitSet>(`${path(id)}/check`, { password }),
+    onSuccess: (checked) => {
+      queryClient.setQueryData(limitSetKeys.detail(id), checked);
+    },
+  });
+}
+
 export function usePublish(id: string) {
   const queryClient = useQueryClient();
   return useMutation({
