@@ -124,8 +124,8 @@ export function createLimitSetsService(ctx: AppContext) {
     );
     return [
       ...new Set(
-        [row.createdBy, ...edits.map((entry) => entry.actorUserId)].filter(
-          (id): id is string => Boolean(id),
+        [row.createdBy, ...edits.map((entry) => entry.actorUserId)].filter((id): id is string =>
+          Boolean(id),
         ),
       ),
     ];
