@@ -166,8 +166,12 @@ test('the inspector calibrates, draws a burn outline and a crack line, records b
   await expect(page.getByTestId('inspection-outcome')).toContainText('Not fully viewed');
   for (const row of ['HPT stage 1 nozzle guide vanes', 'HPT stage 1 blades']) {
     const form = page.getByRole('form', { name: `Coverage of ${row}` });
+    // Nothing is chosen before the inspector chooses; a choice not saved says so.
+    await expect(form.getByLabel('Fully viewed')).not.toBeChecked();
     await form.getByLabel('Fully viewed').check();
+    await expect(form.getByText('Not saved', { exact: false })).toBeVisible();
     await form.getByRole('button', { name: /Save coverage/ }).click();
+    await expect(form.getByText('Not saved', { exact: false })).toHaveCount(0);
     await expect(
       page.getByRole('heading', { name: new RegExp(`${row}.*Fully viewed`) }),
     ).toBeVisible();
@@ -175,7 +179,14 @@ test('the inspector calibrates, draws a burn outline and a crack line, records b
   await expect(page.getByTestId('inspection-outcome')).not.toContainText('Not fully viewed');
   await expect(page.getByLabel('Before it goes')).toContainText('2 findings recorded');
 
-  await page.getByRole('button', { name: 'Submit for review' }).click();
+  // The confirmation sums up what goes: findings by verdict, rows, flags.
+  await page.getByRole('button', { name: 'Submit for review…' }).click();
+  const confirm = page.getByRole('region', { name: 'Submit this inspection?' });
+  await expect(confirm.getByRole('list', { name: 'What goes for review' })).toContainText(
+    /2 findings: /,
+  );
+  await expect(confirm).toContainText('Every listed row is fully viewed or its gap explained.');
+  await confirm.getByRole('button', { name: 'Submit now' }).click();
   await expect(page.getByText('Submitted for review', { exact: true })).toBeVisible();
   await expect(page.getByRole('toolbar', { name: 'Drawing tools' })).toHaveCount(0);
   await page.screenshot({ path: 'test-results/annotation-submitted.png', fullPage: true });
@@ -245,6 +256,23 @@ test('every drawing tool can be chosen and used from the keyboard', async ({ pag
   await page.keyboard.type('2');
   await page.keyboard.press('Enter');
   await expect(page.getByTestId('calibration-state')).toHaveText('Plane 2 × 2 mm');
+
+  // The letters work with the focus anywhere but in a text field: on a tool button here.
+  await tools.getByRole('button', { name: /Pan and zoom/ }).focus();
+  await page.keyboard.press('l');
+  await expect(tools.getByRole('button', { name: /^Line/ })).toHaveAttribute(
+    'aria-pressed',
+    'true',
+  );
+  // Typed into a field, a letter stays a letter.
+  const notes = page.getByRole('form', { name: 'Record the finding' }).getByLabel(/Notes/);
+  await notes.fill('');
+  await notes.press('v');
+  await expect(notes).toHaveValue('v');
+  await expect(tools.getByRole('button', { name: /^Line/ })).toHaveAttribute(
+    'aria-pressed',
+    'true',
+  );
 });
 
 test('a finding follows the still’s tag, and one placed elsewhere is recorded only when the inspector says so', async ({

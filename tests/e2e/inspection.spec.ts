@@ -106,7 +106,13 @@ test('the inspector opens an inspection, drops 20 images, browses and zooms them
   await page.getByTestId('image-strip').getByRole('button').last().click();
   await expect(viewer).toContainText('of bp3-sweep.webm');
 
-  await page.getByRole('button', { name: 'Submit for review' }).click();
+  await page.getByRole('button', { name: 'Submit for review…' }).click();
+  // The confirmation is not covered by the upload panel.
+  const submitNow = page
+    .getByRole('region', { name: 'Submit this inspection?' })
+    .getByRole('button', { name: 'Submit now' });
+  await submitNow.click({ trial: true });
+  await submitNow.click();
   await expect(page.getByText('Submitted for review', { exact: true })).toBeVisible();
   await expect(page.getByLabel('Images to upload')).toHaveCount(0);
 });

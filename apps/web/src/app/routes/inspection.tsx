@@ -115,6 +115,9 @@ export function InspectionRoute() {
             findingCount={
               findings.data?.items.filter((item) => item.status === 'recorded').length ?? 0
             }
+            verdicts={(findings.data?.items ?? [])
+              .filter((item) => item.status === 'recorded')
+              .map((item) => item.evaluation?.category ?? null)}
           />
         </div>
       </Panel>

@@ -146,6 +146,22 @@ export function Annotator({
     form.setValue('zone', tagged.zones[0] ?? '');
     form.setValue('position', tagPosition);
   }, [form, image.id, tagged, tagPosition]);
+  // The tool letters work wherever the annotator is on screen, unless a text field has the focus
+  // (the drawing area handles its own keys first and marks them handled).
+  useEffect(() => {
+    if (!editable) return;
+    const onKey = (event: globalThis.KeyboardEvent) => {
+      if (event.defaultPrevented || event.ctrlKey || event.metaKey || event.altKey) return;
+      const target = event.target as HTMLElement | null;
+      if (target?.closest('input, textarea, select, [contenteditable="true"]')) return;
+      const tool = toolList.find((item) => item.key.toLowerCase() === event.key.toLowerCase());
+      if (!tool) return;
+      dispatch({ type: 'choose', tool: tool.tool });
+      event.preventDefault();
+    };
+    document.addEventListener('keydown', onKey);
+    return () => document.removeEventListener('keydown', onKey);
+  }, [editable]);
   // A finding placed elsewhere than the still's tag is recorded only once the inspector says so.
   const [elsewhereConfirmed, setElsewhereConfirmed] = useState<string | null>(null);
   const details = form.watch();

@@ -22,20 +22,27 @@ export function CoverageForm({
   coverage: RowCoverage;
 }) {
   const save = useRecordCoverage(inspectionId);
-  const [status, setStatus] = useState<CoverageStatus>(
-    coverage.recorded ? coverage.status : 'full',
+  // Nothing is chosen until the inspector chooses: a choice shown is one made.
+  const [status, setStatus] = useState<CoverageStatus | null>(
+    coverage.recorded ? coverage.status : null,
   );
   const [positions, setPositions] = useState(formatPositions(coverage.viewedPositions));
   const [noDamage, setNoDamage] = useState(coverage.noDamageFound);
   const [reason, setReason] = useState(coverage.reason);
   const parsed = status === 'partial' ? parsePositions(positions, row.count) : null;
+  const unsaved = coverage.recorded
+    ? status !== coverage.status ||
+      positions !== formatPositions(coverage.viewedPositions) ||
+      noDamage !== coverage.noDamageFound ||
+      reason !== coverage.reason
+    : status !== null;
   return (
     <form
       className="flex flex-col gap-2 text-sm"
       aria-label={`Coverage of ${row.label}`}
       onSubmit={(event) => {
         event.preventDefault();
-        if (parsed?.error) return;
+        if (parsed?.error || status === null) return;
         save.mutate({
           row: row.key,
           input: { status, viewedPositions: parsed?.value ?? [], noDamageFound: noDamage, reason },
@@ -67,7 +74,7 @@ export function CoverageForm({
           {parsed?.error ? <span className="text-red-700">{parsed.error}</span> : null}
         </label>
       ) : null}
-      {status !== 'full' ? (
+      {status !== 'full' && status !== null ? (
         <label className="flex flex-col gap-1">
           Why it was not fully viewed
           <Input
@@ -77,7 +84,7 @@ export function CoverageForm({
           />
         </label>
       ) : null}
-      {status !== 'none' ? (
+      {status !== 'none' && status !== null ? (
         <label className="flex items-center gap-2">
           <input
             type="checkbox"
@@ -88,9 +95,22 @@ export function CoverageForm({
         </label>
       ) : null}
       {save.error ? <Notice tone="error">{save.error.message}</Notice> : null}
-      <Button type="submit" variant="secondary" busy={save.isPending} className="w-fit">
-        Save coverage of {row.label}
-      </Button>
+      <div className="flex flex-wrap items-center gap-3">
+        <Button
+          type="submit"
+          variant="secondary"
+          busy={save.isPending}
+          disabled={status === null}
+          className="w-fit"
+        >
+          Save coverage of {row.label}
+        </Button>
+        {unsaved && !save.isPending ? (
+          <span className="font-medium text-amber-900" data-testid={`coverage-unsaved-${row.key}`}>
+            Not saved: the coverage of this row is recorded when you save it.
+          </span>
+        ) : null}
+      </div>
     </form>
   );
 }

@@ -1,4 +1,7 @@
+import { useState } from 'react';
 import type { InspectionDetail } from '@emberline/contracts/inspections';
+import { categories, type Category } from '@emberline/contracts/limits';
+import { verdictStyles } from '@emberline/drawings/verdict-style';
 import { Link } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
@@ -12,6 +15,7 @@ export function ReviewActions({
   canReview,
   coverageGaps = [],
   findingCount = 0,
+  verdicts = [],
 }: {
   inspection: InspectionDetail;
   canSubmit: boolean;
@@ -19,8 +23,11 @@ export function ReviewActions({
   /** Rows listed but not fully viewed without a reason: shown before the inspection goes. */
   coverageGaps?: string[];
   findingCount?: number;
+  /** The verdict of each recorded finding (null: not judged), summed up before submission. */
+  verdicts?: (Category | null)[];
 }) {
   const submit = useSubmitInspection(inspection.id);
+  const [confirming, setConfirming] = useState(false);
   const openFlags = inspection.flags.filter((flag) => !flag.acknowledgedAt).length;
 
   const returned = inspection.returnedReason ? (
@@ -56,14 +63,68 @@ export function ReviewActions({
           )}
         </ul>
         {submit.error ? <Notice tone="error">{submit.error.message}</Notice> : null}
-        <Button
-          className="self-start"
-          busy={submit.isPending}
-          disabled={openFlags > 0 || inspection.images.length === 0}
-          onClick={() => submit.mutate()}
-        >
-          Submit for review
-        </Button>
+        {confirming ? (
+          <section
+            aria-label="Submit this inspection?"
+            className="flex flex-col gap-2 rounded-md border border-ember-300 bg-ember-50 p-4 text-sm"
+          >
+            <h3 className="font-semibold">Submit this inspection for review?</h3>
+            <p>
+              Once submitted, its images, findings, coverage and flags are locked; an engineer
+              dispositions it or sends it back.
+            </p>
+            <ul className="list-inside list-disc" aria-label="What goes for review">
+              <li>
+                {findingCount === 0
+                  ? 'No finding recorded.'
+                  : `${findingCount} finding${findingCount === 1 ? '' : 's'}: ${[
+                      ...categories
+                        .map(
+                          (category) =>
+                            [category, verdicts.filter((v) => v === category).length] as const,
+                        )
+                        .filter(([, count]) => count > 0)
+                        .map(
+                          ([category, count]) =>
+                            `${count} ${verdictStyles[category].label.toLowerCase()}`,
+                        ),
+                      ...(verdicts.some((verdict) => verdict === null)
+                        ? [`${verdicts.filter((verdict) => verdict === null).length} not judged`]
+                        : []),
+                    ].join(', ')}.`}
+              </li>
+              <li>
+                {coverageGaps.length > 0
+                  ? `Not fully viewed without a reason: ${coverageGaps.join(', ')}.`
+                  : 'Every listed row is fully viewed or its gap explained.'}
+              </li>
+              <li>
+                {inspection.flags.length === 0
+                  ? 'No flag was raised.'
+                  : `Flags acknowledged: ${inspection.flags.map((flag) => flag.message).join(' ')}`}
+              </li>
+            </ul>
+            <div className="flex gap-2">
+              <Button
+                busy={submit.isPending}
+                onClick={() => submit.mutate(undefined, { onSettled: () => setConfirming(false) })}
+              >
+                Submit now
+              </Button>
+              <Button variant="ghost" onClick={() => setConfirming(false)}>
+                Not yet
+              </Button>
+            </div>
+          </section>
+        ) : (
+          <Button
+            className="self-start"
+            disabled={openFlags > 0 || inspection.images.length === 0}
+            onClick={() => setConfirming(true)}
+          >
+            Submit for review…
+          </Button>
+        )}
       </div>
     );
   }
