@@ -26,6 +26,7 @@ function scenario() {
     const serviceableMax = 0.5 + next() * 2;
     return {
       id: `R${index}`,
+      title: `Bench rule ${index}`,
       row: rows[index % rows.length]!,
       zones:
         index % 3 === 0

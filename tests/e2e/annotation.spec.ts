@@ -68,7 +68,15 @@ test('the inspector calibrates, draws a burn outline and a crack line, records b
   await clickAt(area, 520, 1100);
   await page.getByLabel('True distance').fill('4');
   await page.getByRole('button', { name: 'Use this scale' }).click();
-  await expect(page.getByTestId('calibration-state')).toHaveText('Reference of 4 mm');
+  await expect(page.getByTestId('calibration-state')).toHaveText(
+    'Reference of 4 mm · saved with this still',
+  );
+  // The scale is kept with the still: it is there after a reload, before any finding.
+  await page.reload();
+  await strip.getByRole('button', { name: /hpt1-ngv-pos04/ }).click();
+  await expect(page.getByTestId('calibration-state')).toHaveText(
+    'Reference of 4 mm · saved with this still',
+  );
 
   // Outline the burn patch.
   await page.getByRole('button', { name: /^Outline/ }).click();
@@ -94,17 +102,30 @@ test('the inspector calibrates, draws a burn outline and a crack line, records b
     .getByTestId('live-verdict')
     .locator('[data-category]')
     .getAttribute('data-category'))!;
+  // Its depth, read off the probe in inches, is kept in mm (1 in = 25.4 mm, NIST SP 811).
+  await findingForm.getByRole('radio', { name: 'inches' }).check();
+  await findingForm.getByLabel('Depth (in)').fill('0.01');
+  await findingForm.getByRole('radio', { name: 'millimetres' }).check();
+  await expect(findingForm.getByLabel('Depth (mm)')).toHaveValue('0.254');
   await page.screenshot({ path: 'test-results/annotation-burn.png' });
   await page.getByRole('button', { name: 'Record finding' }).click();
   await expect(page.getByRole('status').filter({ hasText: 'F1 recorded' })).toBeVisible();
+  const recorded = await (await page.request.get(`/api/v1/inspections/${id}/findings`)).json();
+  expect(recorded.items[0].depthMm).toBeCloseTo(0.254, 9);
 
-  // The crack still: reuse the scale (same size), draw the crack line.
+  // The crack still: a scale carries over only between stills of one size and one port.
   await strip.getByRole('button', { name: /hpt1-blade-pos12/ }).click();
-  await page
-    .getByLabel('Reuse the scale of an image of the same size')
-    .selectOption({ label: 'hpt1-ngv-pos04.jpg' });
-  await expect(page.getByTestId('calibration-state')).toContainText(
-    'from another image of this size',
+  const reuse = page.getByLabel('Reuse the scale of a still of the same size and port');
+  await expect(reuse).toBeVisible();
+  const tagForm = page.getByRole('form', { name: 'Row and position shown' });
+  await tagForm.getByLabel('Port').fill('Igniter port, left');
+  await tagForm.getByRole('button', { name: 'Save tag' }).click();
+  await expect(reuse).toBeHidden();
+  await tagForm.getByLabel('Port').fill('');
+  await tagForm.getByRole('button', { name: 'Save tag' }).click();
+  await reuse.selectOption({ label: 'hpt1-ngv-pos04.jpg' });
+  await expect(page.getByTestId('calibration-state')).toHaveText(
+    'Reference of 4 mm, reused from hpt1-ngv-pos04.jpg · saved with this still',
   );
   await page.getByRole('button', { name: /^Line/ }).click();
   await clickAt(area, 760, 420);
@@ -211,7 +232,9 @@ test('every drawing tool can be chosen and used from the keyboard', async ({ pag
   await page.keyboard.press('Space');
   await page.keyboard.type('4');
   await page.keyboard.press('Enter');
-  await expect(page.getByTestId('calibration-state')).toHaveText('Reference of 4 mm');
+  await expect(page.getByTestId('calibration-state')).toHaveText(
+    'Reference of 4 mm · saved with this still',
+  );
 
   // Line: L, three points, Enter; Ctrl+Z takes the last point back, Ctrl+Y restores it.
   await area.focus();
@@ -255,7 +278,9 @@ test('every drawing tool can be chosen and used from the keyboard', async ({ pag
   await page.getByLabel('Height (2 to 3)').focus();
   await page.keyboard.type('2');
   await page.keyboard.press('Enter');
-  await expect(page.getByTestId('calibration-state')).toHaveText('Plane 2 × 2 mm');
+  await expect(page.getByTestId('calibration-state')).toHaveText(
+    'Plane 2 × 2 mm · saved with this still',
+  );
 
   // The letters work with the focus anywhere but in a text field: on a tool button here.
   await tools.getByRole('button', { name: /Pan and zoom/ }).focus();

@@ -40,8 +40,8 @@ test('the engineer copies the demo revision, tightens a crack limit, checks the 
   await expect(page.getByText('2027-01-15')).toBeVisible();
 
   // A repeat limit below the serviceable one is refused in words before anything is sent.
-  await page.getByRole('button', { name: 'Change rule hpt1-blade.crack.edges' }).click();
-  const editor = page.getByRole('form', { name: 'Rule hpt1-blade.crack.edges' });
+  await page.getByRole('button', { name: /Change rule .*hpt1-blade\.crack\.edges/ }).click();
+  const editor = page.getByRole('form', { name: 'Rule Cracks at the blade edges' });
   await editor.getByLabel('Repeat inspection up to (mm)').fill('0.4');
   await editor.getByRole('button', { name: 'Save the rule' }).click();
   await expect(
@@ -86,8 +86,10 @@ test('the engineer copies the demo revision, tightens a crack limit, checks the 
 
   // What the draft changes against D-1, field by field.
   await expect(page.getByTestId('rule-change')).toHaveCount(1);
-  await expect(page.getByTestId('rule-change')).toContainText('Changed: HPT stage 1 blades, crack');
-  await expect(page.getByTestId('rule-change')).toContainText('repeatMax: 1.5 → 1.2');
+  await expect(page.getByTestId('rule-change')).toContainText('Changed: Cracks at the blade edges');
+  await expect(page.getByTestId('rule-change')).toContainText(
+    'Repeat inspection up to: 1.5 mm → 1.2 mm',
+  );
 
   // Its author cannot check it, and it cannot be published unchecked.
   await expect(page.getByTestId('limit-check')).toContainText('You made or changed this draft');
@@ -124,7 +126,7 @@ test('the engineer copies the demo revision, tightens a crack limit, checks the 
   await expect(page.getByText('In force', { exact: true })).toBeVisible();
   await expect(page.getByTestId('published-by')).toContainText('Priya Castellane');
   await expect(
-    page.getByRole('button', { name: 'Change rule hpt1-blade.crack.edges' }),
+    page.getByRole('button', { name: /Change rule .*hpt1-blade\.crack\.edges/ }),
   ).toHaveCount(0);
 
   // The open demo inspection is judged again: its crack is now beyond limits under D-3.
@@ -132,7 +134,9 @@ test('the engineer copies the demo revision, tightens a crack limit, checks the 
   const blades = page.getByTestId('row-hpt1-blade');
   const item = blades.getByTestId('finding-item').filter({ hasText: 'F1' });
   await expect(item.locator('[data-category]')).toHaveAttribute('data-category', 'beyond-limits');
-  await expect(item).toContainText('Rule hpt1-blade.crack.edges');
+  await expect(item).toContainText(
+    'over the repeat limit 1.20 mm (revision D-3, Cracks at the blade edges)',
+  );
   await expect(page.getByTestId('inspection-outcome')).toContainText('revision D-3');
   await page.screenshot({ path: 'test-results/limits-after-publish.png', fullPage: true });
 
@@ -169,9 +173,9 @@ test('the engineer imports a CSV into a draft: a bad file is refused line by lin
     await page.request.get('/api/v1/limit-sets/limits-vt300-demo-r1/export?format=csv')
   ).text();
   const lines = csv.split('\r\n');
-  // The third line with a unit no rule can have (the unit is the sixth column).
+  // The third line with a unit no rule can have (the unit is the seventh column).
   const cells = lines[2]!.split(',');
-  cells[5] = 'furlong';
+  cells[6] = 'furlong';
   const bad = [lines[0], lines[1], cells.join(',')].join('\n');
   const file = page.getByLabel('Rules file (CSV or JSON)');
   await file.setInputFiles({ name: 'bad.csv', mimeType: 'text/csv', buffer: Buffer.from(bad) });

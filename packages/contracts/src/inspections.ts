@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { isoDateSchema } from './forecast';
+import { calibrationSchema } from './measurement';
 
 export const inspectionReasons = [
   'scheduled',
@@ -101,6 +102,13 @@ export const imageSchema = z.object({
   videoTimeSeconds: z.number().nullable(),
   rowKey: z.string().nullable(),
   position: z.number().int().nullable(),
+  /** The access port the still was taken through, as the inspector names it. */
+  port: z.string().nullable(),
+  /**
+   * The scale of this still, saved the moment it is picked; `sourceImageId` is the still it was
+   * picked on (this one, or another of the same size and port whose scale was reused).
+   */
+  calibration: z.object({ calibration: calibrationSchema, sourceImageId: z.string() }).nullable(),
   createdAt: z.string(),
 });
 export type Image = z.infer<typeof imageSchema>;
@@ -122,8 +130,24 @@ export type UploadResponse = z.infer<typeof uploadResponseSchema>;
 export const imageTagInputSchema = z.strictObject({
   rowKey: z.string().min(1).max(40).nullable(),
   position: z.number().int().min(1).max(1000).nullable(),
+  /** Left out: the port stays as it is. Null or blank: no port. */
+  port: z
+    .string()
+    .trim()
+    .max(40, 'Name the port in 40 characters or fewer')
+    .regex(/^[^\p{Cc}]*$/u, 'The port name cannot hold control characters')
+    .transform((value) => value || null)
+    .nullable()
+    .optional(),
 });
 export type ImageTagInput = z.infer<typeof imageTagInputSchema>;
+
+/** A scale picked on this still, or the scale of another still of the same size and port. */
+export const imageCalibrationInputSchema = z.union([
+  z.strictObject({ calibration: calibrationSchema }),
+  z.strictObject({ fromImageId: z.string().trim().min(1).max(64) }),
+]);
+export type ImageCalibrationInput = z.infer<typeof imageCalibrationInputSchema>;
 
 export const inspectionSchema = z.object({
   id: z.string(),

@@ -36,6 +36,8 @@ export type LimitSetSummary = z.infer<typeof limitSetSummarySchema>;
 /** What differs in a draft from the revision it was copied from, rule by rule. */
 export const ruleChangeSchema = z.object({
   ruleId: z.string(),
+  /** The rule's title (its id where it has none): in the draft, or in the earlier revision if removed. */
+  title: z.string(),
   kind: z.enum(['added', 'removed', 'changed']),
   /** For a changed rule: each field that differs, with its old and new value. */
   fields: z.array(z.object({ field: z.string(), from: z.unknown(), to: z.unknown() })),

@@ -76,6 +76,11 @@ const identifier = z.string().trim().min(1).max(100);
 /** A damage-limit rule as transcribed from one section of the engine manual. */
 export const ruleSchema = z.strictObject({
   id: identifier,
+  /**
+   * A short title written in the library ("Cracks at the vane edges"), what people read where the
+   * rule is named; the id stays beside it, small. Required before a revision is checked.
+   */
+  title: z.string().trim().max(80, 'Keep the title to 80 characters or fewer').default(''),
   row: identifier,
   zones: z.array(identifier).min(1),
   damage: damageTypeSchema,

@@ -7,6 +7,7 @@ import { ruleProblems } from './rules';
 function rule(overrides: Partial<Rule> = {}): Rule {
   return {
     id: 'R1',
+    title: 'Invented test rule',
     row: 'hpt1-blade',
     zones: ['*'],
     damage: 'crack',

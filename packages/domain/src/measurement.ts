@@ -243,6 +243,22 @@ export function measure(
     : measurePlane(calibration, shape, pickUncertaintyPx);
 }
 
+/**
+ * Refuses a calibration nothing can be measured with: reference points that coincide, or plane
+ * corners that do not make a usable quadrilateral. Throws a DomainError saying which.
+ */
+export function assertCalibration(calibration: Calibration): void {
+  if (calibration.kind === 'plane') {
+    planeModel(calibration.corners, calibration, 0);
+    return;
+  }
+  if (distance(calibration.p1, calibration.p2) === 0)
+    throw new DomainError('the two reference points are the same point: pick two points apart', [
+      'calibration',
+      'p2',
+    ]);
+}
+
 /** The homography of a plane calibration, for drawing the calibrated grid over the image. */
 export function planeHomography(calibration: PlaneCalibration): Homography {
   return planeModel(calibration.corners, calibration, 0).h;

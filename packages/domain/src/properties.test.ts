@@ -28,6 +28,7 @@ const ruleArbitrary: fc.Arbitrary<Rule> = fc
     const repeatMax = band === null ? null : (r.serviceableMax ?? 0) + band;
     const base: Rule = {
       id: 'x',
+      title: 'Invented property rule',
       row: r.row,
       zones: r.zones,
       damage: r.damage,

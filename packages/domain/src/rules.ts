@@ -1,5 +1,6 @@
 import type { LimitUnit, Measure, Rule } from '@emberline/contracts/limits';
 import { DomainError } from './errors';
+import { unitSymbols } from './units';
 
 /*
  * The checks of a damage-limit rule, apart from judging findings with it (limits.ts): the rule
@@ -25,7 +26,7 @@ export function hasCountLimit(rule: Rule): boolean {
 }
 
 function describeLimit(value: number, unit: LimitUnit): string {
-  return `${value} ${unit === 'mm2' ? 'mm²' : unit === 'in2' ? 'in²' : unit === 'count' ? '' : unit}`.trim();
+  return `${value} ${unitSymbols[unit]}`.trim();
 }
 
 /**

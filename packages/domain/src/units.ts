@@ -11,6 +11,15 @@ export const MM2_PER_SQUARE_INCH = 645.16;
  */
 export const RELATIVE_TOLERANCE = 1e-9;
 
+/** How a unit is written where people read it: one spelling of square millimetres (mm²). */
+export const unitSymbols: Record<LimitUnit, string> = {
+  mm: 'mm',
+  in: 'in',
+  mm2: 'mm²',
+  in2: 'in²',
+  count: '',
+};
+
 /** A value measured in mm, mm² or as a count, expressed in a limit's unit. */
 export function fromMillimetres(value: number, unit: LimitUnit): number {
   switch (unit) {

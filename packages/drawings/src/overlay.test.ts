@@ -52,7 +52,13 @@ describe('annotation overlay', () => {
     expect(line[0]!.attrs.points).toBe('600,600 625,600 625,625');
     const labels = find(overlay, (node) => node.tag === 'text').map((node) => node.text);
     expect(labels).toEqual(
-      expect.arrayContaining(['F1 · REP', '1.25 mm', 'F2 · BEY', 'F3', '10 mm']),
+      expect.arrayContaining([
+        'F1 · Repeat inspection',
+        '1.25 mm',
+        'F2 · Beyond limits',
+        'F3',
+        '10 mm',
+      ]),
     );
     // The selected shape shows its vertices as handles.
     expect(find(shapes[1]!, (node) => node.tag === 'circle')).toHaveLength(3);

@@ -1,7 +1,7 @@
 import type { Category } from '@emberline/contracts/limits';
 import type { Calibration, ImagePoint, ShapeKind } from '@emberline/contracts/measurement';
 import { el, n, text, title, type SvgNode } from './svg';
-import { verdictStyles } from './verdict-style';
+import { glyph, verdictStyles } from './verdict-style';
 
 export interface OverlayShape {
   id: string;
@@ -42,10 +42,11 @@ export function labelAnchor(
   width: number,
   height: number,
   font: number,
+  halfWidth = font * 2,
 ): [number, number] {
   const top = points.reduce((best, point) => (point[1] < best[1] ? point : best), points[0]!);
   const margin = font * 0.5;
-  const x = Math.min(Math.max(top[0], margin + font * 2), width - margin - font * 2);
+  const x = Math.min(Math.max(top[0], margin + halfWidth), width - margin - halfWidth);
   const above = top[1] - font * 0.9;
   const y = above - font < 0 ? Math.min(top[1] + font * 1.6, height - margin) : above;
   return [x, y];
@@ -120,13 +121,21 @@ function shapeNode(shape: OverlayShape, scale: ReturnType<typeof overlayScale>):
   ]);
 }
 
+/** About how wide a line of text is drawn in a sans-serif face (0.56 of the size per character). */
+const textWidth = (words: string, font: number) => words.length * font * 0.56;
+
+/**
+ * A shape's label: its name, then the verdict as the stage ring shows it (glyph and word, never
+ * an abbreviation), and the measured detail on a line of its own.
+ */
 function labelNode(shape: OverlayShape, input: OverlayInput, font: number): SvgNode {
-  const [x, y] = labelAnchor(shape.points, input.width, input.height, font);
   const style = shape.category ? verdictStyles[shape.category] : null;
-  const words = style ? `${shape.label} · ${style.short}` : shape.label;
+  const words = style ? `${shape.label} · ${style.label}` : shape.label;
+  const glyphRoom = style ? font * 1.15 : 0;
+  const width = glyphRoom + textWidth(words, font);
+  const [x, y] = labelAnchor(shape.points, input.width, input.height, font, width / 2);
   const paint = {
     'font-family': 'system-ui, sans-serif',
-    'text-anchor': 'middle',
     fill: '#fffaf0',
     stroke: '#120c08',
     'stroke-width': n(font / 5),
@@ -137,10 +146,27 @@ function labelNode(shape: OverlayShape, input: OverlayInput, font: number): SvgN
   const above = y < top;
   const nameY = shape.detail && above ? y - font * 1.05 : y;
   const detailY = above ? y : y + font * 1.05;
+  const left = x - width / 2;
   return el('g', { class: 'overlay-label' }, [
-    text({ x: n(x), y: n(nameY), 'font-size': n(font), 'font-weight': 700, ...paint }, words),
+    shape.category
+      ? glyph(shape.category, left + font * 0.45, nameY - font * 0.35, font * 0.9)
+      : null,
+    text(
+      {
+        x: n(left + glyphRoom),
+        y: n(nameY),
+        'font-size': n(font),
+        'font-weight': 700,
+        'text-anchor': 'start',
+        ...paint,
+      },
+      words,
+    ),
     shape.detail
-      ? text({ x: n(x), y: n(detailY), 'font-size': n(font * 0.8), ...paint }, shape.detail)
+      ? text(
+          { x: n(x), y: n(detailY), 'font-size': n(font * 0.8), 'text-anchor': 'middle', ...paint },
+          shape.detail,
+        )
       : null,
   ]);
 }

@@ -7,7 +7,6 @@ import { el, n, type SvgNode } from './svg';
  */
 export interface VerdictStyle {
   label: string;
-  short: string;
   fill: string;
   stroke: string;
   /** Dash pattern of outlines drawn in this verdict ('' for solid). */
@@ -18,7 +17,6 @@ export interface VerdictStyle {
 export const verdictStyles: Record<Category, VerdictStyle> = {
   serviceable: {
     label: 'Serviceable',
-    short: 'SVC',
     fill: '#cfe0c3',
     stroke: '#3f6b35',
     dash: '',
@@ -26,7 +24,6 @@ export const verdictStyles: Record<Category, VerdictStyle> = {
   },
   'repeat-inspection': {
     label: 'Repeat inspection',
-    short: 'REP',
     fill: '#f2d38b',
     stroke: '#8a5a00',
     dash: '8 4',
@@ -34,7 +31,6 @@ export const verdictStyles: Record<Category, VerdictStyle> = {
   },
   review: {
     label: 'Review',
-    short: 'REV',
     fill: '#c9d0ea',
     stroke: '#34427a',
     dash: '2 3',
@@ -42,7 +38,6 @@ export const verdictStyles: Record<Category, VerdictStyle> = {
   },
   'beyond-limits': {
     label: 'Beyond limits',
-    short: 'BEY',
     fill: '#e8a39a',
     stroke: '#8f1d12',
     dash: '',

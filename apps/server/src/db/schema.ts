@@ -9,6 +9,7 @@ import {
   text,
   uniqueIndex,
 } from 'drizzle-orm/sqlite-core';
+import type { Calibration } from '@emberline/contracts/measurement';
 import type { DueMove } from '@emberline/contracts/planning';
 import type { DueBasis } from '@emberline/domain/due-status';
 
@@ -329,6 +330,11 @@ export const images = sqliteTable(
     videoTimeSeconds: real(),
     rowKey: text(),
     position: integer(),
+    /** The access port the still was taken through, as the inspector names it. */
+    port: text(),
+    /** The scale picked on this still, or reused from `calibrationImageId` (same size and port). */
+    calibration: text({ mode: 'json' }).$type<Calibration>(),
+    calibrationImageId: text(),
     thumbnail: blob({ mode: 'buffer' }).notNull(),
     thumbnailType: text().notNull(),
     preview: blob({ mode: 'buffer' }).notNull(),
@@ -385,6 +391,8 @@ export const limitRules = sqliteTable(
       .notNull()
       .references(() => limitSets.id),
     ruleId: text().notNull(),
+    /** A short title people read; empty on rules written before titles were kept. */
+    title: text().notNull().default(''),
     sequence: integer().notNull(),
     rowKey: text().notNull(),
     zones: text({ mode: 'json' }).notNull().$type<string[]>(),

@@ -45,12 +45,18 @@ const base: Pick<Rule, Optional> = {
   maxAdjacentAirfoils: null,
 };
 
-type RuleDraft = Omit<Rule, Optional | 'reference'> &
+type RuleDraft = Omit<Rule, Optional | 'reference' | 'title'> &
   Partial<Pick<Rule, Optional>> & { section: string };
+
+/** The section's words after its figure or table number make the rule's title. */
+const titleOf = (section: string) => {
+  const words = section.slice(section.indexOf(', ') + 2);
+  return words.charAt(0).toUpperCase() + words.slice(1);
+};
 
 const rule = (draft: RuleDraft): Rule => {
   const { section, ...rest } = draft;
-  return { ...base, ...rest, reference: `${MANUAL}, ${section}` };
+  return { ...base, ...rest, title: titleOf(section), reference: `${MANUAL}, ${section}` };
 };
 
 const cycles = (value: number) => ({ cycles: value, hours: null, days: null });

@@ -79,6 +79,7 @@ export const routePolicy = {
   'POST /verify/:code/file': 'public',
   'POST /inspections/:id/images': 'create:inspection',
   'PATCH /images/:id': 'create:inspection',
+  'PUT /images/:id/calibration': 'create:inspection',
   'GET /images/:id/thumbnail': 'read:inspection',
   'GET /images/:id/preview': 'read:inspection',
   'GET /images/:id/full': 'read:inspection',

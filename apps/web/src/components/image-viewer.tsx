@@ -14,6 +14,7 @@ export function ImageViewer({
   images,
   index,
   onIndex,
+  rowLabel,
   details,
   toolbar,
   overlay,
@@ -22,6 +23,8 @@ export function ImageViewer({
   images: Image[];
   index: number;
   onIndex: (index: number) => void;
+  /** A row's name from its key, for the image's text alternative. */
+  rowLabel: (key: string) => string;
   /** Shown beneath the image: what the still shows (its row and position). */
   details?: (image: Image) => ReactNode;
   /** Tools shown above the image (the drawing tools). */
@@ -53,8 +56,10 @@ export function ImageViewer({
     >
       <div className="flex flex-wrap items-center justify-between gap-2 text-sm">
         <p>
-          <span className="font-medium">{image.originalName}</span> · {image.width}×{image.height}{' '}
-          px · image {index + 1} of {images.length}
+          <span className="font-medium" data-shows-ids>
+            {image.originalName}
+          </span>{' '}
+          · {image.width}×{image.height} px · image {index + 1} of {images.length}
           {image.videoFileName
             ? ` · frame at ${image.videoTimeSeconds?.toFixed(2)} s of ${image.videoFileName}`
             : ''}
@@ -130,7 +135,7 @@ export function ImageViewer({
               >
                 <img
                   src={imageUrl(image.id, full ? 'full' : 'preview')}
-                  alt={`${image.originalName}${image.rowKey ? `, ${image.rowKey} position ${image.position}` : ''}`}
+                  alt={`${image.originalName}${image.rowKey ? `, ${rowLabel(image.rowKey)} position ${image.position}` : ''}`}
                   className="absolute inset-0 h-full w-full"
                   draggable={false}
                 />

@@ -17,6 +17,10 @@ export function toImage(row: ImageMeta): Image {
     videoTimeSeconds: row.videoTimeSeconds,
     rowKey: row.rowKey,
     position: row.position,
+    port: row.port,
+    calibration: row.calibration
+      ? { calibration: row.calibration, sourceImageId: row.calibrationImageId ?? row.id }
+      : null,
     createdAt: row.createdAt.toISOString(),
   };
 }

@@ -301,6 +301,109 @@ describe('image upload', () => {
   });
 });
 
+describe('scales saved with their stills', () => {
+  const still = async (name: string, width: number, red: number) => {
+    const data = await sharp({
+      create: { width, height: 480, channels: 3, background: { r: red, g: 90, b: 40 } },
+    })
+      .jpeg()
+      .toBuffer();
+    const response = await upload([{ name, data }]);
+    expect(response.status).toBe(201);
+    return response.body.images[0].id as string;
+  };
+  const tag = (id: string, port: string | null) =>
+    request(t.app)
+      .patch(`/api/v1/images/${id}`)
+      .set('Cookie', inspector)
+      .send({ rowKey: 'hpt1-blade', position: 3, port });
+  const calibrate = (id: string, body: object, cookie = inspector) =>
+    request(t.app).put(`/api/v1/images/${id}/calibration`).set('Cookie', cookie).send(body);
+  const reference = { kind: 'reference', p1: [100, 100], p2: [500, 100], lengthMm: 10 };
+
+  it('keeps a scale with its still at once, and reuses it only on a still of the same size and port', async () => {
+    const picked = await still('port-a-1.jpg', 640, 10);
+    const samePort = await still('port-a-2.jpg', 640, 20);
+    const otherPort = await still('port-b-1.jpg', 640, 30);
+    const otherSize = await still('port-a-wide.jpg', 660, 40);
+    expect((await tag(picked, '  Igniter port, left ')).body.port).toBe('Igniter port, left');
+    await tag(samePort, 'Igniter port, left').expect(200);
+    await tag(otherPort, 'Port 4').expect(200);
+    await tag(otherSize, 'Igniter port, left').expect(200);
+
+    expect((await calibrate(picked, { calibration: reference })).status).toBe(200);
+    // Read back as a reload would: the scale is there before any finding is recorded.
+    const detail = await request(t.app)
+      .get(`/api/v1/inspections/${inspectionId}`)
+      .set('Cookie', inspector);
+    const byId = (id: string) =>
+      (detail.body.images as { id: string; calibration: unknown; port: string }[]).find(
+        (image) => image.id === id,
+      )!;
+    expect(byId(picked).calibration).toEqual({ calibration: reference, sourceImageId: picked });
+
+    const reused = await calibrate(samePort, { fromImageId: picked });
+    expect(reused.status).toBe(200);
+    expect(reused.body.calibration).toEqual({ calibration: reference, sourceImageId: picked });
+
+    const acrossPorts = await calibrate(otherPort, { fromImageId: picked });
+    expect(acrossPorts.status).toBe(422);
+    expect(acrossPorts.body.error.message).toMatch(/same port/);
+    const acrossSizes = await calibrate(otherSize, { fromImageId: picked });
+    expect(acrossSizes.status).toBe(422);
+    expect(acrossSizes.body.error.message).toMatch(/same size/);
+
+    // A finding on the still that reused the scale measures with it: 400 px are 10 mm.
+    const finding = await request(t.app)
+      .post(`/api/v1/inspections/${inspectionId}/findings`)
+      .set('Cookie', inspector)
+      .send({
+        imageId: samePort,
+        shape: {
+          kind: 'polyline',
+          points: [
+            [100, 200],
+            [300, 200],
+          ],
+        },
+        calibration: reference,
+        calibrationImageId: picked,
+        row: 'hpt1-blade',
+        position: 3,
+        zone: 'leading-edge',
+        damage: 'crack',
+        method: 'image',
+      });
+    expect(finding.body.error?.message).toBeUndefined();
+    expect(finding.status).toBe(201);
+    expect(finding.body.lengthMm).toBeCloseTo(5, 9);
+  });
+
+  it('refuses a scale that cannot measure, one outside the still, a port with control characters, and a customer', async () => {
+    const id = await still('refused-scale.jpg', 640, 50);
+    const same = await calibrate(id, {
+      calibration: { ...reference, p2: reference.p1 },
+    });
+    expect(same.status).toBe(422);
+    expect(same.body.error.message).toMatch(/same point/);
+    const outside = await calibrate(id, {
+      calibration: { ...reference, p2: [900, 100] },
+    });
+    expect(outside.status).toBe(422);
+    expect(outside.body.error.message).toMatch(/outside the image/);
+    expect((await tag(id, 'Port\u00074')).status).toBe(400);
+    expect((await calibrate(id, { calibration: reference }, customer)).status).toBe(403);
+    const detail = await request(t.app)
+      .get(`/api/v1/inspections/${inspectionId}`)
+      .set('Cookie', inspector);
+    expect(
+      (detail.body.images as { id: string; calibration: unknown }[]).find(
+        (image) => image.id === id,
+      )!.calibration,
+    ).toBeNull();
+  });
+});
+
 describe('who may see and add images', () => {
   it('answers 404 to a customer for a draft inspection and its images, and 403 to their uploads', async () => {
     const id = await uploadOne(330);

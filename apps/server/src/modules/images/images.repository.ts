@@ -1,4 +1,5 @@
 import { and, asc, eq } from 'drizzle-orm';
+import type { Calibration } from '@emberline/contracts/measurement';
 import type { DbOrTx } from '../../db/client';
 import { images } from '../../db/schema';
 
@@ -20,6 +21,9 @@ const metaColumns = {
   videoTimeSeconds: images.videoTimeSeconds,
   rowKey: images.rowKey,
   position: images.position,
+  port: images.port,
+  calibration: images.calibration,
+  calibrationImageId: images.calibrationImageId,
   thumbnailType: images.thumbnailType,
   previewType: images.previewType,
   createdBy: images.createdBy,
@@ -76,9 +80,17 @@ export function insertImage(db: DbOrTx, row: typeof images.$inferInsert): void {
 export function tagImage(
   db: DbOrTx,
   id: string,
-  tag: { rowKey: string | null; position: number | null },
+  tag: { rowKey: string | null; position: number | null; port?: string | null },
 ): void {
   db.update(images).set(tag).where(eq(images.id, id)).run();
+}
+
+export function calibrateImage(
+  db: DbOrTx,
+  id: string,
+  calibration: { calibration: Calibration; calibrationImageId: string },
+): void {
+  db.update(images).set(calibration).where(eq(images.id, id)).run();
 }
 
 /** Every SHA-256 an image record names, for the start-up sweeper. */

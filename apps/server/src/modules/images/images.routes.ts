@@ -2,6 +2,7 @@ import { Router, type ErrorRequestHandler, type RequestHandler, type Response } 
 import multer from 'multer';
 import {
   imageSchema,
+  imageCalibrationInputSchema,
   imageTagInputSchema,
   uploadResponseSchema,
 } from '@emberline/contracts/inspections';
@@ -134,6 +135,23 @@ export function imagesRoutes(ctx: AppContext): Router {
     (req, res) => {
       res.json(
         images.tag(principalOf(res), res.locals.params.id, res.locals.body, requestMeta(req)),
+      );
+    },
+  );
+
+  route(
+    router,
+    'PUT /images/:id/calibration',
+    {
+      summary:
+        'Save the scale of a still: picked on it, or reused from a still of the same size and port',
+      params: idParamsSchema,
+      body: imageCalibrationInputSchema,
+      response: imageSchema,
+    },
+    (req, res) => {
+      res.json(
+        images.calibrate(principalOf(res), res.locals.params.id, res.locals.body, requestMeta(req)),
       );
     },
   );

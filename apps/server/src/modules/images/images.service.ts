@@ -1,5 +1,8 @@
+import type { Calibration } from '@emberline/contracts/measurement';
+import { assertCalibration } from '@emberline/domain/measurement';
 import type {
   Image,
+  ImageCalibrationInput,
   ImageTagInput,
   RejectedFile,
   UploadResponse,
@@ -16,6 +19,7 @@ import { listModelRows } from '../engine-models/engine-models.repository';
 import { findEngineRow } from '../engines/engines.repository';
 import { draftInspection, visibleInspection } from '../inspections/inspection-access';
 import {
+  calibrateImage,
   findImageBySha,
   findImageMeta,
   insertImage,
@@ -168,27 +172,97 @@ export function createImagesService(ctx: AppContext) {
       if ((input.rowKey === null) !== (input.position === null))
         throw AppError.unprocessable('Give both the row and the position, or neither');
       if (input.rowKey !== null) {
-        if (!inspection.rows.includes(input.rowKey))
-          throw AppError.unprocessable(`The row ${input.rowKey} is not listed for this inspection`);
         const engine = findEngineRow(db, inspection.engineId)!;
         const row = listModelRows(db, engine.modelId).find(
           (candidate) => candidate.key === input.rowKey,
-        )!;
+        );
+        if (!row || !inspection.rows.includes(input.rowKey))
+          throw AppError.unprocessable(
+            `${row?.label ?? 'That row'} is not listed for this inspection: choose one of its rows`,
+          );
         if (input.position! > row.count)
           throw AppError.unprocessable(
-            `Position ${input.position} is outside ${row.key}, which has positions 1 to ${row.count}`,
+            `Position ${input.position} is outside ${row.label}, which has positions 1 to ${row.count}`,
           );
       }
+      const tag = {
+        rowKey: input.rowKey,
+        position: input.position,
+        ...(input.port !== undefined ? { port: input.port } : {}),
+      };
       const now = ctx.now();
       inTransaction(db, (tx) => {
-        tagImage(tx, id, input);
+        tagImage(tx, id, tag);
         appendAudit(tx, now, {
           actorUserId: principal.user.id,
           action: 'image.tagged',
           entityType: 'image',
           entityId: id,
-          before: { rowKey: image.rowKey, position: image.position },
-          after: input,
+          before: { rowKey: image.rowKey, position: image.position, port: image.port },
+          after: { port: image.port, ...tag },
+          requestId: meta.requestId,
+          ip: meta.ip,
+        });
+      });
+      return toImage(findImageMeta(db, id)!);
+    },
+
+    /**
+     * Saves the scale of a still the moment it is picked: one picked on this still (its points
+     * inside it), or the scale of another still of this inspection with the same size and port.
+     */
+    calibrate(
+      principal: Principal,
+      id: string,
+      input: ImageCalibrationInput,
+      meta: RequestMeta,
+    ): Image {
+      const image = visibleImage(principal, id);
+      draftInspection(db, principal, image.inspectionId);
+      let saved: { calibration: Calibration; calibrationImageId: string };
+      if ('calibration' in input) {
+        const points =
+          input.calibration.kind === 'reference'
+            ? [input.calibration.p1, input.calibration.p2]
+            : input.calibration.corners;
+        const outside = points.find(
+          ([x, y]) => x < -0.5 || y < -0.5 || x > image.width + 0.5 || y > image.height + 0.5,
+        );
+        if (outside)
+          throw AppError.unprocessable(
+            `The point (${outside[0]}, ${outside[1]}) lies outside the image, which is ${image.width}×${image.height} pixels`,
+          );
+        assertCalibration(input.calibration);
+        saved = { calibration: input.calibration, calibrationImageId: id };
+      } else {
+        const source = findImageMeta(db, input.fromImageId);
+        if (!source || source.inspectionId !== image.inspectionId)
+          throw AppError.unprocessable('That image is not in this inspection');
+        if (!source.calibration)
+          throw AppError.unprocessable(`${source.originalName} has no scale to reuse`);
+        if (source.width !== image.width || source.height !== image.height)
+          throw AppError.unprocessable(
+            `${source.originalName} is ${source.width}×${source.height} pixels and this still ${image.width}×${image.height}: reuse a scale only from a still of the same size`,
+          );
+        if ((source.port ?? null) !== (image.port ?? null))
+          throw AppError.unprocessable(
+            `${source.originalName} was taken through ${source.port ?? 'no named port'} and this still through ${image.port ?? 'no named port'}: reuse a scale only from a still of the same port`,
+          );
+        saved = {
+          calibration: source.calibration,
+          calibrationImageId: source.calibrationImageId ?? source.id,
+        };
+      }
+      const now = ctx.now();
+      inTransaction(db, (tx) => {
+        calibrateImage(tx, id, saved);
+        appendAudit(tx, now, {
+          actorUserId: principal.user.id,
+          action: 'image.calibrated',
+          entityType: 'image',
+          entityId: id,
+          before: { calibration: image.calibration, calibrationImageId: image.calibrationImageId },
+          after: saved,
           requestId: meta.requestId,
           ip: meta.ip,
         });

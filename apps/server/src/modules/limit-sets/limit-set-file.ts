@@ -10,6 +10,7 @@ import { decodeUtf8, readCsv, unreadableFile, writeCsv } from '../../lib/csv';
  */
 export const LIMIT_CSV_COLUMNS = [
   'id',
+  'title',
   'row',
   'zones',
   'damage',
@@ -38,6 +39,7 @@ export function rulesToCsv(rules: readonly Rule[]): string {
     LIMIT_CSV_COLUMNS,
     rules.map((rule) => [
       rule.id,
+      rule.title,
       rule.row,
       rule.zones.join(';'),
       rule.damage,
@@ -71,6 +73,7 @@ export interface RuleLine {
 /** The rule's field a schema issue is about, in the words of the CSV header. */
 const columnOf: Record<string, Column> = {
   id: 'id',
+  title: 'title',
   row: 'row',
   zones: 'zones',
   damage: 'damage',
@@ -127,6 +130,7 @@ export function parseRulesCsv(bytes: Buffer): RuleLine[] {
     const kind = (values.beyond_action ?? '').trim();
     const candidate = {
       id: values.id,
+      title: values.title ?? '',
       row: values.row,
       zones: (values.zones ?? '')
         .split(';')

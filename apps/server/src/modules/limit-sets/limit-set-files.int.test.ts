@@ -40,7 +40,7 @@ describe('export and import of a revision', () => {
     expect(csv.headers['content-type']).toMatch(/^text\/csv/);
     expect(csv.headers['content-disposition']).toMatch(/attachment; filename=".+\.csv"/);
     const lines = csv.text.split('\r\n');
-    expect(lines[0]).toMatch(/^id,row,zones,damage,measure,unit,serviceable_max,repeat_max,/);
+    expect(lines[0]).toMatch(/^id,title,row,zones,damage,measure,unit,serviceable_max,repeat_max,/);
     expect(lines).toHaveLength(demoRules.length + 1);
     // Units are written out on every line.
     for (const line of lines.slice(1)) expect(line).toMatch(/,(mm|in|mm2|in2|count),/);

@@ -183,6 +183,7 @@ describe('the limit library, write side', () => {
     expect(saved.body.changes).toEqual([
       {
         ruleId: 'hpt1-blade.crack.edges',
+        title: 'Cracks at the blade edges',
         kind: 'changed',
         fields: [
           {
@@ -234,6 +235,27 @@ describe('the limit library, write side', () => {
     expect(byAuthor.body.error.message).toBe(
       'You made or changed this draft: another engineer checks it against the manual.',
     );
+    // Every rule needs the short title people read it by before it is checked.
+    const untitled = [{ ...rules[0], title: '' }, ...rules.slice(1)];
+    await request(t.app)
+      .put(`/api/v1/limit-sets/${copy.body.id}/rules`)
+      .set('Cookie', engineer)
+      .send({ rules: untitled })
+      .expect(200);
+    const checker = await t.signIn('engineer2@demo.test');
+    const withoutTitle = await request(t.app)
+      .post(`/api/v1/limit-sets/${copy.body.id}/check`)
+      .set('Cookie', checker)
+      .send({ password: 'emberline-demo' });
+    expect(withoutTitle.status).toBe(422);
+    expect(withoutTitle.body.error.message).toBe(
+      `Give every rule a short title before the check (people read rules by it): rule ${rules[0]!.id} has none.`,
+    );
+    await request(t.app)
+      .put(`/api/v1/limit-sets/${copy.body.id}/rules`)
+      .set('Cookie', engineer)
+      .send({ rules })
+      .expect(200);
     await checkLimitDraft(t.app, (email) => t.signIn(email), copy.body.id);
     // Any change after the check clears it.
     const changed = await request(t.app)

@@ -64,6 +64,7 @@ export function listRules(db: DbOrTx, limitSetId: string): Rule[] {
     .all()
     .map((row) => ({
       id: row.ruleId,
+      title: row.title,
       row: row.rowKey,
       zones: row.zones,
       damage: row.damage as Rule['damage'],
@@ -105,6 +106,7 @@ export function insertRules(db: DbOrTx, limitSetId: string, rules: readonly Rule
       rules.map((rule, sequence) => ({
         limitSetId,
         ruleId: rule.id,
+        title: rule.title,
         sequence,
         rowKey: rule.row,
         zones: rule.zones,

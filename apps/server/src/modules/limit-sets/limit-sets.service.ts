@@ -41,6 +41,7 @@ import {
 } from './limit-sets.repository';
 import { findingKey, limitSetImpact } from './limit-set-impact';
 import { parseRulesFile, rulesToCsv } from './limit-set-file';
+import { ruleName } from '@emberline/domain/verdict-words';
 
 export function toLimitSetSummary(row: LimitSetRow): LimitSetSummary {
   return {
@@ -76,7 +77,9 @@ export function limitSetContent(
     manualReference: row.manualReference,
     effectiveDate: row.effectiveDate,
     invented: row.invented,
-    rules,
+    // A rule without a title hashes as it did before rules had titles, so that revisions
+    // published then still verify.
+    rules: rules.map(({ title, ...rest }) => (title ? { ...rest, title } : rest)),
   };
 }
 
@@ -162,7 +165,7 @@ export function createLimitSetsService(ctx: AppContext) {
     for (const rule of rules) {
       const old = before.get(rule.id);
       if (!old) {
-        changes.push({ ruleId: rule.id, kind: 'added', fields: [] });
+        changes.push({ ruleId: rule.id, title: ruleName(rule), kind: 'added', fields: [] });
         continue;
       }
       const fields = [...new Set([...Object.keys(old), ...Object.keys(rule)])]
@@ -176,10 +179,12 @@ export function createLimitSetsService(ctx: AppContext) {
           from: old[field as keyof Rule] ?? null,
           to: rule[field as keyof Rule] ?? null,
         }));
-      if (fields.length) changes.push({ ruleId: rule.id, kind: 'changed', fields });
+      if (fields.length)
+        changes.push({ ruleId: rule.id, title: ruleName(rule), kind: 'changed', fields });
     }
     for (const rule of before.values())
-      if (!after.has(rule.id)) changes.push({ ruleId: rule.id, kind: 'removed', fields: [] });
+      if (!after.has(rule.id))
+        changes.push({ ruleId: rule.id, title: ruleName(rule), kind: 'removed', fields: [] });
     return changes;
   }
 
@@ -225,6 +230,11 @@ export function createLimitSetsService(ctx: AppContext) {
       if (rules.length === 0)
         throw AppError.unprocessable('A revision without rules cannot be checked');
       checkRules(row.modelId, rules);
+      const untitled = rules.filter((rule) => !rule.title).map((rule) => rule.id);
+      if (untitled.length > 0)
+        throw AppError.unprocessable(
+          `Give every rule a short title before the check (people read rules by it): ${untitled.length === 1 ? 'rule' : 'rules'} ${untitled.slice(0, 10).join(', ')}${untitled.length > 10 ? ` and ${untitled.length - 10} more` : ''} ${untitled.length === 1 ? 'has' : 'have'} none.`,
+        );
       if (editorsOf(row).includes(principal.user.id))
         throw AppError.unprocessable(
           'You made or changed this draft: another engineer checks it against the manual.',

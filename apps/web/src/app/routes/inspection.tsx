@@ -66,6 +66,7 @@ export function InspectionRoute() {
   const data = inspection.data;
   const editable = data.state === 'draft' && can(user.role, 'create:inspection');
   const rows = (model.data?.rows ?? []).filter((row) => data.rows.includes(row.key));
+  const rowLabel = (key: string) => model.data?.rows.find((row) => row.key === key)?.label ?? key;
   const particulars: [string, string][] = [
     ['Date', formatDate(data.date)],
     [
@@ -111,7 +112,7 @@ export function InspectionRoute() {
             inspection={data}
             canSubmit={can(user.role, 'create:inspection')}
             canReview={can(user.role, 'review:inspection')}
-            coverageGaps={coverage.data?.outcome.coverageGaps ?? []}
+            coverageGaps={(coverage.data?.outcome.coverageGaps ?? []).map(rowLabel)}
             findingCount={
               findings.data?.items.filter((item) => item.status === 'recorded').length ?? 0
             }
@@ -155,6 +156,9 @@ export function InspectionRoute() {
                   image={image}
                   rows={rows}
                   inspectionId={data.id}
+                  ports={[
+                    ...new Set(data.images.flatMap((other) => (other.port ? [other.port] : []))),
+                  ]}
                   editable={editable}
                 />
               )}
@@ -171,7 +175,11 @@ export function InspectionRoute() {
             formats={['csv', 'xlsx', 'json']}
           />
         </div>
-        {findings.data ? <OutcomeSummary outcome={findings.data.outcome} /> : <LoadingLine />}
+        {findings.data ? (
+          <OutcomeSummary outcome={findings.data.outcome} rowLabel={rowLabel} />
+        ) : (
+          <LoadingLine />
+        )}
         {findings.error ? <Notice tone="error">{findings.error.message}</Notice> : null}
         {findings.data && coverage.data ? (
           <FindingsPanel
@@ -180,6 +188,7 @@ export function InspectionRoute() {
             findings={findings.data.items}
             coverage={coverage.data.rows}
             editable={editable}
+            rulesReadable={can(user.role, 'read:limit-set')}
             trend={
               can(user.role, 'read:limit-set')
                 ? (finding) => <FindingTrend finding={finding} />

@@ -3,6 +3,7 @@ import { ArrowLeft } from 'lucide-react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { cautions } from '@emberline/contracts/cautions';
 import type { Rule } from '@emberline/contracts/limits';
+import { ruleName } from '@emberline/domain/verdict-words';
 import { can } from '@emberline/contracts/permissions';
 import { Button } from '../../components/ui/button';
 import { Notice } from '../../components/ui/notice';
@@ -213,7 +214,16 @@ function LimitSetPage({ id }: { id: string }) {
                   : 'Not checked yet: an engineer who did not make or change this draft signs the check before it can be published. Any change clears the check.'}
           </p>
           {impact.error ? <Notice tone="error">{impact.error.message}</Notice> : null}
-          {impact.data ? <ImpactPanel impact={impact.data} /> : null}
+          {impact.data ? (
+            <ImpactPanel
+              impact={impact.data}
+              rowLabel={(key) => rows.find((row) => row.key === key)?.label ?? key}
+              ruleTitle={(id) => {
+                const rule = data.rules.find((item) => item.id === id);
+                return rule ? ruleName(rule) : id;
+              }}
+            />
+          ) : null}
           {signing ? (
             <div className="mt-4">
               <PublishForm
@@ -235,12 +245,8 @@ function LimitSetPage({ id }: { id: string }) {
           <DraftChanges
             changes={data.changes}
             basedOn={data.basedOnRevision}
-            ruleTitle={(ruleId) => {
-              const rule = data.rules.find((item) => item.id === ruleId);
-              return rule
-                ? `${rows.find((row) => row.key === rule.row)?.label ?? rule.row}, ${rule.damage.replace(/-/g, ' ')}`
-                : 'a rule of the earlier revision';
-            }}
+            rowLabel={(key) => rows.find((row) => row.key === key)?.label ?? key}
+            unitOf={(ruleId) => data.rules.find((rule) => rule.id === ruleId)?.unit ?? 'mm'}
           />
         </Panel>
       ) : null}
@@ -304,7 +310,7 @@ function LimitSetPage({ id }: { id: string }) {
           onRemove={
             editable
               ? (rule) => {
-                  if (window.confirm(`Remove rule ${rule.id} from this draft?`))
+                  if (window.confirm(`Remove the rule “${ruleName(rule)}” from this draft?`))
                     save(data.rules.filter((item) => item !== rule));
                 }
               : undefined

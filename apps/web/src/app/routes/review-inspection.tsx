@@ -196,6 +196,7 @@ function DispositionScreen({ inspectionId }: { inspectionId: string }) {
                 images={data.images}
                 index={shownIndex}
                 onIndex={setImageIndex}
+                rowLabel={rowLabel}
                 overlay={(image) => (
                   <svg
                     aria-hidden="true"

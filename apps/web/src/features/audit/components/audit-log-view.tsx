@@ -102,7 +102,11 @@ export function AuditLogView({ people }: { people: { id: string; name: string }[
       {log.isPending ? <LoadingLine /> : null}
       {log.error ? <Notice tone="error">{log.error.message}</Notice> : null}
       {log.data && entries.length === 0 ? <Notice>No entry matches these filters.</Notice> : null}
-      <div className="overflow-x-auto rounded-lg border border-soot-200 bg-white">
+      <p className="text-xs text-soot-600">
+        The log shows each change as the records keep it: ids, keys and values as stored, for
+        tracing a record; the record’s own page says it in words.
+      </p>
+      <div className="overflow-x-auto rounded-lg border border-soot-200 bg-white" data-shows-ids>
         <table className="w-full text-left text-sm">
           <caption className="sr-only">Audit log, newest first</caption>
           <thead className="border-b border-soot-200 text-xs uppercase tracking-wide text-soot-600">

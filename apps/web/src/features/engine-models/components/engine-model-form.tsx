@@ -170,7 +170,11 @@ export function EngineModelForm({
                 )}
               </div>
               <div className="grid gap-3 md:grid-cols-4">
-                <Field label="Key" error={rowErrors?.key} hint="such as hpt1-blade">
+                <Field
+                  label="Key"
+                  error={rowErrors?.key}
+                  hint="Short and unique in the model: lower-case letters, digits and hyphens"
+                >
                   {(props) => (
                     <Input
                       {...props}

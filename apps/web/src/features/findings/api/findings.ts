@@ -7,6 +7,11 @@ import type {
   FindingListResponse,
   SeriesEntry,
 } from '@emberline/contracts/findings';
+import type {
+  Image,
+  ImageCalibrationInput,
+  InspectionDetail,
+} from '@emberline/contracts/inspections';
 import type { LimitSet, LimitSetSummary } from '@emberline/contracts/limit-sets';
 import { api } from '../../../lib/api-client';
 import { inspectionKeys } from '../../../lib/inspection-keys';
@@ -120,5 +125,23 @@ export function useRecordCoverage(inspectionId: string) {
       queryClient.setQueryData(findingKeys.coverage(inspectionId), response);
       void invalidate();
     },
+  });
+}
+
+/** Saves the scale of a still at once, and puts the saved still into the inspection on screen. */
+export function useCalibrateImage(inspectionId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ imageId, input }: { imageId: string; input: ImageCalibrationInput }) =>
+      api.put<Image>(`/images/${encodeURIComponent(imageId)}/calibration`, input),
+    onSuccess: (saved) =>
+      queryClient.setQueryData<InspectionDetail>(inspectionKeys.detail(inspectionId), (detail) =>
+        detail
+          ? {
+              ...detail,
+              images: detail.images.map((image) => (image.id === saved.id ? saved : image)),
+            }
+          : detail,
+      ),
   });
 }

@@ -23,7 +23,7 @@ import { Input, Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { applyServerErrors, useZodForm } from '../../../lib/form';
 import { ImageViewer } from '../../../components/image-viewer';
-import { useRecordFinding, useSeriesCandidates } from '../api/findings';
+import { useCalibrateImage, useRecordFinding, useSeriesCandidates } from '../api/findings';
 import {
   annotationReducer,
   calibrationFrom,
@@ -36,8 +36,8 @@ import { liveMeasurement, liveVerdict } from '../lib/live';
 import { DrawingLayer } from './drawing-layer';
 import { FindingFields } from './finding-fields';
 import { blankDetails } from '../lib/finding-details';
-import { reasonLabels } from '../../../lib/reason-labels';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
+import { VerdictBasis } from '../../../components/verdict-basis';
 
 const mm = (value: number | null | undefined, digits = 3) =>
   value === null || value === undefined ? '—' : value.toFixed(digits);
@@ -96,7 +96,7 @@ export function Annotator({
   const images = inspection.images;
   const image = images[Math.min(index, images.length - 1)]!;
   const [state, dispatch] = useReducer(annotationReducer, initialAnnotation);
-  const [chosen, setChosen] = useState<Record<string, CalibrationChoice>>({});
+  const calibrate = useCalibrateImage(inspection.id);
   const [pickUncertainty, setPickUncertainty] = useState('1');
   const [trueSize, setTrueSize] = useState({
     length: '',
@@ -106,24 +106,29 @@ export function Annotator({
   });
   const recorded = findings.filter((finding) => finding.status === 'recorded');
 
-  // A calibration chosen here, else the one the last finding on this image used.
+  // The scale saved with the still, else (for stills scaled before scales were saved with them)
+  // the one the last finding on it used.
   const fromFindings = recorded.findLast(
     (finding) => finding.imageId === image.id && finding.calibration,
   );
   const calibration: CalibrationChoice | null =
-    chosen[image.id] ??
+    image.calibration ??
     (fromFindings?.calibration
       ? {
           calibration: fromFindings.calibration.calibration,
           sourceImageId: fromFindings.calibration.imageId,
         }
       : null);
+  const nameOf = (id: string) =>
+    images.find((other) => other.id === id)?.originalName ?? 'another still';
+  // A scale carries over only between stills of one size taken through one port.
   const reusable = images.filter(
     (other) =>
       other.id !== image.id &&
       other.width === image.width &&
       other.height === image.height &&
-      chosen[other.id],
+      (other.port ?? null) === (image.port ?? null) &&
+      other.calibration,
   );
 
   const u = Math.max(0, Number(pickUncertainty) || 0);
@@ -329,6 +334,7 @@ export function Annotator({
           onIndex(next);
         }}
         details={imageDetails}
+        rowLabel={(key) => rows.find((row) => row.key === key)?.label ?? key}
         toolbar={toolbar}
         leftButtonPans={state.tool === 'pan'}
         overlay={(shown) => (
@@ -351,10 +357,15 @@ export function Annotator({
             <p data-testid="calibration-state">
               {calibration
                 ? calibration.calibration.kind === 'reference'
-                  ? `Reference of ${calibration.calibration.lengthMm} mm${calibration.sourceImageId !== image.id ? ' (from another image of this size)' : ''}`
+                  ? `Reference of ${calibration.calibration.lengthMm} mm`
                   : `Plane ${calibration.calibration.widthMm} × ${calibration.calibration.heightMm} mm`
                 : 'Not calibrated: pick a reference (R) or a plane (C).'}
+              {calibration && calibration.sourceImageId !== image.id
+                ? `, reused from ${nameOf(calibration.sourceImageId)}`
+                : ''}
+              {image.calibration ? ' · saved with this still' : ''}
             </p>
+            {calibrate.error ? <Notice tone="error">{calibrate.error.message}</Notice> : null}
             {calibrating ? (
               <form
                 className="flex flex-wrap items-end gap-2"
@@ -362,11 +373,10 @@ export function Annotator({
                 onSubmit={(event) => {
                   event.preventDefault();
                   if (!madeCalibration) return;
-                  setChosen({
-                    ...chosen,
-                    [image.id]: { calibration: madeCalibration, sourceImageId: image.id },
-                  });
-                  dispatch({ type: 'choose', tool: 'polyline' });
+                  calibrate.mutate(
+                    { imageId: image.id, input: { calibration: madeCalibration } },
+                    { onSuccess: () => dispatch({ type: 'choose', tool: 'polyline' }) },
+                  );
                 }}
               >
                 {state.tool === 'reference' ? (
@@ -425,19 +435,27 @@ export function Annotator({
                     <option value="in">in</option>
                   </Select>
                 </label>
-                <Button type="submit" variant="secondary" disabled={!madeCalibration}>
+                <Button
+                  type="submit"
+                  variant="secondary"
+                  disabled={!madeCalibration}
+                  busy={calibrate.isPending}
+                >
                   Use this scale
                 </Button>
               </form>
             ) : null}
             {reusable.length > 0 ? (
               <label className="flex flex-col gap-1">
-                Reuse the scale of an image of the same size
+                Reuse the scale of a still of the same size and port
                 <Select
                   value=""
                   onChange={(event) => {
-                    const source = chosen[event.target.value];
-                    if (source) setChosen({ ...chosen, [image.id]: source });
+                    if (event.target.value)
+                      calibrate.mutate({
+                        imageId: image.id,
+                        input: { fromImageId: event.target.value },
+                      });
                   }}
                 >
                   <option value="">Choose an image…</option>
@@ -510,8 +528,7 @@ export function Annotator({
               <div className="flex flex-col gap-1" data-testid="live-verdict">
                 <VerdictBadge category={verdict.value.category} />
                 <p>
-                  {verdict.value.ruleId ? `Rule ${verdict.value.ruleId}` : 'No rule matches'} ·{' '}
-                  {verdict.value.reasons.map((reason) => reasonLabels[reason]).join('; ')}
+                  <VerdictBasis evaluation={verdict.value} limitSet={limitSet} />
                 </p>
                 {verdict.value.indeterminate ? (
                   <Notice tone="caution">

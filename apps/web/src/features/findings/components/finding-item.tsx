@@ -9,8 +9,9 @@ import { Input } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { useVoidFinding } from '../api/findings';
 import { formatKey } from '../../../lib/format';
-import { reasonLabels } from '../../../lib/reason-labels';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
+import { VerdictBasis } from '../../../components/verdict-basis';
+import { useJudgedAgainst } from '../../../lib/limit-set-query';
 import { FindingEditForm } from './finding-edit-form';
 
 /** One finding in the list: its verdict and reasons, and correct or void while a draft. */
@@ -21,6 +22,7 @@ export function FindingItem({
   inspectionId,
   onOpen,
   trend,
+  rulesReadable,
 }: {
   finding: Finding;
   rows: EngineModelRow[];
@@ -29,12 +31,15 @@ export function FindingItem({
   onOpen: (finding: Finding) => void;
   /** The damage trend of a finding that continues earlier ones, drawn by the caller. */
   trend?: ((finding: Finding) => ReactNode) | undefined;
+  /** Whether the rules may be read, to state what the verdict was compared with. */
+  rulesReadable: boolean;
 }) {
   const voiding = useVoidFinding(inspectionId);
   const [reason, setReason] = useState('');
   const [asking, setAsking] = useState(false);
   const [correcting, setCorrecting] = useState(false);
   const evaluation = finding.evaluation;
+  const judgedAgainst = useJudgedAgainst(evaluation && rulesReadable ? finding.limitSetId : null);
   return (
     <li
       className={`flex flex-col gap-1 rounded border border-soot-200 p-2 text-sm ${finding.status === 'void' ? 'opacity-60' : ''}`}
@@ -70,8 +75,7 @@ export function FindingItem({
       </p>
       {evaluation && finding.status === 'recorded' ? (
         <p className="text-xs text-soot-700">
-          {evaluation.ruleId ? `Rule ${evaluation.ruleId}: ` : ''}
-          {evaluation.reasons.map((item) => reasonLabels[item]).join('; ')}
+          <VerdictBasis evaluation={evaluation} limitSet={judgedAgainst.data} />
           {evaluation.indeterminate
             ? ' · indeterminate: a re-measurement or a better view could settle it'
             : ''}

@@ -24,6 +24,7 @@ export function FindingsPanel({
   editable,
   onOpen,
   trend,
+  rulesReadable,
 }: {
   inspectionId: string;
   rows: EngineModelRow[];
@@ -32,6 +33,8 @@ export function FindingsPanel({
   editable: boolean;
   onOpen: (finding: Finding) => void;
   trend?: (finding: Finding) => ReactNode;
+  /** Whether the signed-in person may read the limit library (customers may not). */
+  rulesReadable: boolean;
 }) {
   const [filter, setFilter] = useState<Record<string, number | null>>({});
   return (
@@ -138,6 +141,7 @@ export function FindingsPanel({
                       inspectionId={inspectionId}
                       onOpen={onOpen}
                       trend={trend}
+                      rulesReadable={rulesReadable}
                     />
                   ))}
                 </ul>

@@ -1,6 +1,7 @@
 import { cautions } from '@emberline/contracts/cautions';
 import type { InspectionOutcome } from '@emberline/contracts/findings';
 import { categories } from '@emberline/contracts/limits';
+import { verdictStyles } from '@emberline/drawings/verdict-style';
 import { Notice } from '../../../components/ui/notice';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
 
@@ -22,7 +23,13 @@ const actionWords = {
 } as const;
 
 /** The inspection outcome as it stands: verdict, counts, interval, removals and gaps. */
-export function OutcomeSummary({ outcome }: { outcome: InspectionOutcome }) {
+export function OutcomeSummary({
+  outcome,
+  rowLabel,
+}: {
+  outcome: InspectionOutcome;
+  rowLabel: (key: string) => string;
+}) {
   return (
     <div className="flex flex-col gap-2 text-sm" data-testid="inspection-outcome">
       <div className="flex flex-wrap items-center gap-2">
@@ -31,7 +38,10 @@ export function OutcomeSummary({ outcome }: { outcome: InspectionOutcome }) {
         <span className="text-soot-700">
           {categories
             .filter((category) => outcome.counts[category])
-            .map((category) => `${outcome.counts[category]} ${category.replace('-', ' ')}`)
+            .map(
+              (category) =>
+                `${outcome.counts[category]} ${verdictStyles[category].label.toLowerCase()}`,
+            )
             .join(' · ') || 'no findings'}
         </span>
       </div>
@@ -54,8 +64,10 @@ export function OutcomeSummary({ outcome }: { outcome: InspectionOutcome }) {
       ))}
       {outcome.coverageGaps.length > 0 ? (
         <Notice tone="caution">
-          Not fully viewed, with no reason given: {outcome.coverageGaps.join(', ')}. The outcome is
-          at best review until each gap is viewed or explained.
+          Not fully viewed, with no reason given: {outcome.coverageGaps.map(rowLabel).join(', ')}.{' '}
+          {outcome.category === 'beyond-limits'
+            ? 'Each of them is still to be viewed or explained.'
+            : 'The outcome stays at review until each of them is viewed or explained.'}
         </Notice>
       ) : null}
       <p className="text-xs text-soot-600">

@@ -4,6 +4,7 @@ import { Button } from '../../../components/ui/button';
 import { Input } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { useAcknowledgeFlag } from '../api/inspections';
+import { formatDateTime } from '../../../lib/format';
 
 export function FlagsPanel({
   inspection,
@@ -31,7 +32,7 @@ export function FlagsPanel({
             <p>{flag.message}</p>
             {flag.acknowledgedAt ? (
               <p className="mt-1 text-xs">
-                {flag.acknowledgedBy}, {new Date(flag.acknowledgedAt).toLocaleString()}: {flag.note}
+                {flag.acknowledgedBy}, {formatDateTime(flag.acknowledgedAt)}: {flag.note}
               </p>
             ) : canAcknowledge ? (
               <form

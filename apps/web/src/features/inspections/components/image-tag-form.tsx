@@ -11,23 +11,30 @@ export function ImageTagForm({
   image,
   rows,
   inspectionId,
+  ports,
   editable,
 }: {
   image: Image;
   rows: EngineModelRow[];
   inspectionId: string;
+  /** The ports already named in this inspection, offered as the inspector types. */
+  ports: string[];
   editable: boolean;
 }) {
   const tag = useTagImage(inspectionId);
   const [rowKey, setRowKey] = useState(image.rowKey ?? '');
   const [position, setPosition] = useState(image.position ? String(image.position) : '');
+  const [port, setPort] = useState(image.port ?? '');
   const row = rows.find((candidate) => candidate.key === rowKey);
+  const listId = `ports-${image.id}`;
   if (!editable) {
+    const shown = rows.find((candidate) => candidate.key === image.rowKey);
     return (
       <p className="text-sm">
         {image.rowKey
-          ? `Shows ${image.rowKey}, position ${image.position}`
+          ? `Shows ${shown?.label ?? 'a row not on this model'}, position ${image.position}`
           : 'Not tagged with a row and position.'}
+        {image.port ? ` Taken through ${image.port}.` : ''}
       </p>
     );
   }
@@ -39,7 +46,10 @@ export function ImageTagForm({
         event.preventDefault();
         tag.mutate({
           imageId: image.id,
-          tag: rowKey ? { rowKey, position: Number(position) } : { rowKey: null, position: null },
+          tag: {
+            ...(rowKey ? { rowKey, position: Number(position) } : { rowKey: null, position: null }),
+            port: port.trim() || null,
+          },
         });
       }}
     >
@@ -65,6 +75,22 @@ export function ImageTagForm({
           className="w-24"
           disabled={!rowKey}
         />
+      </label>
+      <label className="flex flex-col gap-1 text-sm">
+        Port
+        <Input
+          value={port}
+          onChange={(event) => setPort(event.target.value)}
+          list={listId}
+          maxLength={40}
+          placeholder="e.g. Igniter port, left"
+          className="w-48"
+        />
+        <datalist id={listId}>
+          {ports.map((name) => (
+            <option key={name} value={name} />
+          ))}
+        </datalist>
       </label>
       <Button type="submit" variant="secondary" busy={tag.isPending}>
         Save tag

@@ -55,8 +55,8 @@ export function ReviewActions({
           </li>
           {coverageGaps.length > 0 ? (
             <li>
-              Not fully viewed without a reason: {coverageGaps.join(', ')} (the outcome stays at
-              review).
+              Not fully viewed without a reason: {coverageGaps.join(', ')} (the outcome cannot be
+              better than review).
             </li>
           ) : (
             <li>Every listed row is fully viewed or its gap explained.</li>

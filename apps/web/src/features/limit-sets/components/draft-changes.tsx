@@ -1,25 +1,27 @@
 import type { RuleChange } from '@emberline/contracts/limit-sets';
+import type { LimitUnit } from '@emberline/contracts/limits';
+import { ruleFieldLabels, ruleFieldWords } from '../lib/rule-form';
 
 const kindWords = { added: 'Added', removed: 'Removed', changed: 'Changed' } as const;
-const value = (item: unknown) =>
-  item === null || item === undefined
-    ? 'none'
-    : Array.isArray(item)
-      ? item.join(', ') || 'none'
-      : typeof item === 'object'
-        ? JSON.stringify(item)
-        : String(item);
-
 /** What a draft changes against the revision it was copied from, rule by rule. */
 export function DraftChanges({
   changes,
   basedOn,
-  ruleTitle,
+  rowLabel,
+  unitOf,
 }: {
   changes: RuleChange[];
   basedOn: string;
-  ruleTitle: (ruleId: string) => string;
+  rowLabel: (key: string) => string;
+  /** The unit a rule's limits are written in (the draft's, else the earlier revision's). */
+  unitOf: (ruleId: string) => LimitUnit;
 }) {
+  // A limit is read in its own revision's unit: the earlier one for the old value if the unit changed.
+  const units = (change: RuleChange) => {
+    const unitChange = change.fields.find((field) => field.field === 'unit');
+    const now = unitOf(change.ruleId);
+    return { from: (unitChange?.from as LimitUnit | undefined) ?? now, to: now };
+  };
   return (
     <section aria-label={`Changes against revision ${basedOn}`} className="text-sm">
       <h2 className="mb-2 text-lg font-semibold">What this draft changes against {basedOn}</h2>
@@ -30,13 +32,17 @@ export function DraftChanges({
           {changes.map((change) => (
             <li key={change.ruleId} data-testid="rule-change">
               <span className="font-medium">{kindWords[change.kind]}: </span>
-              {ruleTitle(change.ruleId)}{' '}
-              <span className="font-mono text-xs text-soot-600">{change.ruleId}</span>
+              {change.title}{' '}
+              <span className="font-mono text-xs text-soot-600" data-shows-ids>
+                {change.ruleId}
+              </span>
               {change.fields.length ? (
                 <ul className="ml-5 list-disc">
                   {change.fields.map((field) => (
                     <li key={field.field}>
-                      {field.field}: {value(field.from)} → {value(field.to)}
+                      {ruleFieldLabels[field.field as keyof typeof ruleFieldLabels] ?? field.field}:{' '}
+                      {ruleFieldWords(field.field, field.from, units(change).from, rowLabel)} →{' '}
+                      {ruleFieldWords(field.field, field.to, units(change).to, rowLabel)}
                     </li>
                   ))}
                 </ul>

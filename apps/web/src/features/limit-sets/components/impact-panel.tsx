@@ -1,4 +1,4 @@
-import { formatKey } from '../../../lib/format';
+import { formatDate, formatKey } from '../../../lib/format';
 import { Link } from 'react-router-dom';
 import type { LimitSetImpact } from '@emberline/contracts/limit-sets';
 import { categories, type Interval } from '@emberline/contracts/limits';
@@ -30,7 +30,16 @@ function Verdict({
  * findings, each finding whose verdict or interval changes (the relaxed ones first: those are
  * where a transcription error would make damage look acceptable), and the engines affected.
  */
-export function ImpactPanel({ impact }: { impact: LimitSetImpact }) {
+export function ImpactPanel({
+  impact,
+  rowLabel,
+  ruleTitle,
+}: {
+  impact: LimitSetImpact;
+  rowLabel: (key: string) => string;
+  ruleTitle: (id: string) => string;
+}) {
+  const ruleWords = (id: string | null) => (id ? ruleTitle(id) : 'no rule');
   const relaxed = impact.changes.filter((change) => change.relaxed).length;
   return (
     <div className="flex flex-col gap-4 text-sm" data-testid="impact-preview">
@@ -109,14 +118,14 @@ export function ImpactPanel({ impact }: { impact: LimitSetImpact }) {
                       to={`/inspections/${change.inspectionId}`}
                       className="text-ember-800 hover:underline"
                     >
-                      {change.inspectionDate}
+                      {formatDate(change.inspectionDate)}
                     </Link>
                     <div className="text-xs text-soot-600">
                       {change.released ? 'released' : 'open'}
                     </div>
                   </td>
                   <td className="py-2 pr-3">
-                    F{change.number} · {change.row} position {change.position}
+                    F{change.number} · {rowLabel(change.row)} position {change.position}
                     <div className="text-xs text-soot-600">
                       {formatKey(change.zone)}, {formatKey(change.damage)}
                     </div>
@@ -139,8 +148,10 @@ export function ImpactPanel({ impact }: { impact: LimitSetImpact }) {
                       <span className="text-xs font-medium text-amber-900">less severe</span>
                     ) : null}
                   </td>
-                  <td className="py-2 pr-3 font-mono text-xs">
-                    {change.before.ruleId ?? '—'} → {change.after.ruleId ?? '—'}
+                  <td className="py-2 pr-3 text-xs">
+                    {change.before.ruleId === change.after.ruleId
+                      ? ruleWords(change.after.ruleId)
+                      : `${ruleWords(change.before.ruleId)} → ${ruleWords(change.after.ruleId)}`}
                   </td>
                 </tr>
               ))}

@@ -1,3 +1,4 @@
+import { unitSymbols } from '@emberline/domain/units';
 import { formatKey } from '../../../lib/format';
 import { useState } from 'react';
 import { cautions } from '@emberline/contracts/cautions';
@@ -58,7 +59,7 @@ export function RuleEditor({
   const [problem, setProblem] = useState('');
   const [rowKey, unit, beyondKind] = form.watch(['row', 'unit', 'beyondKind']);
   const row = rows.find((candidate) => candidate.key === rowKey);
-  const unitWord = unit === 'count' ? '' : ` (${unit.replace('2', '²')})`;
+  const unitWord = unit === 'count' ? '' : ` (${unitSymbols[unit]})`;
 
   const number = (name: NumberName, label: string, whole = false) => (
     <OptionalNumberField
@@ -81,14 +82,25 @@ export function RuleEditor({
   return (
     <form
       noValidate
-      aria-label={isNew ? 'New rule' : `Rule ${initial.id}`}
+      aria-label={isNew ? 'New rule' : `Rule ${initial.title || initial.id}`}
       onSubmit={(event) => void onSubmit(event)}
       className="flex flex-col gap-4 rounded-md border border-ember-200 bg-ember-50/40 p-4"
     >
-      <h3 className="font-semibold">{isNew ? 'New rule' : `Change rule ${initial.id}`}</h3>
+      <h3 className="font-semibold">
+        {isNew ? 'New rule' : `Change the rule “${initial.title || initial.id}”`}
+      </h3>
       <Notice tone="caution">{cautions.limits}</Notice>
       {problem || serverError ? <Notice tone="error">{problem || serverError}</Notice> : null}
       <div className="grid gap-3 md:grid-cols-4">
+        <div className="md:col-span-3">
+          <Field
+            label="Title"
+            error={errors.title}
+            hint="What people read the rule by, e.g. “Cracks at the blade edges”"
+          >
+            {(props) => <Input {...props} {...form.register('title')} />}
+          </Field>
+        </div>
         <Field label="Rule id" error={errors.id} hint="Unique in the revision">
           {(props) => <Input {...props} {...form.register('id')} />}
         </Field>
@@ -139,7 +151,7 @@ export function RuleEditor({
               <Select {...props} {...form.register('unit')}>
                 {limitUnits.map((candidate) => (
                   <option key={candidate} value={candidate}>
-                    {candidate}
+                    {candidate === 'count' ? 'count' : unitSymbols[candidate]}
                   </option>
                 ))}
               </Select>

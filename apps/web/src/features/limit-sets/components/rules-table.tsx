@@ -1,3 +1,5 @@
+import { unitSymbols } from '@emberline/domain/units';
+import { ruleName } from '@emberline/domain/verdict-words';
 import { formatKey } from '../../../lib/format';
 import type { Rule } from '@emberline/contracts/limits';
 import { formatBeyondAction, formatInterval, formatLimit } from '../lib/rule-form';
@@ -64,7 +66,12 @@ export function RulesTable({
               className="border-b border-soot-100 align-top"
               data-testid={`rule-${rule.id}`}
             >
-              <td className="py-2 pr-3 font-mono text-xs">{rule.id}</td>
+              <td className="py-2 pr-3">
+                {ruleName(rule)}
+                <div className="font-mono text-xs text-soot-600" data-shows-ids>
+                  {rule.id}
+                </div>
+              </td>
               <td className="py-2 pr-3">
                 {rowLabels.get(rule.row) ?? rule.row}
                 <div className="text-xs text-soot-600">
@@ -74,7 +81,8 @@ export function RulesTable({
               <td className="py-2 pr-3">
                 {formatKey(rule.damage)}
                 <div className="text-xs text-soot-600">
-                  by {rule.measure}, {rule.unit}
+                  by {rule.measure}
+                  {rule.unit === 'count' ? '' : `, ${unitSymbols[rule.unit]}`}
                 </div>
               </td>
               <td className="py-2 pr-3 font-mono">
@@ -91,7 +99,7 @@ export function RulesTable({
                     type="button"
                     className="text-ember-800 hover:underline"
                     onClick={() => onEdit(rule)}
-                    aria-label={`Change rule ${rule.id}`}
+                    aria-label={`Change rule ${ruleName(rule)} (${rule.id})`}
                   >
                     Change
                   </button>
@@ -100,7 +108,7 @@ export function RulesTable({
                       type="button"
                       className="ml-3 text-red-800 hover:underline"
                       onClick={() => onRemove(rule)}
-                      aria-label={`Remove rule ${rule.id}`}
+                      aria-label={`Remove rule ${ruleName(rule)} (${rule.id})`}
                     >
                       Remove
                     </button>

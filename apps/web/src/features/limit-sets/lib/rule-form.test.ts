@@ -13,6 +13,7 @@ import {
 // An invented rule: nothing here comes from an engine manual.
 const rule: Rule = {
   id: 'hpt1-blade.crack.edges',
+  title: 'Cracks at the blade edges',
   row: 'hpt1-blade',
   zones: ['leading-edge', 'trailing-edge'],
   damage: 'crack',

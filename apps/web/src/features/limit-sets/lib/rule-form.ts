@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { unitSymbols } from '@emberline/domain/units';
+import { formatKey } from '../../../lib/format';
 import {
   beyondActionKinds,
   ruleSchema,
@@ -16,6 +18,11 @@ const optional = z.number().finite().positive({ message: 'must be above 0' }).nu
  * shared schema and the domain's consistency checks then judge.
  */
 export const ruleFormSchema = ruleSchema.omit({ repeatInterval: true, beyondAction: true }).extend({
+  title: z
+    .string()
+    .trim()
+    .min(1, { message: 'Give the rule a short title, as people will read it' })
+    .max(80, { message: 'Keep the title to 80 characters or fewer' }),
   zones: z.array(z.string()).min(1, { message: 'Pick at least one zone, or every zone' }),
   repeatCycles: optional,
   repeatHours: optional,
@@ -61,6 +68,7 @@ export function fromRule(rule: Rule): RuleForm {
 export function blankRule(row: { key: string; zones: readonly string[] }, id: string): RuleForm {
   return fromRule({
     id,
+    title: '',
     row: row.key,
     zones: [row.zones[0] ?? '*'],
     damage: 'crack',
@@ -79,19 +87,11 @@ export function blankRule(row: { key: string; zones: readonly string[] }, id: st
   });
 }
 
-const unitWords: Record<LimitUnit, string> = {
-  mm: 'mm',
-  in: 'in',
-  mm2: 'mm²',
-  in2: 'in²',
-  count: '',
-};
-
 export function formatLimit(value: number | null, unit: LimitUnit): string {
   if (value === null) return '—';
   // Six significant figures: a limit converted between units shows as transcribed, not as 0.0299999….
   const shown = Number(value.toPrecision(6));
-  return unit === 'count' ? String(shown) : `${shown} ${unitWords[unit]}`;
+  return unit === 'count' ? String(shown) : `${shown} ${unitSymbols[unit]}`;
 }
 
 export function formatInterval(interval: Interval | null): string {
@@ -115,4 +115,61 @@ export function formatBeyondAction(action: BeyondAction | null): string {
   if (!action) return '—';
   if (action.kind !== 'remove-within') return actionWords[action.kind];
   return `${actionWords[action.kind]} ${formatInterval({ cycles: action.cycles, hours: action.hours, days: null })}`;
+}
+
+/** A rule's fields as the rule form names them, for the changes a draft makes. */
+export const ruleFieldLabels: Record<keyof Rule, string> = {
+  id: 'Rule id',
+  title: 'Title',
+  row: 'Row',
+  zones: 'Zones',
+  damage: 'Damage',
+  measure: 'Measure',
+  unit: 'Unit',
+  serviceableMax: 'Serviceable up to',
+  repeatMax: 'Repeat inspection up to',
+  repeatInterval: 'Repeat within',
+  beyondAction: 'Beyond limits',
+  maxPerAirfoil: 'Most damage per airfoil',
+  maxTotalPerAirfoil: 'Most in total per airfoil',
+  maxAirfoilsPerRow: 'Most airfoils per row',
+  maxAdjacentAirfoils: 'Most adjacent airfoils',
+  notPermitted: 'Not permitted',
+  reference: 'Manual reference',
+};
+
+/**
+ * A field's value in words: limits in the rule's unit, intervals and actions as the rules table
+ * shows them, rows by their names, keys as words.
+ */
+export function ruleFieldWords(
+  field: string,
+  value: unknown,
+  unit: LimitUnit,
+  rowLabel: (key: string) => string,
+): string {
+  if (value === null || value === undefined || value === '') return 'none';
+  switch (field) {
+    case 'serviceableMax':
+    case 'repeatMax':
+      return formatLimit(value as number, unit);
+    case 'repeatInterval':
+      return formatInterval(value as Interval);
+    case 'beyondAction':
+      return formatBeyondAction(value as BeyondAction);
+    case 'row':
+      return rowLabel(String(value));
+    case 'unit':
+      return value === 'count' ? 'count' : unitSymbols[value as LimitUnit];
+    case 'notPermitted':
+      return value ? 'yes' : 'no';
+    case 'zones':
+      return (value as string[])
+        .map((zone) => (zone === '*' ? 'every zone' : formatKey(zone)))
+        .join(', ');
+    case 'damage':
+      return formatKey(String(value));
+    default:
+      return String(value);
+  }
 }

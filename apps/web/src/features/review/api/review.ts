@@ -1,7 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { SeriesEntry } from '@emberline/contracts/findings';
 import type { InspectionDetail } from '@emberline/contracts/inspections';
-import type { LimitSet } from '@emberline/contracts/limit-sets';
 import type {
   Disposition,
   DispositionInput,
@@ -37,16 +36,6 @@ export const reviewQueryOptions = (inspectionId: string) =>
 
 export function useInspectionReview(inspectionId: string) {
   return useQuery(reviewQueryOptions(inspectionId));
-}
-
-/** The limit revision a finding was judged against, for the values it was compared with. */
-export function useJudgedAgainst(limitSetId: string | null) {
-  return useQuery({
-    queryKey: ['limit-sets', 'detail', limitSetId],
-    queryFn: () => api.get<LimitSet>(`/limit-sets/${path(limitSetId ?? '')}`),
-    enabled: limitSetId !== null,
-    staleTime: Infinity,
-  });
 }
 
 /** One finding, wherever it is (an engine's page shows the trends of its open requirements). */

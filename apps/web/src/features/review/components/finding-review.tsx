@@ -1,22 +1,16 @@
 import type { Finding } from '@emberline/contracts/findings';
-import type { LimitUnit, Rule } from '@emberline/contracts/limits';
+import type { Rule } from '@emberline/contracts/limits';
 import type { Disposition } from '@emberline/contracts/review';
 import { decisionWords } from '@emberline/domain/decision-words';
-import { MM_PER_INCH } from '@emberline/domain/units';
+import { comparisonWords, ruleName } from '@emberline/domain/verdict-words';
+import { MM_PER_INCH, unitSymbols } from '@emberline/domain/units';
 import { Link } from 'react-router-dom';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
 import { formatDate, formatDateTime, formatKey } from '../../../lib/format';
 import { reasonLabels } from '../../../lib/reason-labels';
-import { useDamageSeries, useJudgedAgainst } from '../api/review';
+import { useDamageSeries } from '../api/review';
+import { useJudgedAgainst } from '../../../lib/limit-set-query';
 import { FindingTrend } from './finding-trend';
-
-const unitWords: Record<LimitUnit, string> = {
-  mm: 'mm',
-  in: 'in',
-  mm2: 'mm²',
-  in2: 'in²',
-  count: '',
-};
 
 const fixed = (value: number, digits: number) =>
   value.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
@@ -49,7 +43,7 @@ function measurementLines(finding: Finding): string[] {
 
 function ruleLimits(rule: Rule): string {
   if (rule.notPermitted) return 'not permitted: any such damage is beyond limits';
-  const unit = unitWords[rule.unit];
+  const unit = unitSymbols[rule.unit];
   const value = (limit: number | null) => (limit === null ? 'none' : `${limit} ${unit}`.trim());
   return `serviceable to ${value(rule.serviceableMax)}, repeat inspection to ${value(rule.repeatMax)}`;
 }
@@ -97,28 +91,22 @@ export function FindingReview({
       {evaluation ? (
         <div className="rounded border border-soot-200 bg-soot-50 p-3" data-testid="verdict-basis">
           <p>
-            {evaluation.ruleId ? (
+            {rule ? (
               <>
-                Rule <span className="font-mono">{evaluation.ruleId}</span>
-                {rule?.reference ? ` (${rule.reference})` : ''}
-                {rule ? `: ${ruleLimits(rule)}` : ''}.
+                {ruleName(rule)}{' '}
+                <span className="font-mono text-xs text-soot-600" data-shows-ids>
+                  {rule.id}
+                </span>
+                {rule.reference ? ` (${rule.reference})` : ''}: {ruleLimits(rule)}.
               </>
+            ) : evaluation.ruleId ? (
+              'The rule it was judged by is loading.'
             ) : (
               'No rule of the limit revision covers it.'
             )}
           </p>
-          {judgement?.value !== null && judgement?.value !== undefined ? (
-            <p>
-              Compared: {fixed(judgement.value, judgement.unit === 'in' ? 4 : 2)}{' '}
-              {unitWords[judgement.unit]}
-              {judgement.uncertainty !== null
-                ? ` + ${fixed(judgement.uncertainty, judgement.unit === 'in' ? 4 : 2)} uncertainty`
-                : ''}
-              {judgement.utilisation !== null
-                ? `, ${Math.round(judgement.utilisation * 100)} % of the limit it is judged by`
-                : ''}
-              .
-            </p>
+          {rule && judgement && judgement.value !== null && limitSet.data ? (
+            <p>Compared: {comparisonWords(judgement, rule, limitSet.data.revision)}.</p>
           ) : null}
           <p>Reasons: {evaluation.reasons.map((reason) => reasonLabels[reason]).join('; ')}.</p>
           {evaluation.indeterminate ? (

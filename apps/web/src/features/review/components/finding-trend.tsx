@@ -1,7 +1,8 @@
 import type { Finding } from '@emberline/contracts/findings';
 import { LazyTrendChart } from '../../../components/lazy-trend-chart';
 import { formatDate } from '../../../lib/format';
-import { useDamageSeries, useFinding, useJudgedAgainst } from '../api/review';
+import { useDamageSeries, useFinding } from '../api/review';
+import { useJudgedAgainst } from '../../../lib/limit-set-query';
 
 /**
  * The trend of the damage series a finding belongs to, once it has three measurements at
