@@ -36,7 +36,7 @@ test('the inspector opens an inspection, drops 20 images, browses and zooms them
   await expect(page.getByRole('heading', { name: /Inspection of VT3-D0104/ })).toBeVisible();
 
   // An expired calibration is flagged and must be acknowledged with a reason.
-  await expect(page.getByText('The probe’s calibration was due on 2020-01-01')).toBeVisible();
+  await expect(page.getByText('The probe’s calibration was due on 1 Jan 2020')).toBeVisible();
   await page
     .getByLabel('Why the inspection may go on')
     .fill('Calibration renewed, certificate DEMO-CAL-9 on file');

@@ -23,7 +23,14 @@ export const inspectionReasonLabels: Record<InspectionReason, string> = {
   other: 'Other',
 };
 
-export const inspectionStates = ['draft', 'submitted', 'dispositioned', 'released'] as const;
+/** `void`: started by mistake and voided with a reason while a draft; kept, and counts for nothing. */
+export const inspectionStates = [
+  'draft',
+  'submitted',
+  'dispositioned',
+  'released',
+  'void',
+] as const;
 export const inspectionStateSchema = z.enum(inspectionStates);
 export type InspectionState = z.infer<typeof inspectionStateSchema>;
 export const inspectionStateLabels: Record<InspectionState, string> = {
@@ -31,6 +38,7 @@ export const inspectionStateLabels: Record<InspectionState, string> = {
   submitted: 'Submitted for review',
   dispositioned: 'Dispositioned',
   released: 'Released',
+  void: 'Void',
 };
 
 const text = (what: string, max = 120) =>
@@ -63,6 +71,35 @@ export const inspectionInputSchema = z.strictObject({
 });
 export type InspectionInput = z.input<typeof inspectionInputSchema>;
 export type ParsedInspectionInput = z.output<typeof inspectionInputSchema>;
+
+/** The particulars of a draft, corrected: everything but the engine and the rows listed. */
+export const inspectionParticularsInputSchema = inspectionInputSchema.omit({
+  engineId: true,
+  rows: true,
+});
+export type InspectionParticularsInput = z.input<typeof inspectionParticularsInputSchema>;
+export type ParsedInspectionParticulars = z.output<typeof inspectionParticularsInputSchema>;
+
+/** What a new inspection starts from: the inspector's qualification and their last probe. */
+export const inspectionDefaultsSchema = z.object({
+  qualificationRef: z.string(),
+  qualificationExpiresOn: z.string(),
+  /** Where the qualification came from: the inspector's record, or their last inspection. */
+  qualificationFrom: z.enum(['record', 'last-inspection']).nullable(),
+  probe: z.string(),
+  probeCalibrationDueOn: z.string(),
+  /** The day of the inspector's last inspection the probe was taken from, if any. */
+  probeFrom: z.string().nullable(),
+});
+export type InspectionDefaults = z.infer<typeof inspectionDefaultsSchema>;
+
+export const voidInspectionInputSchema = z.strictObject({
+  reason: z
+    .string()
+    .trim()
+    .min(5, { message: 'Say why this inspection is voided (at least a few words)' })
+    .max(500),
+});
 
 export const inspectionFlagCodes = [
   'probe-calibration-expired',
@@ -174,6 +211,10 @@ export const inspectionSchema = z.object({
   returnedAt: z.string().nullable(),
   /** When it was last submitted for review. */
   submittedAt: z.string().nullable(),
+  /** Why it was voided, by whom and when (state `void`). */
+  voidReason: z.string().nullable(),
+  voidedByName: z.string().nullable(),
+  voidedAt: z.string().nullable(),
   /** The report revision of its latest release; 0 before the first. */
   releaseRevision: z.number().int(),
   /**

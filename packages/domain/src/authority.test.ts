@@ -15,7 +15,7 @@ describe('authority to sign', () => {
       refused: expect.stringMatching(/no authorisation/),
     });
     expect(authorityToSign(authorisation, 'model-a', '2027-02-01')).toEqual({
-      refused: expect.stringMatching(/expired on 2027-01-31/),
+      refused: expect.stringMatching(/expired on 31 Jan 2027/),
     });
     expect(authorityToSign(authorisation, 'model-b', '2026-12-03')).toEqual({
       refused: expect.stringMatching(/does not cover this engine model/),

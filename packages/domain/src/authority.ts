@@ -1,4 +1,5 @@
 import type { Authorisation } from '@emberline/contracts/users';
+import { dayWords } from './dates';
 
 /**
  * Whether an engineer may sign for an engine of `modelId` on `today` (DESIGN §5.5): a current
@@ -15,7 +16,7 @@ export function authorityToSign(
     };
   if (authorisation.expiresOn < today)
     return {
-      refused: `Your authorisation ${authorisation.ref} expired on ${authorisation.expiresOn}: an administrator must renew it before you sign.`,
+      refused: `Your authorisation ${authorisation.ref} expired on ${dayWords(authorisation.expiresOn)}: an administrator must renew it before you sign.`,
     };
   if (!authorisation.models.includes(modelId))
     return {

@@ -57,13 +57,13 @@ export function inspectionFlags(
   if (input.probeCalibrationDueOn < input.date) {
     flags.push({
       code: 'probe-calibration-expired',
-      message: `The probe’s calibration was due on ${input.probeCalibrationDueOn}, before the inspection on ${input.date}.`,
+      message: `The probe’s calibration was due on ${dayWords(input.probeCalibrationDueOn)}, before the inspection on ${dayWords(input.date)}.`,
     });
   }
   if (input.qualificationExpiresOn < input.date) {
     flags.push({
       code: 'qualification-expired',
-      message: `The inspector’s qualification expired on ${input.qualificationExpiresOn}, before the inspection on ${input.date}.`,
+      message: `The inspector’s qualification expired on ${dayWords(input.qualificationExpiresOn)}, before the inspection on ${dayWords(input.date)}.`,
     });
   }
   const rates = dailyUtilization(records);

@@ -283,7 +283,7 @@ export const inspections = sqliteTable(
     probe: text().notNull(),
     probeCalibrationDueOn: text().notNull(),
     rows: text({ mode: 'json' }).notNull().$type<string[]>(),
-    state: text({ enum: ['draft', 'submitted', 'dispositioned', 'released'] }).notNull(),
+    state: text({ enum: ['draft', 'submitted', 'dispositioned', 'released', 'void'] }).notNull(),
     flags: text({ mode: 'json' }).notNull().$type<StoredFlag[]>(),
     /** Why an engineer last sent it back to draft, who and when; kept until it is submitted again. */
     returnedReason: text(),
@@ -296,6 +296,10 @@ export const inspections = sqliteTable(
     outcomeSignatureId: text(),
     releaseSignatureId: text(),
     releaseRevision: integer().notNull().default(0),
+    /** Why a draft started by mistake was voided, by whom and when (state `void`). */
+    voidReason: text(),
+    voidedBy: text().references(() => users.id),
+    voidedAt: integer({ mode: 'timestamp_ms' }),
     createdBy: text()
       .notNull()
       .references(() => users.id),

@@ -1,5 +1,6 @@
 import type { BeyondAction, Category, Interval } from '@emberline/contracts/limits';
 import { decisionSchema } from '@emberline/contracts/review';
+import { dayWords } from '@emberline/domain/dates';
 import { actionWords, decisionWords, intervalWords } from '@emberline/domain/decision-words';
 
 const categoryNames: Record<Category, string> = {
@@ -52,6 +53,37 @@ function findingPlace(values: Values, labels: HistoryLabels): string {
   return `${labels.rowLabel(String(values.row))} ${String(values.position)}, ${words(values.zone)}, ${words(values.damage)}`;
 }
 
+/** The particulars of an inspection people read, with how the screens name them. */
+const particularNames: Record<string, string> = {
+  date: 'date',
+  reason: 'reason',
+  reasonDetail: 'reason in words',
+  csn: 'CSN',
+  tsn: 'TSN',
+  inspectorName: 'inspector',
+  qualificationRef: 'qualification',
+  qualificationExpiresOn: 'qualification valid until',
+  probe: 'probe',
+  probeCalibrationDueOn: 'probe calibration due',
+};
+
+function particularValue(key: string, value: unknown): string {
+  if (value === null || value === undefined || value === '') return 'none';
+  if (/^\d{4}-\d{2}-\d{2}$/.test(String(value))) return dayWords(String(value));
+  if (key === 'reason') return words(value);
+  if (typeof value === 'number') return value.toLocaleString('en-GB');
+  return String(value);
+}
+
+function particularChanges(before: Values, after: Values): string[] {
+  if (!before || !after) return [];
+  return Object.entries(particularNames).flatMap(([key, name]) =>
+    key in after
+      ? [`${name}: ${particularValue(key, before[key])} → ${particularValue(key, after[key])}`]
+      : [],
+  );
+}
+
 function decisionText(value: unknown): string {
   const parsed = decisionSchema.safeParse(value);
   return parsed.success ? decisionWords(parsed.data) : 'a decision';
@@ -78,6 +110,16 @@ export function historyLine(
       };
     case 'inspection.submitted':
       return { summary: 'Submitted it for review', details: [] };
+    case 'inspection.corrected':
+      return {
+        summary: 'Corrected its particulars (flags computed again, to be acknowledged anew)',
+        details: particularChanges(before, after),
+      };
+    case 'inspection.voided':
+      return {
+        summary: 'Voided it: it counts for nothing',
+        details: after?.reason ? [String(after.reason)] : [],
+      };
     case 'inspection.returned-to-draft': {
       const withdrawn = Number(after?.withdrawnDispositions ?? 0);
       return {

@@ -214,7 +214,7 @@ describe('utilization', () => {
     });
     expect(overlap.status).toBe(422);
     expect(overlap.body.error.message).toMatch(
-      /overlaps the one recorded from 2026-05-01 to 2026-05-31/,
+      /overlaps the one recorded from 1 May 2026 to 31 May 2026/,
     );
     const future = await as('planner').post('/engines/engine-d0101/utilization', {
       periodStart: '2026-06-01',
@@ -285,12 +285,12 @@ describe('utilization CSV import', () => {
       {
         line: 6,
         text: '2025-04-10,2025-04-12,5,8',
-        reason: 'the period overlaps the one recorded from 2025-04-01 to 2025-04-30',
+        reason: 'the period overlaps the one recorded from 1 Apr 2025 to 30 Apr 2025',
       },
       {
         line: 7,
         text: '2026-05-20,2026-05-25,20,30',
-        reason: 'the period overlaps the one recorded from 2026-05-01 to 2026-05-31',
+        reason: 'the period overlaps the one recorded from 1 May 2026 to 31 May 2026',
       },
     ]);
     expect((await as('planner').get('/engines/engine-d0104/utilization')).body.items).toHaveLength(

@@ -54,7 +54,7 @@ export function createExportsService(ctx: AppContext) {
         rowLabels.set(engine.modelId, labels);
       }
       const decisions = new Map(
-        inspection.state === 'draft'
+        inspection.state === 'draft' || inspection.state === 'void'
           ? []
           : review
               .review(principal, inspection.id)
@@ -103,9 +103,9 @@ export function createExportsService(ctx: AppContext) {
     };
   }
 
-  /** Inspections that hold records: every one but drafts (owners see released ones only). */
+  /** Inspections that hold records: every one but drafts and void ones (owners see released ones only). */
   const recorded = (list: readonly Inspection[]) =>
-    list.filter((inspection) => inspection.state !== 'draft');
+    list.filter((inspection) => inspection.state !== 'draft' && inspection.state !== 'void');
 
   return {
     async inspection(principal: Principal, id: string, format: ExportFormat): Promise<ExportFile> {
@@ -119,7 +119,8 @@ export function createExportsService(ctx: AppContext) {
         inspection: detail,
         findings: findings.list(principal, id),
         coverage: coverage.coverage(principal, id),
-        review: detail.state === 'draft' ? null : review.review(principal, id),
+        review:
+          detail.state === 'draft' || detail.state === 'void' ? null : review.review(principal, id),
       };
       return {
         contentType: 'application/json; charset=utf-8',

@@ -135,7 +135,7 @@ export interface CurrentInspection {
 /** The inspections whose findings are current, of one model's engines (`e` engines, `i` inspections). */
 const currentInspectionsOf = (modelId: string) => sql`
   FROM engines e JOIN inspections i ON i.engine_id = e.id
-  WHERE e.model_id = ${modelId} AND (i.state <> 'released' OR i.id = (
+  WHERE e.model_id = ${modelId} AND (i.state NOT IN ('released', 'void') OR i.id = (
     SELECT r.id FROM inspections r WHERE r.engine_id = e.id AND r.state = 'released'
     ORDER BY r.date DESC, r.created_at DESC LIMIT 1))`;
 

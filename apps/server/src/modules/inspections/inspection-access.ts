@@ -21,6 +21,10 @@ export function visibleInspection(db: DbOrTx, principal: Principal, id: string):
 /** An inspection whose images and findings may still change: a draft. */
 export function draftInspection(db: DbOrTx, principal: Principal, id: string): InspectionRow {
   const inspection = visibleInspection(db, principal, id);
+  if (inspection.state === 'void')
+    throw AppError.conflict(
+      `This inspection was voided (${inspection.voidReason ?? 'no reason kept'}): it takes no more changes.`,
+    );
   if (inspection.state !== 'draft') {
     throw AppError.conflict(
       'This inspection has been submitted for review and is locked; an engineer can send it back to draft.',

@@ -1,6 +1,9 @@
-import { and, count, desc, eq, gt, sql, type SQL } from 'drizzle-orm';
+import { and, count, desc, eq, gt, ne, sql, type SQL } from 'drizzle-orm';
 import type { DbOrTx } from '../../db/client';
+import { alias } from 'drizzle-orm/sqlite-core';
 import { engines, images, inspections, users } from '../../db/schema';
+
+const voiders = alias(users, 'voiders');
 
 export type InspectionRecord = typeof inspections.$inferSelect;
 export type InspectionRow = InspectionRecord & {
@@ -9,6 +12,7 @@ export type InspectionRow = InspectionRecord & {
   modelId: string;
   imageCount: number;
   returnedByName: string | null;
+  voidedByName: string | null;
   /** The revision in force for the engine's model now. */
   inForceLimitSetId: string | null;
 };
@@ -27,6 +31,7 @@ function selectInspections(db: DbOrTx, where: SQL | undefined) {
       modelId: engines.modelId,
       imageCount: counts.n,
       returnedByName: users.name,
+      voidedByName: voiders.name,
       inForceLimitSetId: sql<
         string | null
       >`(SELECT ls.id FROM limit_sets ls WHERE ls.model_id = ${engines.modelId} AND ls.status = 'published')`,
@@ -35,6 +40,7 @@ function selectInspections(db: DbOrTx, where: SQL | undefined) {
     .innerJoin(engines, eq(engines.id, inspections.engineId))
     .leftJoin(counts, eq(counts.inspectionId, inspections.id))
     .leftJoin(users, eq(users.id, inspections.returnedBy))
+    .leftJoin(voiders, eq(voiders.id, inspections.voidedBy))
     .where(where)
     .orderBy(desc(inspections.date), desc(inspections.createdAt))
     .all()
@@ -45,6 +51,7 @@ function selectInspections(db: DbOrTx, where: SQL | undefined) {
       modelId: row.modelId,
       imageCount: row.imageCount ?? 0,
       returnedByName: row.returnedByName,
+      voidedByName: row.voidedByName,
       inForceLimitSetId: row.inForceLimitSetId,
     }));
 }
@@ -84,6 +91,9 @@ export function setInspectionState(
       | 'outcomeSignatureId'
       | 'releaseSignatureId'
       | 'releaseRevision'
+      | 'voidReason'
+      | 'voidedBy'
+      | 'voidedAt'
     >
   > = {},
 ): void {
@@ -99,6 +109,39 @@ export function updateInspectionFlags(
   flags: InspectionRecord['flags'],
 ): void {
   db.update(inspections).set({ flags }).where(eq(inspections.id, id)).run();
+}
+
+/** A draft's particulars, corrected, with its flags computed again. */
+export function updateInspectionParticulars(
+  db: DbOrTx,
+  id: string,
+  particulars: Pick<
+    InspectionRecord,
+    | 'date'
+    | 'reason'
+    | 'reasonDetail'
+    | 'csn'
+    | 'tsn'
+    | 'inspectorName'
+    | 'qualificationRef'
+    | 'qualificationExpiresOn'
+    | 'probe'
+    | 'probeCalibrationDueOn'
+    | 'flags'
+  >,
+): void {
+  db.update(inspections).set(particulars).where(eq(inspections.id, id)).run();
+}
+
+/** The latest inspection a person opened (void ones left out): where their probe is taken from. */
+export function lastInspectionBy(db: DbOrTx, userId: string): InspectionRecord | undefined {
+  return db
+    .select()
+    .from(inspections)
+    .where(and(eq(inspections.createdBy, userId), ne(inspections.state, 'void')))
+    .orderBy(desc(inspections.date), desc(inspections.createdAt))
+    .limit(1)
+    .get();
 }
 
 /**

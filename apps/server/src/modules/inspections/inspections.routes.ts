@@ -1,11 +1,14 @@
 import { Router } from 'express';
 import {
   acknowledgeFlagInputSchema,
+  inspectionDefaultsSchema,
   inspectionDetailSchema,
   inspectionFlagCodes,
+  inspectionParticularsInputSchema,
   inspectionInputSchema,
   inspectionListQuerySchema,
   inspectionListResponseSchema,
+  voidInspectionInputSchema,
 } from '@emberline/contracts/inspections';
 import { z } from 'zod';
 import { idParamsSchema } from '@emberline/contracts/users';
@@ -43,6 +46,61 @@ export function inspectionsRoutes(ctx: AppContext): Router {
     },
     (req, res) => {
       res.status(201).json(inspections.create(principalOf(res), res.locals.body, requestMeta(req)));
+    },
+  );
+
+  route(
+    router,
+    'GET /inspections/defaults',
+    {
+      summary: 'What a new inspection starts from: your qualification and your last probe',
+      response: inspectionDefaultsSchema,
+    },
+    (_req, res) => {
+      res.json(inspections.defaults(principalOf(res)));
+    },
+  );
+
+  route(
+    router,
+    'PATCH /inspections/:id',
+    {
+      summary:
+        'Correct the particulars of a draft; its flags are computed again and acknowledged anew',
+      params: idParamsSchema,
+      body: inspectionParticularsInputSchema,
+      response: inspectionDetailSchema,
+    },
+    (req, res) => {
+      res.json(
+        inspections.correct(
+          principalOf(res),
+          res.locals.params.id,
+          res.locals.body,
+          requestMeta(req),
+        ),
+      );
+    },
+  );
+
+  route(
+    router,
+    'POST /inspections/:id/void',
+    {
+      summary: 'Void a draft started by mistake, with the reason (kept, never deleted)',
+      params: idParamsSchema,
+      body: voidInspectionInputSchema,
+      response: inspectionDetailSchema,
+    },
+    (req, res) => {
+      res.json(
+        inspections.void(
+          principalOf(res),
+          res.locals.params.id,
+          res.locals.body.reason,
+          requestMeta(req),
+        ),
+      );
     },
   );
 

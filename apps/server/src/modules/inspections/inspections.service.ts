@@ -1,8 +1,10 @@
 import type {
   Inspection,
+  InspectionDefaults,
   InspectionDetail,
   InspectionFlag,
   ParsedInspectionInput,
+  ParsedInspectionParticulars,
 } from '@emberline/contracts/inspections';
 import { inspectionFlags } from '@emberline/domain/inspection-flags';
 import type { AppContext, RequestMeta } from '../../context';
@@ -14,7 +16,8 @@ import { newId } from '../../lib/ids';
 import { appendAudit } from '../audit/audit.repository';
 import { listModelRows } from '../engine-models/engine-models.repository';
 import { createEnginesService } from '../engines/engines.service';
-import { listFindings } from '../findings/findings.repository';
+import { listFindings, updateFinding } from '../findings/findings.repository';
+import { findUserById } from '../users/users.repository';
 import { listImages } from '../images/images.repository';
 import { publishedLimitSet } from '../limit-sets/limit-sets.repository';
 import { toImage } from '../images/image-view';
@@ -24,9 +27,11 @@ import { draftInspection, visibleInspection } from './inspection-access';
 import {
   findInspection,
   insertInspection,
+  lastInspectionBy,
   listInspections,
   setInspectionState,
   updateInspectionFlags,
+  updateInspectionParticulars,
   type InspectionRow,
 } from './inspections.repository';
 
@@ -54,6 +59,9 @@ export function toInspection(row: InspectionRow): Inspection {
     returnedByName: row.returnedReason ? row.returnedByName : null,
     returnedAt: row.returnedReason && row.returnedAt ? row.returnedAt.toISOString() : null,
     submittedAt: row.submittedAt?.toISOString() ?? null,
+    voidReason: row.voidReason,
+    voidedByName: row.voidReason ? row.voidedByName : null,
+    voidedAt: row.voidedAt?.toISOString() ?? null,
     releaseRevision: row.releaseRevision,
     newerRevisionInForce:
       row.state !== 'draft' &&
@@ -191,6 +199,115 @@ export function createInspectionsService(ctx: AppContext) {
         });
       });
       return this.detail(principal, findInspection(db, id)!.id);
+    },
+
+    /**
+     * What a new inspection starts from for this inspector: the qualification on their record
+     * (else the one of their last inspection) and the probe of their last inspection.
+     */
+    defaults(principal: Principal): InspectionDefaults {
+      const record = findUserById(db, principal.user.id)?.qualification ?? null;
+      const last = lastInspectionBy(db, principal.user.id);
+      const qualification =
+        record ??
+        (last ? { ref: last.qualificationRef, expiresOn: last.qualificationExpiresOn } : null);
+      return {
+        qualificationRef: qualification?.ref ?? '',
+        qualificationExpiresOn: qualification?.expiresOn ?? '',
+        qualificationFrom: record ? 'record' : last ? 'last-inspection' : null,
+        probe: last?.probe ?? '',
+        probeCalibrationDueOn: last?.probeCalibrationDueOn ?? '',
+        probeFrom: last?.date ?? null,
+      };
+    },
+
+    /**
+     * Corrects the particulars of a draft. The flags are computed again from the corrected
+     * figures, and every acknowledgement is reset: what was accepted was about the old figures.
+     */
+    correct(
+      principal: Principal,
+      id: string,
+      input: ParsedInspectionParticulars,
+      meta: RequestMeta,
+    ): InspectionDetail {
+      const inspection = draftInspection(db, principal, id);
+      const engine = engines.visibleEngine(principal, inspection.engineId);
+      if (input.date > ctx.now().toISOString().slice(0, 10)) {
+        throw AppError.unprocessable('An inspection cannot be dated in the future', {
+          fields: { date: ['Give the day the engine was inspected'] },
+          form: [],
+        });
+      }
+      const flags = inspectionFlags(input, engine, listUtilization(db, engine.id)).map((flag) => ({
+        ...flag,
+        acknowledgedAt: null,
+        acknowledgedBy: null,
+        note: null,
+      }));
+      const fields = Object.keys(input) as (keyof ParsedInspectionParticulars)[];
+      const changed = fields.filter((field) => inspection[field] !== input[field]);
+      if (changed.length === 0) return this.detail(principal, id);
+      const now = ctx.now();
+      inTransaction(db, (tx) => {
+        updateInspectionParticulars(tx, id, { ...input, flags });
+        appendAudit(tx, now, {
+          actorUserId: principal.user.id,
+          action: 'inspection.corrected',
+          entityType: 'inspection',
+          entityId: id,
+          before: {
+            ...Object.fromEntries(changed.map((field) => [field, inspection[field]])),
+            flags: inspection.flags.map((flag) => flag.code),
+          },
+          after: {
+            ...Object.fromEntries(changed.map((field) => [field, input[field]])),
+            flags: flags.map((flag) => flag.code),
+          },
+          requestId: meta.requestId,
+          ip: meta.ip,
+        });
+      });
+      return this.detail(principal, id);
+    },
+
+    /**
+     * Voids a draft started by mistake, with the reason: it is kept (never deleted), its recorded
+     * findings are voided with it, and it counts for nothing in due dates, trends or the impact
+     * of a limit revision.
+     */
+    void(principal: Principal, id: string, reason: string, meta: RequestMeta): InspectionDetail {
+      const inspection = draftInspection(db, principal, id);
+      const now = ctx.now();
+      inTransaction(db, (tx) => {
+        const recorded = listFindings(tx, id).filter((finding) => finding.status === 'recorded');
+        for (const finding of recorded)
+          updateFinding(tx, finding.id, {
+            status: 'void',
+            voidReason: `The inspection was voided: ${reason}`,
+            voidedAt: now,
+            voidedBy: principal.user.id,
+            evaluation: null,
+            category: null,
+            updatedAt: now,
+          });
+        setInspectionState(tx, id, 'void', {
+          voidReason: reason,
+          voidedBy: principal.user.id,
+          voidedAt: now,
+        });
+        appendAudit(tx, now, {
+          actorUserId: principal.user.id,
+          action: 'inspection.voided',
+          entityType: 'inspection',
+          entityId: id,
+          before: { state: inspection.state },
+          after: { state: 'void', reason, findingsVoided: recorded.length },
+          requestId: meta.requestId,
+          ip: meta.ip,
+        });
+      });
+      return this.detail(principal, id);
     },
 
     /** Sends a draft for review; every flag must be acknowledged first. Its images lock. */

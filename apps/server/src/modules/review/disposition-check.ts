@@ -1,3 +1,4 @@
+import { dayWords } from '@emberline/domain/dates';
 import type { DbOrTx } from '../../db/client';
 import { canonicalSha256 } from '../../lib/canonical';
 import { findFinding } from '../findings/findings.repository';
@@ -30,7 +31,7 @@ export function checkSignedDispositions(
     const finding = findFinding(db, disposition.findingId);
     const inspection = finding && findInspection(db, finding.inspectionId);
     const label = inspection
-      ? `The disposition of F${finding.number} of the inspection of ${inspection.engineSerialNumber} on ${inspection.date}`
+      ? `The disposition of F${finding.number} of the inspection of ${inspection.engineSerialNumber} on ${dayWords(inspection.date)}`
       : `Disposition ${disposition.id}`;
     const signature = signatures.get(disposition.signatureId);
     if (!finding || !signature) {

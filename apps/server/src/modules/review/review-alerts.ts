@@ -1,3 +1,4 @@
+import { dayWords } from '@emberline/domain/dates';
 import type { BeyondAction, FindingEvaluation } from '@emberline/contracts/limits';
 import { permissionGrants } from '@emberline/contracts/permissions';
 import type { AppContext } from '../../context';
@@ -46,7 +47,7 @@ export function alertBeyondLimits(
     record: {
       type: 'inspection',
       id: inspection.id,
-      label: `Inspection of ${inspection.engineSerialNumber} on ${inspection.date}`,
+      label: `Inspection of ${inspection.engineSerialNumber} on ${dayWords(inspection.date)}`,
     },
   });
 }
@@ -78,7 +79,7 @@ export function alertRemovalOrdered(
       record: {
         type: 'inspection',
         id: inspection.id,
-        label: `Inspection of ${inspection.engineSerialNumber} on ${inspection.date}`,
+        label: `Inspection of ${inspection.engineSerialNumber} on ${dayWords(inspection.date)}`,
       },
     });
   const planners = listActiveHomeUsers(tx, permissionGrants['plan:inspection']);
@@ -96,7 +97,7 @@ export function alertRemovalOrdered(
     record: {
       type: 'inspection',
       id: inspection.id,
-      label: `Inspection of ${inspection.engineSerialNumber} on ${inspection.date}`,
+      label: `Inspection of ${inspection.engineSerialNumber} on ${dayWords(inspection.date)}`,
     },
   });
 }

@@ -1,3 +1,4 @@
+import { dayWords } from '@emberline/domain/dates';
 import { cautions } from '@emberline/contracts/cautions';
 import type { BeyondAction } from '@emberline/contracts/limits';
 import { actionWords } from '@emberline/domain/decision-words';
@@ -21,7 +22,7 @@ export function beyondLimitsAlertEmail(input: {
       `F${finding.number}, ${finding.where}: beyond limits${finding.action ? `, ${actionWords(finding.action)}` : ''}.`,
   );
   const lines = [
-    `${input.submittedBy} submitted the inspection of engine ${input.engineSerialNumber} of ${input.inspectionDate} for review. It holds ${input.findings.length === 1 ? 'a finding' : `${input.findings.length} findings`} beyond limits:`,
+    `${input.submittedBy} submitted the inspection of engine ${input.engineSerialNumber} of ${dayWords(input.inspectionDate)} for review. It holds ${input.findings.length === 1 ? 'a finding' : `${input.findings.length} findings`} beyond limits:`,
     ...findingLines,
     'Until an authorised engineer dispositions it, the fleet shows this engine as awaiting disposition, beyond limits.',
   ];
@@ -46,7 +47,7 @@ export function removalOrderedEmail(input: {
   link: string;
 }): MailContent {
   const lines = [
-    `${input.signedBy} signed the outcome of the inspection of engine ${input.engineSerialNumber} of ${input.inspectionDate}. It calls for the engine's removal:`,
+    `${input.signedBy} signed the outcome of the inspection of engine ${input.engineSerialNumber} of ${dayWords(input.inspectionDate)}. It calls for the engine's removal:`,
     ...input.removals.map((action) => `${actionWords(action).replace(/^r/, 'R')}.`),
     'Plan the removal with the operator; the planning board shows it.',
   ];

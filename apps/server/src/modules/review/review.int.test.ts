@@ -582,7 +582,7 @@ describe('engineering review', () => {
     expect(verification.body.problems).toEqual([
       expect.objectContaining({
         message: expect.stringMatching(
-          /^The disposition of F2 of the inspection of VT3-D0101 on 2026-05-20: the finding, its verdict or its limit revision changed after signature \d+ was given\.$/,
+          /^The disposition of F2 of the inspection of VT3-D0101 on 20 May 2026: the finding, its verdict or its limit revision changed after signature \d+ was given\.$/,
         ),
       }),
     ]);

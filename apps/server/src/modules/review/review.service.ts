@@ -275,7 +275,12 @@ export function createReviewService(
   }
 
   function reviewableInspection(principal: Principal, id: string): InspectionRow {
-    return visibleInspection(db, principal, id);
+    const inspection = visibleInspection(db, principal, id);
+    if (inspection.state === 'void')
+      throw AppError.conflict(
+        'This inspection was voided: it counts for nothing and takes no review.',
+      );
+    return inspection;
   }
 
   return {
@@ -781,7 +786,7 @@ export function createReviewService(
           record: {
             type: 'report',
             id: reportId,
-            label: `Report revision ${revision}, inspection of ${inspection.engineSerialNumber} on ${inspection.date}`,
+            label: `Report revision ${revision}, inspection of ${inspection.engineSerialNumber} on ${dayWords(inspection.date)}`,
           },
         });
         setInspectionState(tx, id, 'released', {

@@ -42,15 +42,16 @@ export function refusal(
   taken: readonly Period[],
   today: string,
 ): string | null {
-  if (record.periodEnd > today) return `the period ends in the future (${record.periodEnd})`;
+  if (record.periodEnd > today)
+    return `the period ends in the future (${dayWords(record.periodEnd)})`;
   const days = daysBetween(record.periodStart, record.periodEnd) + 1;
   if (record.hours > 24 * days)
     return `${record.hours} hours is more than 24 hours a day over ${days} day${days === 1 ? '' : 's'}`;
   const clash = taken.find((other) => periodsOverlap(other, record));
   if (clash)
-    return `the period overlaps the one recorded from ${clash.periodStart} to ${clash.periodEnd}`;
+    return `the period overlaps the one recorded from ${dayWords(clash.periodStart)} to ${dayWords(clash.periodEnd)}`;
   if (record.periodStart <= engine.tsnCsnAsOf && record.periodEnd > engine.tsnCsnAsOf) {
-    return `the period straddles ${engine.tsnCsnAsOf}, the date TSN and CSN were given: split it at that date`;
+    return `the period straddles ${dayWords(engine.tsnCsnAsOf)}, the date TSN and CSN were given: split it at that date`;
   }
   return null;
 }

@@ -13,6 +13,10 @@ import { Annotator } from '../../features/findings/components/annotator';
 import { FindingsPanel } from '../../features/findings/components/findings-panel';
 import { OutcomeSummary } from '../../features/findings/components/outcome-summary';
 import { useInspection } from '../../features/inspections/api/inspections';
+import {
+  DraftParticulars,
+  VoidNotice,
+} from '../../features/inspections/components/draft-particulars';
 import { FlagsPanel } from '../../features/inspections/components/flags-panel';
 import { ImageDrop } from '../../features/inspections/components/image-drop';
 import { ImageStrip } from '../../features/inspections/components/image-strip';
@@ -103,26 +107,32 @@ export function InspectionRoute() {
             </div>
           ))}
         </dl>
+        {editable && engine.data && model.data ? (
+          <DraftParticulars inspection={data} engine={engine.data} rows={model.data.rows} />
+        ) : null}
       </Panel>
-      <Panel>
-        <h2 className="mb-3 text-lg font-semibold">Flags</h2>
-        <FlagsPanel inspection={data} canAcknowledge={editable} />
-        <div className="mt-4 border-t border-soot-200 pt-4">
-          <ReviewActions
-            inspection={data}
-            canSubmit={can(user.role, 'create:inspection')}
-            canReview={can(user.role, 'review:inspection')}
-            coverageGaps={(coverage.data?.outcome.coverageGaps ?? []).map(rowLabel)}
-            findingCount={
-              findings.data?.items.filter((item) => item.status === 'recorded').length ?? 0
-            }
-            verdicts={(findings.data?.items ?? [])
-              .filter((item) => item.status === 'recorded')
-              .map((item) => item.evaluation?.category ?? null)}
-          />
-        </div>
-      </Panel>
-      {data.state !== 'draft' ? (
+      {data.state === 'void' ? <VoidNotice inspection={data} /> : null}
+      {data.state === 'void' ? null : (
+        <Panel>
+          <h2 className="mb-3 text-lg font-semibold">Flags</h2>
+          <FlagsPanel inspection={data} canAcknowledge={editable} />
+          <div className="mt-4 border-t border-soot-200 pt-4">
+            <ReviewActions
+              inspection={data}
+              canSubmit={can(user.role, 'create:inspection')}
+              canReview={can(user.role, 'review:inspection')}
+              coverageGaps={(coverage.data?.outcome.coverageGaps ?? []).map(rowLabel)}
+              findingCount={
+                findings.data?.items.filter((item) => item.status === 'recorded').length ?? 0
+              }
+              verdicts={(findings.data?.items ?? [])
+                .filter((item) => item.status === 'recorded')
+                .map((item) => item.evaluation?.category ?? null)}
+            />
+          </div>
+        </Panel>
+      )}
+      {data.state !== 'draft' && data.state !== 'void' ? (
         <Panel className="flex flex-col gap-3">
           <h2 className="text-lg font-semibold">Decisions</h2>
           <DecisionsSummary inspectionId={data.id} />
@@ -175,7 +185,7 @@ export function InspectionRoute() {
             formats={['csv', 'xlsx', 'json']}
           />
         </div>
-        {findings.data ? (
+        {data.state === 'void' ? null : findings.data ? (
           <OutcomeSummary outcome={findings.data.outcome} rowLabel={rowLabel} />
         ) : (
           <LoadingLine />

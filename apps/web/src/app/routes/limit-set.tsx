@@ -26,7 +26,7 @@ import {
   InventedLabel,
   LimitSetStatusBadge,
 } from '../../features/limit-sets/components/limit-set-status';
-import { formatDateTime } from '../../lib/format';
+import { formatDate, formatDateTime } from '../../lib/format';
 import { PublishForm } from '../../features/limit-sets/components/publish-form';
 import { DraftChanges } from '../../features/limit-sets/components/draft-changes';
 import { RuleEditor } from '../../features/limit-sets/components/rule-editor';
@@ -143,7 +143,9 @@ function LimitSetPage({ id }: { id: string }) {
           </div>
           <div>
             <dt className="text-xs uppercase tracking-wide text-soot-600">Effective</dt>
-            <dd className="mt-1">{data.effectiveDate ?? 'not given'}</dd>
+            <dd className="mt-1">
+              {data.effectiveDate ? formatDate(data.effectiveDate) : 'not given'}
+            </dd>
           </div>
           <div>
             <dt className="text-xs uppercase tracking-wide text-soot-600">Published</dt>

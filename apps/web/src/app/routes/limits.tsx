@@ -1,3 +1,4 @@
+import { formatDate } from '../../lib/format';
 import { useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { cautions } from '@emberline/contracts/cautions';
@@ -76,7 +77,9 @@ function ModelRevisions({ model, canEdit }: { model: EngineModelSummary; canEdit
                 <td className="py-2 pr-4">
                   {set.manualReference}
                   {set.effectiveDate ? (
-                    <div className="text-xs text-soot-600">effective {set.effectiveDate}</div>
+                    <div className="text-xs text-soot-600">
+                      effective {formatDate(set.effectiveDate)}
+                    </div>
                   ) : null}
                 </td>
                 <td className="py-2 pr-4 font-mono">{set.ruleCount}</td>

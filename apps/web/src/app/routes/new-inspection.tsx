@@ -5,6 +5,7 @@ import { RequirePermission } from '../../features/auth/components/require-permis
 import { useSignedInUser } from '../../features/auth/hooks/use-signed-in-user';
 import { useEngineModel } from '../../features/engine-models/api/engine-models';
 import { useEngine } from '../../features/fleet/api/engines';
+import { useInspectionDefaults } from '../../features/inspections/api/inspections';
 import { InspectionForm } from '../../features/inspections/components/inspection-form';
 
 export function NewInspectionRoute() {
@@ -12,6 +13,7 @@ export function NewInspectionRoute() {
   const user = useSignedInUser();
   const engine = useEngine(engineId);
   const model = useEngineModel(engine.data?.modelId ?? null);
+  const defaults = useInspectionDefaults();
   const navigate = useNavigate();
   return (
     <RequirePermission permission="create:inspection">
@@ -26,13 +28,14 @@ export function NewInspectionRoute() {
       <Panel className="max-w-4xl">
         {engine.error ? (
           <Notice tone="error">{engine.error.message}</Notice>
-        ) : !engine.data || !model.data ? (
+        ) : !engine.data || !model.data || defaults.isPending ? (
           <LoadingLine />
         ) : (
           <InspectionForm
             engine={engine.data}
             rows={model.data.rows}
             inspectorName={user.name}
+            defaults={defaults.data}
             onCreated={(inspection) => navigate(`/inspections/${inspection.id}`)}
           />
         )}

@@ -1,4 +1,12 @@
-import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes } from 'react';
+import {
+  useId,
+  useState,
+  type InputHTMLAttributes,
+  type Ref,
+  type ReactNode,
+  type SelectHTMLAttributes,
+} from 'react';
+import { formatDate } from '../../lib/format';
 import type { FieldError, UseFormRegisterReturn } from 'react-hook-form';
 
 interface FieldProps {
@@ -43,6 +51,42 @@ const control =
 
 export function Input(props: InputHTMLAttributes<HTMLInputElement>) {
   return <input {...props} className={`${control} ${props.className ?? ''}`} />;
+}
+
+/**
+ * A day field. The browser shows the day in the order of its own settings (2/12/2026 or
+ * 12/2/2026); beneath it the product says the day it took in its one format ("12 Feb 2026"), so
+ * the hint always matches what the field holds.
+ */
+export function DateInput({
+  ref,
+  ...props
+}: InputHTMLAttributes<HTMLInputElement> & { ref?: Ref<HTMLInputElement> }) {
+  const [day, setDay] = useState('');
+  const echoId = useId();
+  return (
+    <>
+      <input
+        {...props}
+        className={`${control} ${props.className ?? ''}`}
+        type="date"
+        aria-describedby={[props['aria-describedby'], echoId].filter(Boolean).join(' ')}
+        ref={(node: HTMLInputElement | null) => {
+          if (typeof ref === 'function') ref(node);
+          else if (ref) ref.current = node;
+          // The form fills the field through its ref: read the day it was given.
+          if (node && node.value !== day) setDay(node.value);
+        }}
+        onChange={(event) => {
+          setDay(event.target.value);
+          props.onChange?.(event);
+        }}
+      />
+      <span id={echoId} className="text-xs text-soot-600" data-testid="date-echo">
+        {day ? `Reads ${formatDate(day)}` : 'No day chosen yet'}
+      </span>
+    </>
+  );
 }
 
 export function Select(props: SelectHTMLAttributes<HTMLSelectElement>) {

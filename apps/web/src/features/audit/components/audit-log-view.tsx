@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Button } from '../../../components/ui/button';
-import { Input, Select } from '../../../components/ui/field';
+import { DateInput, Input, Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { LoadingLine } from '../../../components/ui/page';
 import { formatDateTime } from '../../../lib/format';
@@ -70,19 +70,14 @@ function AuditFiltersForm({
       </label>
       <label className={field}>
         From
-        <Input
-          type="date"
+        <DateInput
           value={filters.from ?? ''}
           onChange={(event) => set('from', event.target.value)}
         />
       </label>
       <label className={field}>
         To
-        <Input
-          type="date"
-          value={filters.to ?? ''}
-          onChange={(event) => set('to', event.target.value)}
-        />
+        <DateInput value={filters.to ?? ''} onChange={(event) => set('to', event.target.value)} />
       </label>
     </div>
   );

@@ -4,7 +4,7 @@ import { engineInputSchema, type EngineDetail } from '@emberline/contracts/fleet
 import type { EngineModelSummary } from '@emberline/contracts/fleet';
 import type { Organisation } from '@emberline/contracts/organisations';
 import { Button } from '../../../components/ui/button';
-import { Field, Input, NumberInput, Select } from '../../../components/ui/field';
+import { DateInput, Field, Input, NumberInput, Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { EngineStatusOptions } from './status-badge';
 import { applyServerErrors, emptyToNull, useZodForm } from '../../../lib/form';
@@ -128,7 +128,7 @@ export function EngineForm({
         error={errors.tsnCsnAsOf}
         hint="Utilization recorded after this date adds to them."
       >
-        {(props) => <Input {...props} type="date" {...form.register('tsnCsnAsOf')} />}
+        {(props) => <DateInput {...props} {...form.register('tsnCsnAsOf')} />}
       </Field>
       <fieldset className="grid gap-4 md:col-span-2 md:grid-cols-3">
         <legend className="mb-2 text-sm font-semibold">
@@ -151,9 +151,7 @@ export function EngineForm({
         {preFleetKnown ? (
           <>
             <Field label="Inspected on" error={preFleetErrors?.date}>
-              {(props) => (
-                <Input {...props} type="date" {...form.register('preFleetInspection.date')} />
-              )}
+              {(props) => <DateInput {...props} {...form.register('preFleetInspection.date')} />}
             </Field>
             <Field label="CSN then" error={preFleetErrors?.csn}>
               {(props) => (

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { engineUpdateSchema, type EngineDetail } from '@emberline/contracts/fleet';
 import { Button } from '../../../components/ui/button';
-import { Field, Input, Select } from '../../../components/ui/field';
+import { DateInput, Field, Input, Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { EngineStatusOptions } from './status-badge';
 import { applyServerErrors, emptyToNull, useZodForm } from '../../../lib/form';
@@ -82,9 +82,8 @@ export function EngineStatusForm({ engine }: { engine: EngineDetail }) {
           <div className="grid gap-3 sm:grid-cols-3">
             <Field label="Released on">
               {(props) => (
-                <Input
+                <DateInput
                   {...props}
-                  type="date"
                   {...form.register('shopRelease.date', { shouldUnregister: true })}
                 />
               )}

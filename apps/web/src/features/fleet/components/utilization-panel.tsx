@@ -5,7 +5,7 @@ import {
 } from '@emberline/contracts/fleet';
 import { useDropzone } from 'react-dropzone';
 import { Button } from '../../../components/ui/button';
-import { Field, Input, NumberInput } from '../../../components/ui/field';
+import { DateInput, Field, NumberInput } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { LoadingLine } from '../../../components/ui/page';
 import { applyServerErrors, useZodForm } from '../../../lib/form';
@@ -51,10 +51,10 @@ function RecordForm({ engineId }: { engineId: string }) {
       {message ? <Notice tone={message.tone}>{message.text}</Notice> : null}
       <div className="grid grid-cols-2 gap-3 lg:grid-cols-4">
         <Field label="From" error={errors.periodStart}>
-          {(props) => <Input {...props} type="date" {...form.register('periodStart')} />}
+          {(props) => <DateInput {...props} {...form.register('periodStart')} />}
         </Field>
         <Field label="To" error={errors.periodEnd}>
-          {(props) => <Input {...props} type="date" {...form.register('periodEnd')} />}
+          {(props) => <DateInput {...props} {...form.register('periodEnd')} />}
         </Field>
         <Field label="Cycles" error={errors.cycles}>
           {(props) => (

@@ -3,8 +3,10 @@ import type {
   Image,
   ImageTagInput,
   Inspection,
+  InspectionDefaults,
   InspectionDetail,
   InspectionInput,
+  InspectionParticularsInput,
 } from '@emberline/contracts/inspections';
 import { api, apiUrl } from '../../../lib/api-client';
 import { inspectionKeys } from '../../../lib/inspection-keys';
@@ -76,4 +78,38 @@ export function useSubmitInspection(id: string) {
       void queryClient.invalidateQueries({ queryKey: inspectionKeys.lists() });
     },
   });
+}
+
+/** The signed-in inspector's qualification and last probe, for a new inspection. */
+export function useInspectionDefaults() {
+  return useQuery({
+    queryKey: [...inspectionKeys.all, 'defaults'] as const,
+    queryFn: () => api.get<InspectionDefaults>('/inspections/defaults'),
+    staleTime: 0,
+  });
+}
+
+function useDetailMutation<T>(id: string, send: (body: T) => Promise<InspectionDetail>) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: send,
+    onSuccess: (detail) => {
+      queryClient.setQueryData(inspectionKeys.detail(id), detail);
+      void queryClient.invalidateQueries({ queryKey: inspectionKeys.all });
+    },
+  });
+}
+
+/** Corrects a draft's particulars; the answer carries the flags computed again. */
+export function useCorrectInspection(id: string) {
+  return useDetailMutation(id, (input: InspectionParticularsInput) =>
+    api.patch<InspectionDetail>(`/inspections/${encodeURIComponent(id)}`, input),
+  );
+}
+
+/** Voids a draft started by mistake, with the reason. */
+export function useVoidInspection(id: string) {
+  return useDetailMutation(id, (reason: string) =>
+    api.post<InspectionDetail>(`/inspections/${encodeURIComponent(id)}/void`, { reason }),
+  );
 }

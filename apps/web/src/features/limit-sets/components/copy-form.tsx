@@ -6,7 +6,7 @@ import {
   type LimitSetCopyInput,
 } from '@emberline/contracts/limit-sets';
 import { Button } from '../../../components/ui/button';
-import { Field, Input } from '../../../components/ui/field';
+import { DateInput, Field, Input } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { applyServerErrors, emptyToNull, useZodForm } from '../../../lib/form';
 import { useCopyLimitSet, useUpdateParticulars } from '../api/limit-sets';
@@ -62,9 +62,8 @@ function ParticularsForm({
         </Field>
         <Field label="Effective date" error={errors.effectiveDate}>
           {(props) => (
-            <Input
+            <DateInput
               {...props}
-              type="date"
               {...form.register('effectiveDate', { setValueAs: emptyToNull })}
             />
           )}

@@ -1,3 +1,4 @@
+import { formatDate } from '../../../lib/format';
 import { useState } from 'react';
 import { cautions } from '@emberline/contracts/cautions';
 import { publishInputSchema } from '@emberline/contracts/limit-sets';
@@ -51,7 +52,8 @@ export function PublishForm({
         <ul className="list-disc pl-5">
           <li>
             You sign that every rule of this draft, as it is now, was checked against the manual
-            named, and that it takes effect on {effectiveDate ?? 'its effective date'}.
+            named, and that it takes effect on{' '}
+            {effectiveDate ? formatDate(effectiveDate) : 'its effective date'}.
           </li>
           <li>You made no change to it; any change after your check clears the check.</li>
           <li>Your name, the time and the SHA-256 of the draft are recorded.</li>

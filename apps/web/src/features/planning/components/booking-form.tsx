@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { bookingInputSchema, type EngineDue } from '@emberline/contracts/planning';
 import { Button } from '../../../components/ui/button';
-import { Field, Input } from '../../../components/ui/field';
+import { DateInput, Field, Input } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { formatDate, formatDateTime } from '../../../lib/format';
 import { applyServerErrors, useZodForm } from '../../../lib/form';
@@ -51,7 +51,7 @@ export function BookingForm({
             : undefined
         }
       >
-        {(props) => <Input {...props} type="date" {...form.register('plannedDate')} />}
+        {(props) => <DateInput {...props} {...form.register('plannedDate')} />}
       </Field>
       <Field label="Note" error={errors.note}>
         {(props) => <Input {...props} {...form.register('note')} placeholder="Slot, place, kit" />}

@@ -8,7 +8,7 @@ import {
 } from '@emberline/contracts/users';
 import type { UseFormReturn } from 'react-hook-form';
 import { Button } from '../../../components/ui/button';
-import { Field, Input } from '../../../components/ui/field';
+import { DateInput, Field, Input } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { applyServerErrors, useZodForm } from '../../../lib/form';
 import { formatDate } from '../../../lib/format';
@@ -36,7 +36,7 @@ function ReferenceFields({
         {(props) => <Input {...props} {...form.register(`${name}.ref`)} />}
       </Field>
       <Field label={`${what} expires on`} error={errors?.expiresOn}>
-        {(props) => <Input {...props} type="date" {...form.register(`${name}.expiresOn`)} />}
+        {(props) => <DateInput {...props} {...form.register(`${name}.expiresOn`)} />}
       </Field>
     </>
   );
