@@ -46,6 +46,19 @@ test('the inspector opens an inspection, drops 20 images, browses and zooms them
   await page.getByLabel('Images to upload').setInputFiles(await stills(20));
   const uploads = page.getByRole('complementary', { name: 'Uploads' });
   await expect(uploads).toContainText('Uploads: finished', { timeout: 60_000 });
+  // Once every file is stored the panel folds to its one line, clear of the page's buttons.
+  await expect(uploads.getByTestId('upload-list')).toHaveCount(0);
+  const submit = page.getByRole('button', { name: /^Submit for review/ });
+  await submit.scrollIntoViewIfNeeded();
+  const box = (await submit.boundingBox())!;
+  const panel = (await uploads.boundingBox())!;
+  const overlaps =
+    box.x < panel.x + panel.width &&
+    panel.x < box.x + box.width &&
+    box.y < panel.y + panel.height &&
+    panel.y < box.y + box.height;
+  expect(overlaps, 'the upload panel covers the submit button').toBe(false);
+  await uploads.getByRole('button', { name: /^Uploads: finished/ }).click();
   await expect(uploads.locator('[data-status="done"]')).toHaveCount(20);
   await expect(page.getByTestId('image-strip').getByRole('button')).toHaveCount(20);
 
