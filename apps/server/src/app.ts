@@ -7,6 +7,8 @@ import { paths } from './config/paths';
 import type { AppContext } from './context';
 import { authenticate } from './middleware/authenticate';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { AppError } from './http/app-error';
+import { MAX_JSON_DEPTH, nestsWithin } from './lib/json-depth';
 import { requestLogger } from './middleware/request-logger';
 import { sameOrigin } from './middleware/same-origin';
 import { auditRoutes } from './modules/audit/audit.routes';
@@ -109,6 +111,15 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   app.use(
     '/api/v1',
     express.json({ limit: ctx.config.jsonLimit, strict: true }),
+    // A body nested deeper than any request of the API is refused before anything walks it.
+    (req: express.Request, _res: express.Response, next: express.NextFunction) =>
+      next(
+        nestsWithin(req.body, MAX_JSON_DEPTH)
+          ? undefined
+          : AppError.unprocessable(
+              `The request nests lists and objects more than ${MAX_JSON_DEPTH} deep; no request of Emberline does.`,
+            ),
+      ),
     cookieParser(),
     sameOrigin(ctx.config.publicOrigins),
     api,

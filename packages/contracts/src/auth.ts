@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { nameText } from './text';
 import { roleSchema } from './roles';
 
 const utf8 = new TextEncoder();
@@ -74,7 +75,7 @@ export type PasswordResetConfirm = z.infer<typeof passwordResetConfirmSchema>;
 
 export const acceptInvitationInputSchema = z.strictObject({
   token: tokenSchema,
-  name: z.string().trim().min(1, { message: 'Enter your name' }).max(120),
+  name: nameText('Enter your name'),
   password: newPasswordSchema,
 });
 export type AcceptInvitationInput = z.infer<typeof acceptInvitationInputSchema>;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { noteText } from './text';
 import { isoDateSchema } from './forecast';
 import {
   beyondActionSchema,
@@ -59,7 +60,7 @@ export const findingInputSchema = z.strictObject({
     .max(10_000)
     .nullable()
     .default(null),
-  notes: z.string().trim().max(2000).default(''),
+  notes: noteText(2000).default(''),
   /** The same damage recorded in an earlier inspection of this engine: the damage series. */
   previousFindingId: id.nullable().default(null),
 });

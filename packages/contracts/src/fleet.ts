@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { noteText } from './text';
 import { intervalSchema } from './limits';
 import { baselineSchema, dueStateSchema } from './planning';
 import { forecastDimensionSchema, isoDateSchema } from './forecast';
@@ -98,7 +99,7 @@ const rowsSchema = z
 
 export const engineModelInputSchema = z.strictObject({
   name: label('model name'),
-  notes: z.string().trim().max(2000).default(''),
+  notes: noteText(2000).default(''),
   /** The routine hot-section inspection interval, whichever dimension comes first (DESIGN §5.6). */
   standardInterval: intervalSchema
     .refine(

@@ -11,7 +11,12 @@ export const isoDateSchema = z
       return !Number.isNaN(date.getTime()) && date.toISOString().slice(0, 10) === value;
     },
     { message: 'this date does not exist' },
-  );
+  )
+  // A day outside these years is a typing slip in this trade (and past what the day arithmetic
+  // is tested for).
+  .refine((value) => value >= '1900-01-01' && value <= '2200-12-31', {
+    message: 'give a day between 1900 and 2200',
+  });
 export type IsoDate = z.infer<typeof isoDateSchema>;
 
 export const forecastRequestSchema = z.strictObject({

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { nameText, noteText } from './text';
 import { isoDateSchema } from './forecast';
 import { calibrationSchema } from './measurement';
 
@@ -41,12 +42,7 @@ export const inspectionStateLabels: Record<InspectionState, string> = {
   void: 'Void',
 };
 
-const text = (what: string, max = 120) =>
-  z
-    .string()
-    .trim()
-    .min(1, { message: `Enter the ${what}` })
-    .max(max);
+const text = (what: string, max = 120) => nameText(`Enter the ${what}`, { max });
 
 export const inspectionInputSchema = z.strictObject({
   engineId: z.string().min(1).max(64),
@@ -117,11 +113,11 @@ export const inspectionFlagSchema = z.object({
 export type InspectionFlag = z.infer<typeof inspectionFlagSchema>;
 
 export const acknowledgeFlagInputSchema = z.strictObject({
-  note: z
-    .string()
-    .trim()
-    .min(3, { message: 'Say why it is acceptable, for example the certificate renewed on…' })
-    .max(500),
+  note: noteText(500).pipe(
+    z
+      .string()
+      .min(3, { message: 'Say why it is acceptable, for example the certificate renewed on…' }),
+  ),
 });
 
 export const imageSchema = z.object({

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { nameText } from './text';
 import { emailSchema } from './auth';
 
 export const organisationKindSchema = z.enum(['home', 'customer']);
@@ -15,12 +16,12 @@ export const organisationListResponseSchema = z.object({ items: z.array(organisa
 export type OrganisationListResponse = z.infer<typeof organisationListResponseSchema>;
 
 export const organisationInputSchema = z.strictObject({
-  name: z.string().trim().min(2, { message: 'Enter the organisation’s name' }).max(120),
+  name: nameText('Enter the organisation’s name', { min: 2 }),
 });
 export type OrganisationInput = z.infer<typeof organisationInputSchema>;
 
 export const contactInputSchema = z.strictObject({
-  name: z.string().trim().min(1, { message: 'Enter the contact’s name' }).max(120),
+  name: nameText('Enter the contact’s name'),
   email: emailSchema,
   role: z
     .string()

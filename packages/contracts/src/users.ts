@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { nameText } from './text';
 import { emailSchema } from './auth';
 import { isoDateSchema } from './forecast';
 import { roleSchema } from './roles';
@@ -57,7 +58,7 @@ export type UserListResponse = z.infer<typeof userListResponseSchema>;
 
 export const inviteUserInputSchema = z.strictObject({
   email: emailSchema,
-  name: z.string().trim().min(1, { message: 'Enter the person’s name' }).max(120),
+  name: nameText('Enter the person’s name'),
   role: roleSchema,
   organisationId: z.string().min(1, { message: 'Choose an organisation' }),
 });
@@ -65,7 +66,7 @@ export type InviteUserInput = z.infer<typeof inviteUserInputSchema>;
 
 export const updateUserInputSchema = z
   .strictObject({
-    name: z.string().trim().min(1).max(120).optional(),
+    name: nameText('Enter the person’s name').optional(),
     role: roleSchema.optional(),
     organisationId: z.string().min(1).optional(),
     disabled: z.boolean().optional(),

@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import fs from 'node:fs/promises';
 import path from 'node:path';
 import exifReader from 'exif-reader';
@@ -187,7 +188,8 @@ export function processImageQueued(file: string): Promise<ProcessedImage> {
 
 /** The full-resolution, oriented rendition in a format browsers show (JPEG q90), without metadata. */
 export async function renderFull(original: string, target: string): Promise<void> {
-  const temp = `${target}.${process.pid}.tmp`;
+  // A name of its own per render: parallel first requests never rename over each other.
+  const temp = `${target}.${randomUUID()}.tmp`;
   await fs.mkdir(path.dirname(target), { recursive: true });
   await slot(() =>
     sharp(original, { limitInputPixels: MAX_INPUT_PIXELS })

@@ -63,15 +63,20 @@ export async function createLocalStorage(dataDir: string): Promise<ImageStorage>
       let size = 0;
       return new Promise((resolve, reject) => {
         const out = createWriteStream(file);
+        // A cut connection or a failed write leaves nothing of the file behind.
+        const fail = (error: Error) => {
+          out.destroy();
+          fs.rm(file, { force: true }).then(
+            () => reject(error),
+            () => reject(error),
+          );
+        };
         stream.on('data', (chunk: Buffer) => {
           hash.update(chunk);
           size += chunk.length;
         });
-        stream.on('error', (error) => {
-          out.destroy();
-          reject(error);
-        });
-        out.on('error', reject);
+        stream.on('error', fail);
+        out.on('error', fail);
         out.on('finish', () => resolve({ path: file, size, sha256: hash.digest('hex') }));
         stream.pipe(out);
       });

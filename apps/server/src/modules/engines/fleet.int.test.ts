@@ -470,9 +470,14 @@ describe('organisations and report contacts', () => {
     );
   });
 
-  it('refuses a second organisation of the same name', async () => {
-    expect(
-      (await as('admin').post('/organisations', { name: 'Corvid Regional Airways (demo)' })).status,
-    ).toBe(409);
+  it('refuses a second organisation of the same name, whatever its case', async () => {
+    for (const name of ['Corvid Regional Airways (demo)', 'CORVID regional airways (DEMO)'])
+      expect((await as('admin').post('/organisations', { name })).status).toBe(409);
+    // A name of invisible characters only, or with a control character, is refused in words.
+    const invisible = await as('admin').post('/organisations', { name: '\u200b\u200d\u2060' });
+    expect(invisible.status).toBe(400);
+    const control = await as('admin').post('/organisations', { name: 'Corvid\u0007 Air' });
+    expect(control.status).toBe(400);
+    expect(JSON.stringify(control.body)).toContain('cannot hold control characters');
   });
 });

@@ -1,4 +1,5 @@
 import fs from 'node:fs';
+import http from 'node:http';
 import path from 'node:path';
 import { deflateSync } from 'node:zlib';
 import exifReader from 'exif-reader';
@@ -7,6 +8,7 @@ import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoAccounts, startTestApp, type TestApp } from '../../../test/test-app';
+import { getBytes } from '../../../test/inspection-fixtures';
 
 let t: TestApp;
 let inspector: string;
@@ -256,6 +258,86 @@ describe('image upload', () => {
     expect(image.originalName).toBe('x.jpg');
     expect(fs.existsSync(path.join(t.dataDir, 'x.jpg'))).toBe(false);
     expect(fs.existsSync(t.runtime.ctx.storage.originalPath(image.sha256))).toBe(true);
+  });
+
+  it('leaves nothing in the temp folder after a refused upload or a cut connection', async () => {
+    const tempDir = t.runtime.ctx.storage.tempDir;
+    const before = new Set(fs.readdirSync(tempDir));
+    const added = () => fs.readdirSync(tempDir).filter((name) => !before.has(name));
+    const data = Buffer.alloc(2 * 1024 * 1024, 7);
+    const refused = await upload([
+      { name: 'one.jpg', data },
+      { name: 'two.jpg', data: Buffer.alloc(2 * 1024 * 1024, 9) },
+    ]).field('unknown', 'x');
+    expect(refused.status).toBe(400);
+    expect(added()).toEqual([]);
+
+    // A connection cut half-way through a file.
+    const server = t.app.listen(0, '127.0.0.1');
+    await new Promise((resolve) => server.once('listening', resolve));
+    const { port } = server.address() as { port: number };
+    const boundary = 'emberline-cut';
+    const request_ = http.request({
+      host: '127.0.0.1',
+      port,
+      method: 'POST',
+      path: `/api/v1/inspections/${inspectionId}/images`,
+      headers: {
+        Cookie: inspector,
+        'Content-Type': `multipart/form-data; boundary=${boundary}`,
+        'Content-Length': String(8 * 1024 * 1024),
+      },
+    });
+    request_.on('error', () => {});
+    request_.write(
+      `--${boundary}\r\nContent-Disposition: form-data; name="files"; filename="cut.jpg"\r\nContent-Type: image/jpeg\r\n\r\n`,
+    );
+    request_.write(Buffer.alloc(3 * 1024 * 1024, 5));
+    await new Promise((resolve) => setTimeout(resolve, 300));
+    request_.destroy();
+    await expect.poll(added, { timeout: 3000 }).toEqual([]);
+    server.close();
+  });
+
+  it('keeps a file name in UTF-8 as it was sent', async () => {
+    const data = await solid(305, 300).jpeg({ quality: 70 }).toBuffer();
+    const response = await upload([{ name: 'Düse-é 第1段.jpg', data }]);
+    expect(response.status).toBe(201);
+    expect(response.body.images[0].originalName).toBe('Düse-é 第1段.jpg');
+  });
+
+  it('stores the same file sent four times at once once, and answers the others as duplicates', async () => {
+    const data = await solid(315, 300).jpeg({ quality: 60 }).toBuffer();
+    const answers = await Promise.all(
+      [0, 1, 2, 3].map((index) => upload([{ name: `same-${index}.jpg`, data }])),
+    );
+    expect(answers.map((answer) => answer.status).sort()).toEqual([200, 200, 200, 201]);
+    const stored = answers.find((answer) => answer.status === 201)!.body.images[0];
+    for (const answer of answers.filter((item) => item.status === 200))
+      expect(answer.body.rejected[0]).toMatchObject({ code: 'duplicate', imageId: stored.id });
+    const detail = await request(t.app)
+      .get(`/api/v1/inspections/${inspectionId}`)
+      .set('Cookie', inspector);
+    expect(
+      detail.body.images.filter((image: { sha256: string }) => image.sha256 === stored.sha256),
+    ).toHaveLength(1);
+  });
+
+  it('answers parallel first requests for a full rendition with the same bytes, never a 500', async () => {
+    const data = await solid(1200, 900).jpeg({ quality: 80 }).toBuffer();
+    const stored = await upload([{ name: 'full-race.jpg', data }]);
+    const id = stored.body.images[0].id;
+    const answers = await Promise.all(
+      Array.from({ length: 6 }, () => getBytes(t.app, `/images/${id}/full`, inspector)),
+    );
+    expect(answers.map((answer) => answer.status)).toEqual([200, 200, 200, 200, 200, 200]);
+    const first = answers[0]!.body as Buffer;
+    expect(first.length).toBeGreaterThan(0);
+    for (const answer of answers) expect(Buffer.compare(answer.body as Buffer, first)).toBe(0);
+    const leftovers = fs
+      .readdirSync(path.dirname(t.runtime.ctx.storage.fullPath(stored.body.images[0].sha256)))
+      .filter((name) => name.includes('.tmp'));
+    expect(leftovers).toEqual([]);
   });
 
   it('reports identical bytes uploaded again as a duplicate, not stored twice', async () => {

@@ -1,4 +1,10 @@
-import { Router, type ErrorRequestHandler, type RequestHandler, type Response } from 'express';
+import {
+  Router,
+  type ErrorRequestHandler,
+  type Request,
+  type RequestHandler,
+  type Response,
+} from 'express';
 import multer from 'multer';
 import {
   imageSchema,
@@ -41,6 +47,21 @@ const limitMessages: Record<string, string> = {
 
 /** Multer's limit errors as the upload's own answer: 413 (400 for a wrong field) with the refused files. */
 const uploadErrors: ErrorRequestHandler = (error, _req, res, next) => {
+  // A connection cut mid-upload: the client's doing, answered (if anyone still listens) as such;
+  // multer has removed what it received, and the storage the part it was writing.
+  if (
+    !(error instanceof multer.MulterError) &&
+    (_req.readableAborted || /Unexpected end of form|aborted/i.test(String(error?.message)))
+  ) {
+    res.status(400).json({
+      error: {
+        code: 'invalid_request',
+        message: 'The upload was cut off before it finished; nothing was stored.',
+        requestId: String(_req.id ?? ''),
+      },
+    });
+    return;
+  }
   if (!(error instanceof multer.MulterError)) return next(error);
   const status = error.code === 'LIMIT_UNEXPECTED_FILE' ? 400 : 413;
   const message = limitMessages[error.code] ?? 'The upload could not be read; nothing was stored.';
@@ -69,6 +90,9 @@ export function imagesRoutes(ctx: AppContext): Router {
   const upload = multer({
     storage: hashingStorage(ctx.storage),
     limits: UPLOAD_LIMITS,
+    // Browsers send file names as UTF-8 without saying so; busboy's default would read them as
+    // Latin-1 ("Düse.jpg" became "DÃ¼se.jpg").
+    defParamCharset: 'utf8',
   });
   const beforeBytes: RequestHandler = (req, res, next) => {
     images.assertCanUpload(principalOf(res), String(req.params.id));
@@ -89,39 +113,48 @@ export function imagesRoutes(ctx: AppContext): Router {
     // Express tells an error handler by its four parameters; the cast only satisfies the type.
     uploadErrors as unknown as RequestHandler,
     async (req, res) => {
-      const fields = frameFieldsSchema.safeParse(req.body ?? {});
-      if (!fields.success)
-        throw AppError.badRequest('The upload has fields Emberline does not take');
-      const frame: FrameSource | null =
-        fields.data.videoFileName !== undefined && fields.data.videoTimeSeconds !== undefined
-          ? {
-              videoFileName: fields.data.videoFileName,
-              videoTimeSeconds: fields.data.videoTimeSeconds,
-            }
-          : null;
       const files = (req.files as ReceivedFile[] | undefined) ?? [];
-      const { status, body } = await images.upload(
-        principalOf(res),
-        res.locals.params.id,
-        files,
-        frame,
-        requestMeta(req),
-      );
-      if (status !== 415) {
-        res.status(status).json(body);
-        return;
+      try {
+        await answerUpload(req, res, files);
+      } finally {
+        // Whatever the answer, no temp file of this request outlives it: a stored file has been
+        // moved to its address already, and discarding a moved file does nothing.
+        await Promise.all(files.map((file) => ctx.storage.discard(file.path)));
       }
-      // Nothing was taken: an error answer that still lists every refused file and its reason.
-      (res as Response).status(415).json({
-        ...body,
-        error: {
-          code: 'unsupported_media_type',
-          message: 'None of the files could be taken.',
-          requestId: String(req.id ?? ''),
-        },
-      });
     },
   );
+
+  async function answerUpload(req: Request, res: Response, files: ReceivedFile[]) {
+    const fields = frameFieldsSchema.safeParse(req.body ?? {});
+    if (!fields.success) throw AppError.badRequest('The upload has fields Emberline does not take');
+    const frame: FrameSource | null =
+      fields.data.videoFileName !== undefined && fields.data.videoTimeSeconds !== undefined
+        ? {
+            videoFileName: fields.data.videoFileName,
+            videoTimeSeconds: fields.data.videoTimeSeconds,
+          }
+        : null;
+    const { status, body } = await images.upload(
+      principalOf(res),
+      res.locals.params.id,
+      files,
+      frame,
+      requestMeta(req),
+    );
+    if (status !== 415) {
+      res.status(status).json(body);
+      return;
+    }
+    // Nothing was taken: an error answer that still lists every refused file and its reason.
+    (res as Response).status(415).json({
+      ...body,
+      error: {
+        code: 'unsupported_media_type',
+        message: 'None of the files could be taken.',
+        requestId: String(req.id ?? ''),
+      },
+    });
+  }
 
   route(
     router,

@@ -56,6 +56,14 @@ export function displayName(name: string): string {
 export function createImagesService(ctx: AppContext) {
   const { db, storage } = ctx;
 
+  /**
+   * The stores under way, by inspection and hash: the same bytes sent in parallel requests wait for
+   * the first and are answered as its duplicates (one row, never a UNIQUE failure).
+   */
+  const storing = new Map<string, Promise<Image | RejectedFile>>();
+  /** Full renditions being made, by target path. */
+  const rendering = new Map<string, Promise<void>>();
+
   async function ingest(
     principal: Principal,
     inspectionId: string,
@@ -65,20 +73,44 @@ export function createImagesService(ctx: AppContext) {
     meta: RequestMeta,
   ): Promise<Image | RejectedFile> {
     const filename = displayName(file.originalname);
+    // Hashed while it arrived: a duplicate costs no decode.
+    const { sha256 } = file;
+    const key = `${inspectionId}:${sha256}`;
+    const existing = findImageBySha(db, inspectionId, sha256);
+    const first = storing.get(key);
+    if (existing || seen.has(sha256) || first) {
+      await storage.discard(file.path);
+      const earlier = existing ? null : first ? await first.catch(() => null) : null;
+      // The first of the same bytes was refused: this one is, for the same reason.
+      if (earlier && !('id' in earlier)) return { ...earlier, filename };
+      const imageId = existing?.id ?? earlier?.id;
+      return {
+        filename,
+        code: 'duplicate',
+        message: 'The same image is already in this inspection; it was not stored twice.',
+        ...(imageId ? { imageId } : {}),
+      };
+    }
+    seen.add(sha256);
+    const work = store(principal, inspectionId, file, filename, frame, meta);
+    storing.set(key, work);
     try {
-      // Hashed while it arrived: a duplicate costs no decode.
-      const { sha256 } = file;
-      const existing = findImageBySha(db, inspectionId, sha256);
-      if (existing || seen.has(sha256)) {
-        await storage.discard(file.path);
-        return {
-          filename,
-          code: 'duplicate',
-          message: 'The same image is already in this inspection; it was not stored twice.',
-          ...(existing ? { imageId: existing.id } : {}),
-        };
-      }
-      seen.add(sha256);
+      return await work;
+    } finally {
+      storing.delete(key);
+    }
+  }
+
+  async function store(
+    principal: Principal,
+    inspectionId: string,
+    file: UploadedFile,
+    filename: string,
+    frame: FrameSource | null,
+    meta: RequestMeta,
+  ): Promise<Image | RejectedFile> {
+    const { sha256 } = file;
+    try {
       const processed = await processImageQueued(file.path);
       // The original is in place (fsync, rename) before its record commits.
       await storage.commitOriginal(file.path, sha256);
@@ -279,8 +311,17 @@ export function createImagesService(ctx: AppContext) {
     async full(principal: Principal, id: string): Promise<{ path: string; sha256: string }> {
       const image = visibleImage(principal, id);
       const target = storage.fullPath(image.sha256);
-      if (!(await storage.exists(target)))
-        await renderFull(storage.originalPath(image.sha256), target);
+      if (!(await storage.exists(target))) {
+        // One render a rendition: parallel first requests wait for it and send the same bytes.
+        let render = rendering.get(target);
+        if (!render) {
+          render = renderFull(storage.originalPath(image.sha256), target).finally(() =>
+            rendering.delete(target),
+          );
+          rendering.set(target, render);
+        }
+        await render;
+      }
       return { path: target, sha256: image.sha256 };
     },
 

@@ -1,3 +1,4 @@
+import { MAX_JSON_DEPTH, nestsWithin } from '../../lib/json-depth';
 import type { LimitFileFormat } from '@emberline/contracts/limit-sets';
 import { beyondActionKinds, ruleSchema, type Rule } from '@emberline/contracts/limits';
 import type { z } from 'zod';
@@ -184,6 +185,10 @@ export function parseRulesJson(bytes: Buffer): RuleLine[] {
       throw unreadableFile(`The file is not JSON (${error.message}); nothing was imported.`);
     throw error;
   }
+  if (!nestsWithin(document, MAX_JSON_DEPTH))
+    throw unreadableFile(
+      `The file nests lists and objects more than ${MAX_JSON_DEPTH} deep, which no rules file does; nothing was imported.`,
+    );
   const rules = Array.isArray(document)
     ? document
     : document &&

@@ -146,6 +146,20 @@ describe('export and import of a revision', () => {
     );
     expect(notJson.status).toBe(422);
     expect(notJson.body.error.message).toMatch(/not JSON/);
+    // A rule nested 100,000 deep: JSON.parse takes it, and the answer is 422, not a stack overflow.
+    const deep = `{"rules": [${'['.repeat(100_000)}1${']'.repeat(100_000)}]}`;
+    const tooDeep = await sendFile(
+      `/api/v1/limit-sets/${draftId}/import-preview?format=json`,
+      deep,
+    );
+    expect(tooDeep.status).toBe(422);
+    expect(tooDeep.body.error.message).toMatch(/nests lists and objects more than 32 deep/);
+    const deepBody = await request(t.app)
+      .put(`/api/v1/limit-sets/${draftId}/rules`)
+      .set('Cookie', engineer)
+      .set('Content-Type', 'application/json')
+      .send(`{"rules": ${'['.repeat(50_000)}${']'.repeat(50_000)}}`);
+    expect(deepBody.status).toBe(422);
     const badRule = await sendFile(
       `/api/v1/limit-sets/${draftId}/import-preview?format=json`,
       JSON.stringify([{ ...demoRules[0], unit: 'furlong' }]),

@@ -17,8 +17,20 @@ export function findOrganisation(db: DbOrTx, id: string): OrganisationRow | unde
   return db.select().from(organisations).where(eq(organisations.id, id)).get();
 }
 
+/** How names are compared for sameness: without regard to case or Unicode form. */
+const sameName = (name: string) => name.normalize('NFKC').toLocaleLowerCase('en-GB');
+
+/**
+ * The organisation of that name, without regard to case ("Corvid Regional" and "corvid regional"
+ * are one). Organisations are few: they are compared here, where the case folding is Unicode's.
+ */
 export function findOrganisationByName(db: DbOrTx, name: string): OrganisationRow | undefined {
-  return db.select().from(organisations).where(eq(organisations.name, name)).get();
+  const wanted = sameName(name);
+  return db
+    .select()
+    .from(organisations)
+    .all()
+    .find((organisation) => sameName(organisation.name) === wanted);
 }
 
 export function insertOrganisation(db: DbOrTx, row: typeof organisations.$inferInsert): void {
