@@ -1,6 +1,7 @@
 import {
   DEFAULT_PICK_UNCERTAINTY_PX,
   type Calibration,
+  type ImagePoint,
   type MeasurementResult,
   type PlaneCalibration,
   type ReferenceCalibration,
@@ -247,6 +248,28 @@ export function measure(
  * Refuses a calibration nothing can be measured with: reference points that coincide, or plane
  * corners that do not make a usable quadrilateral. Throws a DomainError saying which.
  */
+/** The points a calibration was picked at: the reference's two ends, or the plane's corners. */
+export function calibrationPoints(calibration: Calibration): readonly ImagePoint[] {
+  return calibration.kind === 'reference' ? [calibration.p1, calibration.p2] : calibration.corners;
+}
+
+/**
+ * Why some points are not on an image of `width` × `height` pixels, or null when they all are.
+ * Half a pixel of slack: a point picked on the last pixel's edge is still on the image.
+ */
+export function pointsOffImage(
+  points: readonly ImagePoint[],
+  width: number,
+  height: number,
+): string | null {
+  const outside = points.find(
+    ([x, y]) => x < -0.5 || y < -0.5 || x > width + 0.5 || y > height + 0.5,
+  );
+  return outside
+    ? `The point (${outside[0]}, ${outside[1]}) lies outside the image, which is ${width}×${height} pixels`
+    : null;
+}
+
 export function assertCalibration(calibration: Calibration): void {
   if (calibration.kind === 'plane') {
     planeModel(calibration.corners, calibration, 0);

@@ -7,7 +7,12 @@ import type {
 } from '@emberline/contracts/findings';
 import type { Category, FindingEvaluation } from '@emberline/contracts/limits';
 import type { ImagePoint } from '@emberline/contracts/measurement';
-import { assertShape, measure } from '@emberline/domain/measurement';
+import {
+  assertShape,
+  calibrationPoints,
+  measure,
+  pointsOffImage,
+} from '@emberline/domain/measurement';
 import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction, type DbOrTx } from '../../db/client';
 import { AppError } from '../../http/app-error';
@@ -96,15 +101,8 @@ type Measured = Pick<
 >;
 
 function assertInside(points: readonly ImagePoint[], image: ImageMeta, field: string): void {
-  // Half a pixel of slack: a point picked on the last pixel's edge is still on the image.
-  const outside = points.find(
-    ([x, y]) => x < -0.5 || y < -0.5 || x > image.width + 0.5 || y > image.height + 0.5,
-  );
-  if (outside)
-    throw invalid(
-      field,
-      `The point (${outside[0]}, ${outside[1]}) lies outside the image, which is ${image.width}×${image.height} pixels`,
-    );
+  const problem = pointsOffImage(points, image.width, image.height);
+  if (problem) throw invalid(field, problem);
 }
 
 /**
@@ -129,11 +127,7 @@ function measureFinding(db: DbOrTx, input: ParsedFindingInput, image: ImageMeta)
         'calibration',
         `The calibration was made on an image of ${source.width}×${source.height} pixels and this one is ${image.width}×${image.height}: calibrate on this image, or reuse a calibration from an image of the same size`,
       );
-    const points =
-      input.calibration.kind === 'reference'
-        ? [input.calibration.p1, input.calibration.p2]
-        : input.calibration.corners;
-    assertInside(points, image, 'calibration');
+    assertInside(calibrationPoints(input.calibration), image, 'calibration');
     snapshot = {
       calibration: input.calibration,
       imageId: source.id,

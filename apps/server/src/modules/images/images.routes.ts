@@ -46,18 +46,18 @@ const limitMessages: Record<string, string> = {
 };
 
 /** Multer's limit errors as the upload's own answer: 413 (400 for a wrong field) with the refused files. */
-const uploadErrors: ErrorRequestHandler = (error, _req, res, next) => {
+const uploadErrors: ErrorRequestHandler = (error, req, res, next) => {
   // A connection cut mid-upload: the client's doing, answered (if anyone still listens) as such;
   // multer has removed what it received, and the storage the part it was writing.
   if (
     !(error instanceof multer.MulterError) &&
-    (_req.readableAborted || /Unexpected end of form|aborted/i.test(String(error?.message)))
+    (req.readableAborted || /Unexpected end of form|aborted/i.test(String(error?.message)))
   ) {
     res.status(400).json({
       error: {
         code: 'invalid_request',
         message: 'The upload was cut off before it finished; nothing was stored.',
-        requestId: String(_req.id ?? ''),
+        requestId: String(req.id ?? ''),
       },
     });
     return;
@@ -69,7 +69,7 @@ const uploadErrors: ErrorRequestHandler = (error, _req, res, next) => {
     error: {
       code: status === 413 ? 'payload_too_large' : 'invalid_request',
       message,
-      requestId: String(_req.id ?? ''),
+      requestId: String(req.id ?? ''),
     },
     images: [],
     rejected: [{ filename: displayName(error.field ?? 'upload'), code: 'too_large', message }],
@@ -146,7 +146,7 @@ export function imagesRoutes(ctx: AppContext): Router {
       return;
     }
     // Nothing was taken: an error answer that still lists every refused file and its reason.
-    (res as Response).status(415).json({
+    res.status(415).json({
       ...body,
       error: {
         code: 'unsupported_media_type',

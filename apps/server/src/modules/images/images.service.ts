@@ -1,5 +1,9 @@
 import type { Calibration } from '@emberline/contracts/measurement';
-import { assertCalibration } from '@emberline/domain/measurement';
+import {
+  assertCalibration,
+  calibrationPoints,
+  pointsOffImage,
+} from '@emberline/domain/measurement';
 import type {
   Image,
   ImageCalibrationInput,
@@ -57,8 +61,9 @@ export function createImagesService(ctx: AppContext) {
   const { db, storage } = ctx;
 
   /**
-   * The stores under way, by inspection and hash: the same bytes sent in parallel requests wait for
-   * the first and are answered as its duplicates (one row, never a UNIQUE failure).
+   * The stores under way, by inspection and hash: the same bytes sent twice in one request, or in
+   * parallel requests, wait for the first and are answered as its duplicates (one row, never a
+   * UNIQUE failure). Each store is entered here before its first await.
    */
   const storing = new Map<string, Promise<Image | RejectedFile>>();
   /** Full renditions being made, by target path. */
@@ -69,7 +74,6 @@ export function createImagesService(ctx: AppContext) {
     inspectionId: string,
     file: UploadedFile,
     frame: FrameSource | null,
-    seen: Set<string>,
     meta: RequestMeta,
   ): Promise<Image | RejectedFile> {
     const filename = displayName(file.originalname);
@@ -78,7 +82,7 @@ export function createImagesService(ctx: AppContext) {
     const key = `${inspectionId}:${sha256}`;
     const existing = findImageBySha(db, inspectionId, sha256);
     const first = storing.get(key);
-    if (existing || seen.has(sha256) || first) {
+    if (existing || first) {
       await storage.discard(file.path);
       const earlier = existing ? null : first ? await first.catch(() => null) : null;
       // The first of the same bytes was refused: this one is, for the same reason.
@@ -91,7 +95,6 @@ export function createImagesService(ctx: AppContext) {
         ...(imageId ? { imageId } : {}),
       };
     }
-    seen.add(sha256);
     const work = store(principal, inspectionId, file, filename, frame, meta);
     storing.set(key, work);
     try {
@@ -185,9 +188,8 @@ export function createImagesService(ctx: AppContext) {
       meta: RequestMeta,
     ): Promise<{ status: number; body: UploadResponse }> {
       draftInspection(db, principal, inspectionId);
-      const seen = new Set<string>();
       const outcomes = await Promise.all(
-        files.map((file) => ingest(principal, inspectionId, file, frame, seen, meta)),
+        files.map((file) => ingest(principal, inspectionId, file, frame, meta)),
       );
       const images = outcomes.filter((outcome): outcome is Image => 'id' in outcome);
       const rejected = outcomes.filter((outcome): outcome is RejectedFile => !('id' in outcome));
@@ -253,17 +255,8 @@ export function createImagesService(ctx: AppContext) {
       draftInspection(db, principal, image.inspectionId);
       let saved: { calibration: Calibration; calibrationImageId: string };
       if ('calibration' in input) {
-        const points =
-          input.calibration.kind === 'reference'
-            ? [input.calibration.p1, input.calibration.p2]
-            : input.calibration.corners;
-        const outside = points.find(
-          ([x, y]) => x < -0.5 || y < -0.5 || x > image.width + 0.5 || y > image.height + 0.5,
-        );
-        if (outside)
-          throw AppError.unprocessable(
-            `The point (${outside[0]}, ${outside[1]}) lies outside the image, which is ${image.width}×${image.height} pixels`,
-          );
+        const off = pointsOffImage(calibrationPoints(input.calibration), image.width, image.height);
+        if (off) throw AppError.unprocessable(off);
         assertCalibration(input.calibration);
         saved = { calibration: input.calibration, calibrationImageId: id };
       } else {
