@@ -43,6 +43,15 @@ export const test = base.extend<{
   consoleProblems: [
     async ({ page }, use) => {
       const problems: string[] = [];
+      // A violation the browser reports without a console line (an eval probe caught by the
+      // page's own code) is still a report: make each one a console line.
+      await page.addInitScript(() =>
+        document.addEventListener('securitypolicyviolation', (event) =>
+          console.error(
+            `Content Security Policy violation: ${event.violatedDirective} ${event.blockedURI} at ${event.sourceFile}:${event.lineNumber}:${event.columnNumber}`,
+          ),
+        ),
+      );
       page.on('console', (message) => {
         const text = message.text();
         if (/Content Security Policy|Refused to/i.test(text)) problems.push(`CSP: ${text}`);

@@ -159,3 +159,43 @@ test('the demo inspection shows its invented stills to staff and not to a custom
     page.getByText('There is no such inspection, or it is not shared with you.'),
   ).toBeVisible();
 });
+
+test('an upload held by the server’s rate limit waits its turn and goes again by itself', async ({
+  page,
+  expectHttpError,
+}) => {
+  await signIn(page, 'inspector@demo.test');
+  await page.goto('/fleet/engine-d0104');
+  await page.getByRole('link', { name: 'New inspection' }).click();
+  await page.getByLabel('Qualification reference').fill('DEMO-L2-0099');
+  await page.getByLabel('Qualification valid until').fill('2027-12-31');
+  await page.getByLabel('Probe (model and serial)').fill('Demo probe VX-6 s/n 7');
+  await page.getByLabel('Probe calibration due').fill('2027-01-01');
+  await page.getByRole('button', { name: 'Open the inspection' }).click();
+  await expect(page.getByRole('heading', { name: /Inspection of VT3-D0104/ })).toBeVisible();
+
+  // The first upload is answered as the server answers past its limit; the rest go through.
+  expectHttpError(429, /\/images$/);
+  let held = 0;
+  await page.route(/\/api\/v1\/inspections\/[^/]+\/images$/, async (route) => {
+    if (held > 0) return route.continue();
+    held += 1;
+    await route.fulfill({
+      status: 429,
+      headers: { 'Retry-After': '1', 'Content-Type': 'application/json' },
+      body: JSON.stringify({
+        error: {
+          code: 'too_many_requests',
+          message: 'Too many uploads from your account: wait 1 second and try again.',
+          requestId: 'test',
+        },
+      }),
+    });
+  });
+  await page.getByLabel('Images to upload').setInputFiles(await stills(2));
+  const uploads = page.getByRole('complementary', { name: 'Uploads' });
+  await expect(uploads).toContainText('The server asked for a pause: sending again in 1 s');
+  await expect(uploads).toContainText('Uploads: finished', { timeout: 30_000 });
+  expect(held).toBe(1);
+  await expect(page.getByTestId('image-strip').getByRole('button')).toHaveCount(2);
+});

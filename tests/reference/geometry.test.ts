@@ -1,4 +1,4 @@
-import { polygonArea as d3Area, polygonLength as d3Length } from 'd3-polygon';
+import { polygonArea as d3Area, polygonHull, polygonLength as d3Length } from 'd3-polygon';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { DomainError } from '../../packages/domain/src/errors';
@@ -64,6 +64,30 @@ describe('lengths and areas against d3-polygon', () => {
         const last = points[points.length - 1]!;
         const closing = Math.hypot(first[0] - last[0], first[1] - last[1]);
         expect(result.lengthMm).toBeCloseTo(d3Length(points) - closing, 6);
+      }),
+      { numRuns: 500 },
+    );
+  });
+});
+
+describe('largest extent against a pair-by-pair scan and d3-polygon hull', () => {
+  // Reference: every pair of points compared (the definition of §5.1, "largest vertex-to-vertex
+  // distance"), and d3-polygon's polygonHull, whose points must hold the farthest pair.
+  it('agrees on random outlines', () => {
+    fc.assert(
+      fc.property(fc.array(finePoint, { minLength: 3, maxLength: 40 }), (points) => {
+        fc.pre(!repeatsAPoint(points, true) && d3Area(points) !== 0);
+        let largest = 0;
+        for (const a of points)
+          for (const b of points) largest = Math.max(largest, Math.hypot(a[0] - b[0], a[1] - b[1]));
+        const hull = polygonHull(points)!;
+        let hullLargest = 0;
+        for (const a of hull)
+          for (const b of hull)
+            hullLargest = Math.max(hullLargest, Math.hypot(a[0] - b[0], a[1] - b[1]));
+        const result = measure(unit, { kind: 'polygon', points });
+        expect(result.maxExtentMm).toBeCloseTo(largest, 6);
+        expect(result.maxExtentMm).toBeCloseTo(hullLargest, 6);
       }),
       { numRuns: 500 },
     );

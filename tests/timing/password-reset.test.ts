@@ -3,6 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { freePort, signInCookie, startServerProcess } from '../../scripts/lib/server-process';
+import { median, shift } from './timing-stats';
 
 // Timed after every other test project has finished (vite.config.ts, sequence.groupOrder), so
 // that the machine is quiet: a timing compared within 20 % must not share the CPU with the suite.
@@ -52,25 +53,16 @@ describe('password reset requests', () => {
         known.push(await time(accounts[round % accounts.length]!));
         unknown.push(await time(`nobody-${round}@demo.test`));
       }
-      const median = (values: number[]) => {
-        const sorted = [...values].sort((a, b) => a - b);
-        const middle = sorted.length / 2;
-        return sorted.length % 2
-          ? sorted[Math.floor(middle)]!
-          : (sorted[middle - 1]! + sorted[middle]!) / 2;
-      };
-      // The shift between the two sets (Hodges–Lehmann: the median of every known − unknown
-      // difference) resists the single slow answers a shared two-core machine gives either side.
-      // Allowed: 20 % of the typical answer, and never less than 1 ms, which is the spread of the
-      // median itself between quiet runs here; a link issued before answering (a token, an audit
+      // The shift between the two sets (timing-stats.ts). Allowed: 20 % of the typical answer,
+      // and never less than 1 ms, which is the spread of the median itself between quiet runs here; a link issued before answering (a token, an audit
       // row and a rendered e-mail) or an SMTP wait costs more than that.
-      const shift = median(known.flatMap((k) => unknown.map((u) => k - u)));
+      const moved = shift(known, unknown);
       const allowed = Math.max(1, 0.2 * median(unknown));
       console.warn(
         `reset answers: known ${median(known).toFixed(2)} ms, unknown ${median(unknown).toFixed(2)} ms, ` +
-          `shift ${shift.toFixed(2)} ms, allowed ±${allowed.toFixed(2)} ms (30 of each)`,
+          `shift ${moved.toFixed(2)} ms, allowed ±${allowed.toFixed(2)} ms (30 of each)`,
       );
-      expect(Math.abs(shift)).toBeLessThan(allowed);
+      expect(Math.abs(moved)).toBeLessThan(allowed);
 
       const cookie = await signInCookie(base, demoAccounts.admin);
       const outbox = await fetch(`${base}/outbox/messages?pageSize=100`, { headers: { cookie } });

@@ -5,10 +5,9 @@ import express, { Router, type Express } from 'express';
 import helmet from 'helmet';
 import { paths } from './config/paths';
 import type { AppContext } from './context';
+import { trackRequestWrites } from './db/request-writes';
 import { authenticate } from './middleware/authenticate';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
-import { AppError } from './http/app-error';
-import { MAX_JSON_DEPTH, nestsWithin } from './lib/json-depth';
 import { requestLogger } from './middleware/request-logger';
 import { sameOrigin } from './middleware/same-origin';
 import { auditRoutes } from './modules/audit/audit.routes';
@@ -66,7 +65,7 @@ export function createApiRouter(ctx: AppContext): Router {
   api.use(reviewRoutes(ctx));
   api.use(planningRoutes(ctx));
   api.use(reportsRoutes(ctx));
-  api.use(calculationsRoutes());
+  api.use(calculationsRoutes(ctx));
   api.use(openApiRoutes());
   return api;
 }
@@ -102,29 +101,16 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   app.disable('x-powered-by');
   app.set('trust proxy', ctx.config.trustProxy);
   app.set('query parser', 'simple');
+  // Read by each route's JSON parser (http/route.ts), after its access and rate-limit checks.
+  app.set('json limit', ctx.config.jsonLimit);
 
+  app.use((_req, _res, next) => trackRequestWrites(next));
   app.use(requestLogger(ctx.logger));
   app.use(contentSecurityPolicy());
 
   const api = createApiRouter(ctx);
   app.locals.apiRouter = api;
-  app.use(
-    '/api/v1',
-    express.json({ limit: ctx.config.jsonLimit, strict: true }),
-    // A body nested deeper than any request of the API is refused before anything walks it.
-    (req: express.Request, _res: express.Response, next: express.NextFunction) =>
-      next(
-        nestsWithin(req.body, MAX_JSON_DEPTH)
-          ? undefined
-          : AppError.unprocessable(
-              `The request nests lists and objects more than ${MAX_JSON_DEPTH} deep; no request of Emberline does.`,
-            ),
-      ),
-    cookieParser(),
-    sameOrigin(ctx.config.publicOrigins),
-    api,
-    apiNotFound,
-  );
+  app.use('/api/v1', cookieParser(), sameOrigin(ctx.config.publicOrigins), api, apiNotFound);
   app.use('/api', apiNotFound);
 
   const webDist = options.webDist === undefined ? paths.webDist : options.webDist;

@@ -17,7 +17,10 @@ afterEach(() => {
   consoleError.mockRestore();
   // An error the server logged is a failure unless the test took it and checked it.
   expect(
-    takeServerErrors().map((line) => line.msg),
+    // With the error itself, so that a failure that happens once in a while can be read.
+    takeServerErrors().map((line) =>
+      line.err ? `${line.msg}: ${JSON.stringify(line.err).slice(0, 2000)}` : line.msg,
+    ),
     'the server logged an error',
   ).toEqual([]);
   expect(takeResponseProblems(), 'a response does not fit its schema').toEqual([]);

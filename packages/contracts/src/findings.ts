@@ -91,11 +91,7 @@ export const findingDetailsSchema = findingInputSchema.pick({
 export type FindingDetails = z.input<typeof findingDetailsSchema>;
 
 export const voidInputSchema = z.strictObject({
-  reason: z
-    .string()
-    .trim()
-    .min(3, { message: 'Say why this is void (at least 3 characters)' })
-    .max(500),
+  reason: noteText(500, { min: 3, message: 'Say why this is void (at least 3 characters)' }),
 });
 
 /** The calibration a measurement used, kept with the finding so that it can be checked later. */
@@ -166,7 +162,7 @@ export const coverageInputSchema = z.strictObject({
   /** The explicit result "no damage found" for the row. */
   noDamageFound: z.boolean().default(false),
   /** Why a row was not fully viewed (access, time, probe reach). */
-  reason: z.string().trim().max(500).default(''),
+  reason: noteText(500).default(''),
 });
 export type CoverageInput = z.input<typeof coverageInputSchema>;
 export type ParsedCoverageInput = z.output<typeof coverageInputSchema>;

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { noteText } from './text';
+import { nameText, noteText } from './text';
 import { intervalSchema } from './limits';
 import { baselineSchema, dueStateSchema } from './planning';
 import { forecastDimensionSchema, isoDateSchema } from './forecast';
@@ -11,12 +11,7 @@ const key = z
     message: 'use lower-case letters, digits and dashes, such as hpt1-blade',
   })
   .max(40);
-const label = (what: string) =>
-  z
-    .string()
-    .trim()
-    .min(1, { message: `Enter the ${what}` })
-    .max(120);
+const label = (what: string) => nameText(`Enter the ${what}`);
 
 export const rowKinds = ['combustor-liner', 'fuel-nozzle', 'vane', 'blade'] as const;
 export const rowKindSchema = z.enum(rowKinds);
@@ -70,7 +65,7 @@ export const engineModelRowSchema = z.strictObject({
   count: z.number().int().min(1, { message: 'a row has at least one position' }).max(400),
   numbering: numberingSchema,
   zones: z.array(key).min(1, { message: 'list at least one zone' }).max(30),
-  ports: z.array(z.string().trim().min(1).max(60)).max(20),
+  ports: z.array(nameText('Name the port', { max: 60 })).max(20),
 });
 export type EngineModelRow = z.infer<typeof engineModelRowSchema>;
 
@@ -141,10 +136,7 @@ export const engineStatusLabels: Record<EngineStatus, string> = {
 };
 
 const optionalText = (max: number) =>
-  z
-    .string()
-    .trim()
-    .max(max)
+  nameText('', { min: 0, max })
     .nullable()
     .transform((value) => (value ? value : null));
 

@@ -48,7 +48,7 @@ export const inspectionInputSchema = z.strictObject({
   engineId: z.string().min(1).max(64),
   date: isoDateSchema,
   reason: inspectionReasonSchema,
-  reasonDetail: z.string().trim().max(500).default(''),
+  reasonDetail: noteText(500).default(''),
   csn: z
     .number({ error: 'Enter the CSN at inspection' })
     .int({ message: 'cycles are whole numbers' })
@@ -90,11 +90,10 @@ export const inspectionDefaultsSchema = z.object({
 export type InspectionDefaults = z.infer<typeof inspectionDefaultsSchema>;
 
 export const voidInspectionInputSchema = z.strictObject({
-  reason: z
-    .string()
-    .trim()
-    .min(5, { message: 'Say why this inspection is voided (at least a few words)' })
-    .max(500),
+  reason: noteText(500, {
+    min: 5,
+    message: 'Say why this inspection is voided (at least a few words)',
+  }),
 });
 
 export const inspectionFlagCodes = [
@@ -231,11 +230,7 @@ export const inspectionListQuerySchema = z.strictObject({
 export const inspectionListResponseSchema = z.object({ items: z.array(inspectionSchema) });
 
 export const returnToDraftInputSchema = z.strictObject({
-  reason: z
-    .string()
-    .trim()
-    .min(5, { message: 'Say what the inspector should look at again' })
-    .max(1000),
+  reason: noteText(1000, { min: 5, message: 'Say what the inspector should look at again' }),
   /** Needed when signed dispositions are withdrawn by sending it back. */
   password: z.string().max(200).optional(),
 });

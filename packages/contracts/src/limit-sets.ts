@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { isoDateSchema } from './forecast';
 import { categorySchema, intervalSchema, ruleSchema } from './limits';
+import { nameText } from './text';
 
 export const limitSetStatuses = ['draft', 'published', 'superseded'] as const;
 export const limitSetStatusSchema = z.enum(limitSetStatuses);
@@ -65,17 +66,13 @@ export type LimitSet = z.infer<typeof limitSetSchema>;
 
 export const limitSetListResponseSchema = z.object({ items: z.array(limitSetSummarySchema) });
 
-const revisionText = z.string().trim().min(1, { message: 'Give the revision' }).max(40);
+const revisionText = nameText('Give the revision', { max: 40 });
 
 /** A new draft made from an existing revision: the engineer's starting point for the next one. */
 export const limitSetCopyInputSchema = z.strictObject({
   revision: revisionText,
-  title: z.string().trim().min(1).max(200),
-  manualReference: z
-    .string()
-    .trim()
-    .min(1, { message: 'Name the manual and its revision' })
-    .max(300),
+  title: nameText('Give the title', { max: 200 }),
+  manualReference: nameText('Name the manual and its revision', { max: 300 }),
   effectiveDate: isoDateSchema.nullable().default(null),
 });
 export type LimitSetCopyInput = z.input<typeof limitSetCopyInputSchema>;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { nameText } from './text';
 
 export const damageTypes = [
   'crack',
@@ -80,7 +81,11 @@ export const ruleSchema = z.strictObject({
    * A short title written in the library ("Cracks at the vane edges"), what people read where the
    * rule is named; the id stays beside it, small. Required before a revision is checked.
    */
-  title: z.string().trim().max(80, 'Keep the title to 80 characters or fewer').default(''),
+  title: nameText('Give the title', {
+    min: 0,
+    max: 80,
+    tooLong: 'Keep the title to 80 characters or fewer',
+  }).default(''),
   row: identifier,
   zones: z.array(identifier).min(1),
   damage: damageTypeSchema,
@@ -95,7 +100,7 @@ export const ruleSchema = z.strictObject({
   maxTotalPerAirfoil: limitValue,
   maxAirfoilsPerRow: countLimit,
   maxAdjacentAirfoils: countLimit,
-  reference: z.string().trim().max(300),
+  reference: nameText('Give the reference', { min: 0, max: 300 }),
 });
 export type Rule = z.infer<typeof ruleSchema>;
 
@@ -118,10 +123,20 @@ export const evaluationFindingSchema = z.strictObject({
 });
 export type EvaluationFinding = z.infer<typeof evaluationFindingSchema>;
 
+/**
+ * The most finding–rule matches one `POST /evaluations` may make (each is a judgement in the
+ * answer): a whole inspection of 500 findings with 10 rules matching each fits; beyond, 422.
+ * Judging and writing out a judgement costs about 1.5 µs here, so one request stays under 10 ms
+ * of the server's one JavaScript thread; 1,000 findings and 1,000 rules bound the reading.
+ */
+export const MAX_EVALUATION_MATCHES = 5_000;
+
 export const evaluationRequestSchema = z.strictObject({
   rows: z.record(identifier, z.strictObject({ count: z.number().int().min(1).max(1000) })),
-  rules: z.array(ruleSchema).max(5000),
-  findings: z.array(evaluationFindingSchema).max(5000),
+  rules: z.array(ruleSchema).max(1000, 'At most 1,000 rules go in one evaluation'),
+  findings: z
+    .array(evaluationFindingSchema)
+    .max(1000, 'At most 1,000 findings go in one evaluation'),
 });
 export type EvaluationRequest = z.infer<typeof evaluationRequestSchema>;
 

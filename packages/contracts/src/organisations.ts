@@ -23,11 +23,7 @@ export type OrganisationInput = z.infer<typeof organisationInputSchema>;
 export const contactInputSchema = z.strictObject({
   name: nameText('Enter the contact’s name'),
   email: emailSchema,
-  role: z
-    .string()
-    .trim()
-    .min(1, { message: 'Say what they do, such as technical records' })
-    .max(80),
+  role: nameText('Say what they do, such as technical records', { max: 80 }),
   /** Gets each released inspection's signed report by e-mail. */
   receivesReports: z.boolean().default(true),
   /** Gets the urgent notices: an outcome ordering removal before the next flight. */

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { forecastDimensionSchema, isoDateSchema } from './forecast';
 import { beyondActionSchema, intervalSchema } from './limits';
+import { noteText } from './text';
 
 /** Where an engine stands against its inspections (DESIGN §5.6), computed when read. */
 export const dueStates = [
@@ -116,7 +117,7 @@ export type EngineDue = z.infer<typeof engineDueSchema>;
 
 export const bookingInputSchema = z.strictObject({
   plannedDate: isoDateSchema,
-  note: z.string().trim().max(500).default(''),
+  note: noteText(500).default(''),
 });
 export type BookingInput = z.input<typeof bookingInputSchema>;
 export type ParsedBookingInput = z.output<typeof bookingInputSchema>;

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { inspectionFlagCodes, inspectionSchema } from './inspections';
 import { beyondActionSchema, categorySchema, intervalSchema } from './limits';
+import { nameText, noteText } from './text';
 
 /**
  * An engineer's decision on one finding (DESIGN §5.5): serviceable; a repeat inspection at an
@@ -59,17 +60,17 @@ export const signatureMeanings: Record<SignatureKind, string> = {
 };
 
 const password = z.string().min(1, { message: 'Enter your password to sign' }).max(200);
-const words = (min: number, message: string) => z.string().trim().min(min, { message }).max(2000);
+const words = (min: number, message: string) => noteText(2000, { min, message });
 
 /** What an engineer signs about one finding (DESIGN §5.5, §6). */
 export const dispositionInputSchema = z.strictObject({
   decision: decisionSchema,
   rationale: words(3, 'Say why, in a few words'),
   /** The type certificate holder's or the authority's reference; needed for a concession. */
-  concessionRef: z.string().trim().max(200).nullable().default(null),
+  concessionRef: nameText('Give the reference', { min: 0, max: 200 }).nullable().default(null),
   /** The current disposition this one corrects, and why. */
   supersedesId: z.string().max(64).nullable().default(null),
-  supersedeReason: z.string().trim().max(2000).nullable().default(null),
+  supersedeReason: noteText(2000).nullable().default(null),
   /** The answer to "possibly the same damage as an earlier finding". */
   recurrence: z
     .strictObject({

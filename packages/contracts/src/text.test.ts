@@ -41,3 +41,36 @@ describe('names and notes people type', () => {
     expect(note.safeParse('nul \u0000').success).toBe(false);
   });
 });
+
+describe('every free text of the API', () => {
+  // One field of each kind, as the forms send it: a control character is refused in each, a line
+  // break kept where a note may have one.
+  const escape = 'Seen \u001b[2J here';
+  it('refuses control characters in rule titles, references, booking notes, reasons and rationales', async () => {
+    const { ruleSchema } = await import('./limits');
+    const { bookingInputSchema } = await import('./planning');
+    const { voidInputSchema } = await import('./findings');
+    const { voidInspectionInputSchema, returnToDraftInputSchema } = await import('./inspections');
+    const { dispositionFormSchema } = await import('./review');
+    const { limitSetCopyInputSchema } = await import('./limit-sets');
+    const { contactInputSchema } = await import('./organisations');
+    const titleField = ruleSchema.shape.title;
+    expect(titleField.safeParse(escape).success).toBe(false);
+    expect(titleField.safeParse('Cracks at the\nedges').success).toBe(false);
+    expect(titleField.parse('Cracks at the edges')).toBe('Cracks at the edges');
+    expect(ruleSchema.shape.reference.safeParse('§72-00 \u0000').success).toBe(false);
+    expect(bookingInputSchema.shape.note.safeParse(escape).success).toBe(false);
+    expect(bookingInputSchema.shape.note.parse('Hangar 2\nMorning shift')).toBe(
+      'Hangar 2\nMorning shift',
+    );
+    expect(voidInputSchema.shape.reason.safeParse(`Wrong vane ${escape}`).success).toBe(false);
+    expect(voidInspectionInputSchema.shape.reason.safeParse(escape).success).toBe(false);
+    expect(returnToDraftInputSchema.shape.reason.safeParse(escape).success).toBe(false);
+    expect(dispositionFormSchema.shape.rationale.safeParse(escape).success).toBe(false);
+    expect(
+      dispositionFormSchema.shape.rationale.parse('Within limits.\nRe-check in 400 cycles.'),
+    ).toBe('Within limits.\nRe-check in 400 cycles.');
+    expect(limitSetCopyInputSchema.shape.manualReference.safeParse(escape).success).toBe(false);
+    expect(contactInputSchema.shape.role.safeParse('\u200b').success).toBe(false);
+  });
+});

@@ -7,7 +7,7 @@ import { roleSchema } from './roles';
 export const userStatusSchema = z.enum(['active', 'invited', 'disabled']);
 export type UserStatus = z.infer<typeof userStatusSchema>;
 
-const referenceSchema = z.string().trim().min(1, { message: 'Give the reference' }).max(100);
+const referenceSchema = nameText('Give the reference', { max: 100 });
 
 /**
  * An engineer's authority to sign dispositions (DESIGN §5.5): the reference of the authorisation,

@@ -505,3 +505,25 @@ export function evaluate(
   const evaluations = prepareRules(input.rows, input.rules)(input.findings, options);
   return { findings: evaluations, engine: engineVerdict(evaluations) };
 }
+
+/**
+ * How many finding–rule matches an evaluation makes (same row, damage and zone): each is one
+ * judgement in its answer, and what its cost grows with. Counted without judging anything.
+ */
+export function countMatches(input: Pick<EvaluationRequest, 'rules' | 'findings'>): number {
+  const byKind = new Map<string, { anyZone: number; zones: Map<string, number> }>();
+  for (const rule of input.rules) {
+    const key = `${rule.row}\u0000${rule.damage}`;
+    let kind = byKind.get(key);
+    if (!kind) byKind.set(key, (kind = { anyZone: 0, zones: new Map() }));
+    if (rule.zones.includes('*')) kind.anyZone += 1;
+    else
+      for (const zone of new Set(rule.zones)) kind.zones.set(zone, (kind.zones.get(zone) ?? 0) + 1);
+  }
+  let matches = 0;
+  for (const finding of input.findings) {
+    const kind = byKind.get(`${finding.row}\u0000${finding.damage}`);
+    if (kind) matches += kind.anyZone + (kind.zones.get(finding.zone) ?? 0);
+  }
+  return matches;
+}

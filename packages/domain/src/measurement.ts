@@ -117,18 +117,21 @@ function measureReference(
   };
 }
 
+/** Maps shape point `index` into the calibration plane, refusing a point beyond its horizon. */
+function toPlanePoint(h: Homography, cornerSide: number, point: Point, index: number): Point {
+  const mapped = homogeneousScale(h, point) * cornerSide > 0 ? applyHomography(h, point) : null;
+  if (!mapped) {
+    throw new DomainError(
+      `point ${index + 1} lies beyond the horizon of the calibration plane: draw on the calibrated surface`,
+      ['shape', 'points', index],
+    );
+  }
+  return mapped;
+}
+
 /** Maps shape points into the calibration plane, refusing points beyond its horizon. */
 function toPlane(h: Homography, cornerSide: number, points: readonly Point[]): Point[] {
-  return points.map((point, index) => {
-    const mapped = homogeneousScale(h, point) * cornerSide > 0 ? applyHomography(h, point) : null;
-    if (!mapped) {
-      throw new DomainError(
-        `point ${index + 1} lies beyond the horizon of the calibration plane: draw on the calibrated surface`,
-        ['shape', 'points', index],
-      );
-    }
-    return mapped;
-  });
+  return points.map((point, index) => toPlanePoint(h, cornerSide, point, index));
 }
 
 interface PlaneModel {
@@ -146,10 +149,35 @@ function planeModel(
   return { h, side: Math.sign(homogeneousScale(h, corners[0]!)) };
 }
 
-/** The one figure that the plane uncertainty is taken of: length for a polyline, area for a polygon. */
+/**
+ * The one figure that the plane uncertainty is taken of: length for a polyline, area for a
+ * polygon. Mapped and summed in one pass without building the mapped points, since it is taken
+ * once for each of the sixteen corner nudges.
+ */
 function planeFigure(model: PlaneModel, shape: Shape, points: readonly Point[]): number {
-  const mapped = toPlane(model.h, model.side, points);
-  return shape.kind === 'polyline' ? polylineLength(mapped) : polygonArea(mapped);
+  const { h, side } = model;
+  let total = 0;
+  let firstX = 0;
+  let firstY = 0;
+  let lastX = 0;
+  let lastY = 0;
+  for (let index = 0; index < points.length; index += 1) {
+    const [x, y] = points[index]!;
+    const w = h[6] * x + h[7] * y + h[8];
+    if (!(w * side > 0) || Math.abs(w) < 1e-12) toPlanePoint(h, side, points[index]!, index);
+    const px = (h[0] * x + h[1] * y + h[2]) / w;
+    const py = (h[3] * x + h[4] * y + h[5]) / w;
+    if (index === 0) {
+      firstX = px;
+      firstY = py;
+    } else if (shape.kind === 'polyline')
+      total += Math.sqrt((px - lastX) * (px - lastX) + (py - lastY) * (py - lastY));
+    else total += lastX * py - px * lastY;
+    lastX = px;
+    lastY = py;
+  }
+  if (shape.kind === 'polyline') return total;
+  return Math.abs(total + lastX * firstY - firstX * lastY) / 2;
 }
 
 const nudges: Point[] = [
@@ -159,6 +187,37 @@ const nudges: Point[] = [
   [0, -1],
 ];
 
+const cross = (a: Point, b: Point) => a[0] * b[1] - b[0] * a[1];
+
+/**
+ * What moving shape point `index` (already mapped into the plane as `moved`) changes the figure
+ * by. Only the point's own segments (a polyline) or its two shoelace terms (a polygon) change, so
+ * each nudge costs the same whatever the number of points: a 2,000-point outline is measured in
+ * milliseconds instead of seconds. `twiceSignedArea` is the polygon's signed shoelace sum.
+ */
+function figureChange(
+  shape: Shape,
+  mapped: readonly Point[],
+  index: number,
+  moved: Point,
+  twiceSignedArea: number,
+): number {
+  const count = mapped.length;
+  const at = mapped[index]!;
+  if (shape.kind === 'polyline') {
+    let change = 0;
+    if (index > 0) change += distance(mapped[index - 1]!, moved) - distance(mapped[index - 1]!, at);
+    if (index < count - 1)
+      change += distance(moved, mapped[index + 1]!) - distance(at, mapped[index + 1]!);
+    return change;
+  }
+  const before = mapped[(index - 1 + count) % count]!;
+  const after = mapped[(index + 1) % count]!;
+  const termChange =
+    cross(before, moved) + cross(moved, after) - cross(before, at) - cross(at, after);
+  return (Math.abs(twiceSignedArea + termChange) - Math.abs(twiceSignedArea)) / 2;
+}
+
 /**
  * First-order worst case: for each corner and each shape point, the largest change of the figure
  * when that one point moves u px along +x, −x, +y or −y, summed over all points.
@@ -167,6 +226,7 @@ function planeUncertainty(
   calibration: PlaneCalibration,
   shape: Shape,
   base: PlaneModel,
+  mapped: readonly Point[],
   u: number,
   figure: number,
 ): number {
@@ -191,13 +251,18 @@ function planeUncertainty(
     }
     total += largest;
   }
+  let twiceSignedArea = 0;
+  if (shape.kind === 'polygon')
+    for (let index = 0; index < mapped.length; index += 1)
+      twiceSignedArea += cross(mapped[index]!, mapped[(index + 1) % mapped.length]!);
   shape.points.forEach((point, index) => {
     let largest = 0;
     for (const [dx, dy] of nudges) {
-      const moved = shape.points.map((p, i): Point =>
-        i === index ? [point[0] + dx * u, point[1] + dy * u] : p,
+      const moved = toPlanePoint(base.h, base.side, [point[0] + dx * u, point[1] + dy * u], index);
+      largest = Math.max(
+        largest,
+        Math.abs(figureChange(shape, mapped, index, moved, twiceSignedArea)),
       );
-      largest = Math.max(largest, Math.abs(planeFigure(base, shape, moved) - figure));
     }
     total += largest;
   });
@@ -213,7 +278,7 @@ function measurePlane(calibration: PlaneCalibration, shape: Shape, u: number): M
     return {
       ...empty,
       lengthMm,
-      uncertaintyMm: planeUncertainty(calibration, shape, model, u, lengthMm),
+      uncertaintyMm: planeUncertainty(calibration, shape, model, mapped, u, lengthMm),
     };
   }
   const areaMm2 = polygonArea(mapped);
@@ -222,7 +287,7 @@ function measurePlane(calibration: PlaneCalibration, shape: Shape, u: number): M
     areaMm2,
     perimeterMm: polygonPerimeter(mapped),
     maxExtentMm: maxExtent(mapped),
-    uncertaintyMm2: planeUncertainty(calibration, shape, model, u, areaMm2),
+    uncertaintyMm2: planeUncertainty(calibration, shape, model, mapped, u, areaMm2),
   };
 }
 

@@ -60,6 +60,10 @@ const envSchema = z.object({
   LOGIN_MAX_FAILURES: positiveInt('LOGIN_MAX_FAILURES').default(10),
   LOGIN_MAX_FAILURES_PER_IP: positiveInt('LOGIN_MAX_FAILURES_PER_IP').default(30),
   LOGIN_WINDOW_MINUTES: positiveInt('LOGIN_WINDOW_MINUTES').default(15),
+  // Across addresses: this many failures in LOGIN_ACCOUNT_WINDOW_HOURS before each further try
+  // from an address the owner does not use waits twice as long as the last (decision 009).
+  LOGIN_MAX_FAILURES_PER_ACCOUNT: positiveInt('LOGIN_MAX_FAILURES_PER_ACCOUNT').default(20),
+  LOGIN_ACCOUNT_WINDOW_HOURS: positiveInt('LOGIN_ACCOUNT_WINDOW_HOURS').default(24),
   TRUST_PROXY: z
     .string()
     .default('false')
@@ -127,6 +131,8 @@ export interface Config {
   bcryptCost: number;
   loginMaxFailures: number;
   loginMaxFailuresPerIp: number;
+  loginMaxFailuresPerAccount: number;
+  loginAccountWindowMs: number;
   loginWindowMs: number;
   trustProxy: boolean | number | string;
   cookieSecure: 'auto' | boolean;
@@ -176,6 +182,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     bcryptCost: e.BCRYPT_COST,
     loginMaxFailures: e.LOGIN_MAX_FAILURES,
     loginMaxFailuresPerIp: e.LOGIN_MAX_FAILURES_PER_IP,
+    loginMaxFailuresPerAccount: e.LOGIN_MAX_FAILURES_PER_ACCOUNT,
+    loginAccountWindowMs: e.LOGIN_ACCOUNT_WINDOW_HOURS * 3_600_000,
     loginWindowMs: e.LOGIN_WINDOW_MINUTES * 60_000,
     trustProxy: e.TRUST_PROXY,
     cookieSecure: e.COOKIE_SECURE === 'auto' ? 'auto' : e.COOKIE_SECURE === 'true',

@@ -2,6 +2,7 @@ import { createHmac } from 'node:crypto';
 import Database from 'better-sqlite3';
 import { drizzle, type BetterSQLite3Database } from 'drizzle-orm/better-sqlite3';
 import * as schema from './schema';
+import { countCommit } from './request-writes';
 
 export type Db = BetterSQLite3Database<typeof schema>;
 /** A database handle or an open transaction: repositories accept either. */
@@ -33,9 +34,13 @@ export function openDatabase(file: string, recordsKey: Buffer): DatabaseHandle {
   return { db, sqlite, close: () => sqlite.close() };
 }
 
-/** Runs `work` in one `BEGIN IMMEDIATE` transaction: one business action, one transaction. */
+/**
+ * Runs `work` in one `BEGIN IMMEDIATE` transaction: one business action, one transaction. A
+ * commit is counted for the request it serves, so that an error after it is not answered with
+ * "nothing was changed" (request-writes.ts).
+ */
 export function inTransaction<T>(db: Db, work: (tx: DbOrTx) => T): T {
-  return db.transaction((tx) => work(tx), { behavior: 'immediate' });
+  return countCommit(() => db.transaction((tx) => work(tx), { behavior: 'immediate' }));
 }
 
 /** The better-sqlite3 connection behind a Drizzle handle, for tests and benchmarks that need raw SQL. */

@@ -1,8 +1,16 @@
-import type { NextFunction, Request, RequestHandler, Response, Router } from 'express';
+import express, {
+  type NextFunction,
+  type Request,
+  type RequestHandler,
+  type Response,
+  type Router,
+} from 'express';
+import { MAX_JSON_DEPTH, nestsWithin } from '../lib/json-depth';
 import type { z } from 'zod';
 import { allows, type Access } from '@emberline/contracts/permissions';
 import { AppError } from './app-error';
 import { optionalPrincipalOf, type Principal } from './principal';
+import type { RequestLimiter } from './rate-limit';
 import { routePolicy, type RouteKey } from './route-policy';
 import { validate } from './validate';
 
@@ -17,6 +25,8 @@ export interface RouteSpec {
   response?: z.ZodType;
   /** Success status when not 200 (201 created, 202 accepted, 204 no content). */
   status?: number;
+  /** Counts the request against a rate limit (429) before its body is read or checked. */
+  limit?: RequestLimiter;
 }
 
 type Parsed<T> = T extends z.ZodType ? z.output<T> : undefined;
@@ -43,6 +53,33 @@ export type RouteHandler<S extends RouteSpec> = (
   res: Response<RouteResponse<S>, RouteLocals<S>>,
   next: NextFunction,
 ) => unknown;
+
+const jsonParsers = new Map<string, RequestHandler>();
+
+/**
+ * Reads a JSON body (up to the app's `json limit`, 413 beyond) once the caller may make the
+ * request and is within its rate limit, so that a refused request costs no parsing; then refuses
+ * a body nested deeper than any request of the API (422) before anything walks it. Other kinds
+ * of body are left to the route.
+ */
+const jsonBody: RequestHandler = (req, res, next) => {
+  const limit = String(req.app.get('json limit') ?? '1mb');
+  let parser = jsonParsers.get(limit);
+  if (!parser) {
+    parser = express.json({ limit, strict: true });
+    jsonParsers.set(limit, parser);
+  }
+  parser(req, res, (error?: unknown) => {
+    if (error) return next(error);
+    if (!nestsWithin(req.body, MAX_JSON_DEPTH))
+      return next(
+        AppError.unprocessable(
+          `The request nests lists and objects more than ${MAX_JSON_DEPTH} deep; no request of Emberline does.`,
+        ),
+      );
+    next();
+  });
+};
 
 /** Every registered route's spec, for the OpenAPI document. */
 export const routeSpecs = new Map<RouteKey, RouteSpec>();
@@ -82,9 +119,13 @@ export function route<const S extends RouteSpec>(
   const [verb, path] = key.split(' ') as [string, string];
   const method = verb.toLowerCase() as Method;
   const validation = spec.body || spec.query || spec.params ? [validate(spec)] : [];
+  const { limit } = spec;
+  const limiting: RequestHandler[] = limit ? [(req, res, next) => (limit(req, res), next())] : [];
   router[method](
     path,
     requireAccess(routePolicy[key]),
+    ...limiting,
+    jsonBody,
     ...validation,
     ...(handlers as RequestHandler[]),
   );

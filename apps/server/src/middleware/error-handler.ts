@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import type { ApiError } from '@emberline/contracts/errors';
 import { DomainError } from '@emberline/domain/errors';
+import { requestSavedAChange } from '../db/request-writes';
 import { AppError } from '../http/app-error';
 
 interface HttpishError {
@@ -18,10 +19,19 @@ function fromLockTrigger(error: { code?: unknown; message?: unknown }): AppError
   return AppError.conflict(`${words.charAt(0).toUpperCase()}${words.slice(1)}.`);
 }
 
+// A disk (or quota) that is full, as the file system or SQLite says so.
+const fullStorageCodes = new Set(['ENOSPC', 'EDQUOT', 'SQLITE_FULL']);
+
 /** Errors thrown by body parsing and similar middleware, mapped into AppErrors. */
 function fromMiddleware(error: HttpishError): AppError | null {
   const lock = fromLockTrigger(error as { code?: unknown; message?: unknown });
   if (lock) return lock;
+  if (fullStorageCodes.has(String((error as { code?: unknown }).code)))
+    return new AppError(
+      507,
+      'storage_full',
+      "The server's storage is full: nothing of this request was kept. Tell your administrator, who can make room; what is stored already can still be read.",
+    );
   switch (error.type) {
     case 'entity.too.large':
       return new AppError(413, 'payload_too_large', 'The request is too large');
@@ -77,7 +87,9 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
     new AppError(
       500,
       'internal_error',
-      `Something went wrong on the server. Nothing was changed by this request; if it happens again, give this reference to your administrator: ${requestId}`,
+      requestSavedAChange()
+        ? `Something went wrong on the server after this request's change was saved: reload the page to see where things stand. If it happens again, give this reference to your administrator: ${requestId}`
+        : `Something went wrong on the server. Nothing was changed by this request; if it happens again, give this reference to your administrator: ${requestId}`,
     );
   if (res.headersSent) {
     res.destroy();

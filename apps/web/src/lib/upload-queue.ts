@@ -22,6 +22,8 @@ interface Entry {
   fields: Record<string, string>;
   onDone?: () => void;
   request?: XMLHttpRequest;
+  /** After a 429: not sent again before this time (ms since the epoch). */
+  notBefore?: number;
 }
 
 // Two files in flight: the server's pipeline takes two at a time, and each file gets its own
@@ -103,6 +105,7 @@ export class UploadQueue {
     for (const entry of all) {
       if (running >= PARALLEL) return;
       if (entry.item.status !== 'queued') continue;
+      if (entry.notBefore && entry.notBefore > Date.now()) continue;
       running += 1;
       this.send(entry);
     }
@@ -122,6 +125,19 @@ export class UploadQueue {
     request.onload = () => {
       const body = request.response as (UploadResponse & { error?: { message: string } }) | null;
       const refusal = body?.rejected?.[0];
+      if (request.status === 429) {
+        // The server's upload limit: the file waits its turn and goes again by itself.
+        const seconds = Math.max(1, Number(request.getResponseHeader('Retry-After')) || 5);
+        entry.notBefore = Date.now() + seconds * 1000;
+        this.update(entry, {
+          status: 'queued',
+          progress: 0,
+          message: `The server asked for a pause: sending again in ${seconds} s`,
+        });
+        setTimeout(() => this.pump(), seconds * 1000);
+        this.pump();
+        return;
+      }
       if (request.status === 201)
         this.update(entry, { status: 'done', progress: 1, message: null });
       else if (refusal?.code === 'duplicate')

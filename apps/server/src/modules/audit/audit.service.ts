@@ -55,7 +55,12 @@ export function createAuditService(ctx: AppContext) {
     findingHistory(principal: Principal, id: string): HistoryEntry[] {
       const finding = findFinding(db, id);
       if (!finding) throw AppError.notFound('There is no such finding');
-      const inspection = visibleInspection(db, principal, finding.inspectionId);
+      const inspection = visibleInspection(
+        db,
+        principal,
+        finding.inspectionId,
+        'There is no such finding',
+      );
       return history(
         [{ entityType: 'finding', ids: [id] }],
         rowLabels(inspectionModelRows(db, inspection)),

@@ -129,6 +129,88 @@ describe('sign-in', () => {
     expect(blocked.status).toBe(429);
   });
 
+  it('holds the limit under thirty parallel guesses: at most ten passwords are checked', async () => {
+    const t = await start();
+    const answers = await Promise.all(
+      Array.from({ length: 30 }, (_, index) =>
+        request(t.app)
+          .post('/api/v1/auth/login')
+          .send({ email: demoAccounts.planner, password: `parallel-guess-${index}` }),
+      ),
+    );
+    const statuses = answers.map((answer) => answer.status);
+    // A 401 is a password that bcrypt compared; a 429 was refused before bcrypt.
+    expect(statuses.filter((status) => status === 401).length).toBeLessThanOrEqual(10);
+    expect(statuses.filter((status) => status === 429).length).toBeGreaterThanOrEqual(20);
+    expect(statuses.every((status) => status === 401 || status === 429)).toBe(true);
+    const right = await request(t.app)
+      .post('/api/v1/auth/login')
+      .send({ email: demoAccounts.planner, password: DEMO_PASSWORD });
+    expect(right.status).toBe(429);
+  });
+
+  it('counts wrong current passwords of a password change with the sign-ins', async () => {
+    const t = await start();
+    const cookie = await t.signIn(demoAccounts.inspector);
+    for (let attempt = 0; attempt < 10; attempt += 1) {
+      const wrong = await request(t.app)
+        .post('/api/v1/auth/password')
+        .set('Cookie', cookie)
+        .send({ currentPassword: `wrong-${attempt}`, newPassword: 'a-new-password-2026' });
+      expect(wrong.status, `attempt ${attempt + 1}`).toBe(422);
+    }
+    const eleventh = await request(t.app)
+      .post('/api/v1/auth/password')
+      .set('Cookie', cookie)
+      .send({ currentPassword: DEMO_PASSWORD, newPassword: 'a-new-password-2026' });
+    expect(eleventh.status).toBe(429);
+    const signIn = await request(t.app)
+      .post('/api/v1/auth/login')
+      .send({ email: demoAccounts.inspector, password: DEMO_PASSWORD });
+    expect(signIn.status).toBe(429);
+  });
+
+  it('slows guesses at one account from many addresses, while the owner gets in from their usual address', async () => {
+    // Behind a proxy that names the client (TRUST_PROXY): each guess from an address of its own.
+    const t = await start({ env: { TRUST_PROXY: 'true' } });
+    const login = (ip: string, password: string) =>
+      request(t.app)
+        .post('/api/v1/auth/login')
+        .set('X-Forwarded-For', ip)
+        .send({ email: demoAccounts.engineer, password });
+    const home = '198.51.100.7';
+    expect((await login(home, DEMO_PASSWORD)).status).toBe(200);
+    t.clock.advance(3_600_000);
+
+    // Twenty guesses from twenty addresses: each pair and each address is far below its limit.
+    for (let guess = 1; guess <= 20; guess += 1)
+      expect((await login(`203.0.113.${guess}`, `guess-${guess}`)).status, `guess ${guess}`).toBe(
+        401,
+      );
+    // Past the account's free count, each further try waits twice as long as the one before.
+    const held = await login('203.0.113.21', 'guess-21');
+    expect(held.status).toBe(429);
+    expect(held.headers['retry-after']).toBe('1');
+    expect(held.body.error.message).toMatch(/sign in from where you usually do/);
+    t.clock.advance(1_100);
+    expect((await login('203.0.113.22', 'guess-22')).status).toBe(401);
+    const longer = await login('203.0.113.23', 'guess-23');
+    expect(longer.status).toBe(429);
+    expect(longer.headers['retry-after']).toBe('2');
+    // The right password from a new address waits too; from the owner's usual address it is in.
+    expect((await login('192.0.2.99', DEMO_PASSWORD)).status).toBe(429);
+    expect((await login(home, DEMO_PASSWORD)).status).toBe(200);
+    // The delays grow to the window and no further: at most four tries an hour keep coming in.
+    for (let round = 0; round < 12; round += 1) {
+      t.clock.advance(15 * 60_000);
+      await login(`203.0.113.${100 + round}`, `late-guess-${round}`);
+    }
+    const capped = await login('203.0.113.200', 'another');
+    expect(capped.status).toBe(429);
+    expect(Number(capped.headers['retry-after'])).toBeLessThanOrEqual(15 * 60);
+    expect((await login(home, DEMO_PASSWORD)).status).toBe(200);
+  });
+
   it('refuses a password over 72 bytes with a clear message', async () => {
     const t = await start();
     const response = await request(t.app)
@@ -306,6 +388,23 @@ describe('request safety', () => {
         .send(body);
       expect(same.status, host).toBe(200);
     }
+  });
+
+  it('holds a request without an Origin to its Referer', async () => {
+    const t = await start();
+    const body = { email: demoAccounts.admin, password: DEMO_PASSWORD };
+    const elsewhere = await request(t.app)
+      .post('/api/v1/auth/login')
+      .set('Host', 'localhost:8080')
+      .set('Referer', 'https://evil.example/page')
+      .send(body);
+    expect(elsewhere.status).toBe(403);
+    const ours = await request(t.app)
+      .post('/api/v1/auth/login')
+      .set('Host', 'localhost:8080')
+      .set('Referer', 'http://localhost:8080/sign-in')
+      .send(body);
+    expect(ours.status).toBe(200);
   });
 
   it('accepts a configured public origin behind a proxy', async () => {

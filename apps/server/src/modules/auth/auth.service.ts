@@ -21,8 +21,13 @@ import {
 } from '../users/users.repository';
 import { toSessionUser } from '../users/user-view';
 import { passwordResetEmail } from './auth-emails';
-import { clearFailures, countFailuresSince, recordFailures } from './login-failures.repository';
-import { assertNotThrottled, countFailure } from './password-check';
+import {
+  clearFailures,
+  clearFailuresStartingWith,
+  countFailuresSince,
+  recordFailures,
+} from './login-failures.repository';
+import { beginPasswordCheck, failureKeys } from './password-check';
 import { hashPassword, verifyPassword } from './passwords';
 import { signSessionToken, verifySessionToken } from './session-token';
 import {
@@ -83,13 +88,17 @@ export function createAuthService(ctx: AppContext) {
 
   return {
     async login(input: LoginInput, meta: RequestMeta): Promise<IssuedSession> {
-      // Checked before bcrypt: bcryptjs is pure JavaScript, and a flood must not reach it.
-      assertNotThrottled(ctx, input.email, meta);
+      // Limited and counted before bcrypt: bcryptjs is pure JavaScript, and a flood must not
+      // reach it, nor parallel guesses slip past the count.
+      const attempt = beginPasswordCheck(ctx, input.email, meta);
       const user = findUserByEmail(db, input.email);
-      const passwordMatches = await verifyPassword(input.password, user?.passwordHash ?? null);
+      const passwordMatches = await verifyPassword(
+        input.password,
+        user?.passwordHash ?? null,
+        config.bcryptCost,
+      );
       if (!user || !passwordMatches || user.disabledAt) {
         const now = ctx.now();
-        countFailure(ctx, input.email, meta);
         logger.warn(
           {
             email: input.email,
@@ -103,7 +112,7 @@ export function createAuthService(ctx: AppContext) {
         );
         throw AppError.unauthenticated('The e-mail address or the password is not right');
       }
-      clearFailures(db, `account:${input.email}`);
+      attempt.succeeded();
       const session = await openSession(user, meta, 'auth.sign-in');
       logger.info(
         {
@@ -160,12 +169,14 @@ export function createAuthService(ctx: AppContext) {
     ): Promise<IssuedSession> {
       const user = findUserById(db, principal.user.id);
       if (!user) throw AppError.unauthenticated();
-      if (!(await verifyPassword(input.currentPassword, user.passwordHash))) {
+      const attempt = beginPasswordCheck(ctx, user.email, meta);
+      if (!(await verifyPassword(input.currentPassword, user.passwordHash, config.bcryptCost))) {
         throw new AppError(422, 'wrong_password', 'The current password is not right', {
           fields: { currentPassword: ['The current password is not right'] },
           form: [],
         });
       }
+      attempt.succeeded();
       const passwordHash = await hashPassword(input.newPassword, config.bcryptCost);
       const now = ctx.now();
       inTransaction(db, (tx) => {
@@ -241,7 +252,10 @@ export function createAuthService(ctx: AppContext) {
         consumeToken(tx, row, now);
         updateUser(tx, row.userId, { passwordHash, passwordChangedAt: now });
         revokeUserSessions(tx, row.userId, now, 'password-reset');
-        clearFailures(tx, `account:${findUserById(tx, row.userId)?.email ?? ''}`);
+        // A new password ends the guessing of the old one: the account starts afresh everywhere.
+        const email = findUserById(tx, row.userId)?.email ?? '';
+        clearFailures(tx, failureKeys(email, '').account);
+        clearFailuresStartingWith(tx, failureKeys(email, '').pair);
         appendAudit(tx, now, {
           actorUserId: row.userId,
           action: 'user.password-reset',

@@ -1,4 +1,4 @@
-import { and, count, eq, gte, lt } from 'drizzle-orm';
+import { and, count, desc, eq, gte, inArray, lt, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../../db/client';
 import { loginFailures } from '../../db/schema';
 
@@ -12,14 +12,40 @@ export function countFailuresSince(db: DbOrTx, key: string, since: Date): number
   );
 }
 
-export function recordFailures(db: DbOrTx, keys: string[], at: Date): void {
-  db.insert(loginFailures)
+/** When the latest failure of a key was counted, if any is kept. */
+export function latestFailure(db: DbOrTx, key: string): Date | undefined {
+  return db
+    .select({ at: loginFailures.at })
+    .from(loginFailures)
+    .where(eq(loginFailures.key, key))
+    .orderBy(desc(loginFailures.at))
+    .limit(1)
+    .get()?.at;
+}
+
+/** Counts a failure under each key; the ids of the rows, to take them back on success. */
+export function recordFailures(db: DbOrTx, keys: string[], at: Date): number[] {
+  return db
+    .insert(loginFailures)
     .values(keys.map((key) => ({ key, at })))
-    .run();
+    .returning({ id: loginFailures.id })
+    .all()
+    .map((row) => row.id);
+}
+
+export function deleteFailures(db: DbOrTx, ids: number[]): void {
+  if (ids.length) db.delete(loginFailures).where(inArray(loginFailures.id, ids)).run();
 }
 
 export function clearFailures(db: DbOrTx, key: string): void {
   db.delete(loginFailures).where(eq(loginFailures.key, key)).run();
+}
+
+/** Clears every key that begins with `prefix` (compared as text, without LIKE's wildcards). */
+export function clearFailuresStartingWith(db: DbOrTx, prefix: string): void {
+  db.delete(loginFailures)
+    .where(sql`substr(${loginFailures.key}, 1, ${prefix.length}) = ${prefix}`)
+    .run();
 }
 
 export function pruneFailures(db: DbOrTx, before: Date): void {

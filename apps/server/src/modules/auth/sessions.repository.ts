@@ -1,4 +1,4 @@
-import { and, eq, isNull, ne, sql } from 'drizzle-orm';
+import { and, eq, gte, isNull, ne, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../../db/client';
 import { sessions } from '../../db/schema';
 
@@ -53,4 +53,15 @@ export function revokeUserSessions(
     .set({ revokedAt: at, revokedReason: reason })
     .where(and(...conditions))
     .run().changes;
+}
+
+/** Whether the user has opened a session from this address since `since`. */
+export function hasSignedInFrom(db: DbOrTx, userId: string, ip: string, since: Date): boolean {
+  return Boolean(
+    db
+      .select({ id: sessions.id })
+      .from(sessions)
+      .where(and(eq(sessions.userId, userId), eq(sessions.ip, ip), gte(sessions.createdAt, since)))
+      .get(),
+  );
 }

@@ -1,11 +1,12 @@
-import { asc, count, eq, max } from 'drizzle-orm';
+import { and, asc, count, eq, max } from 'drizzle-orm';
 import type { EngineModelRow } from '@emberline/contracts/fleet';
 import type { DbOrTx } from '../../db/client';
 import { engineModelRows, engineModels, engines, findings, inspections } from '../../db/schema';
 
 export type EngineModelRecord = typeof engineModels.$inferSelect;
 
-export function listEngineModels(db: DbOrTx) {
+/** Every model with its row count and engine count (of one organisation when `organisationId` is given). */
+export function listEngineModels(db: DbOrTx, organisationId: string | null) {
   const rowCounts = db
     .select({ modelId: engineModelRows.modelId, rows: count().as('rows') })
     .from(engineModelRows)
@@ -14,6 +15,7 @@ export function listEngineModels(db: DbOrTx) {
   const engineCounts = db
     .select({ modelId: engines.modelId, engines: count().as('engines') })
     .from(engines)
+    .where(organisationId === null ? undefined : eq(engines.organisationId, organisationId))
     .groupBy(engines.modelId)
     .as('engine_counts');
   return db
@@ -46,8 +48,24 @@ export function listModelRows(db: DbOrTx, modelId: string): EngineModelRow[] {
     .all();
 }
 
-export function countEnginesOfModel(db: DbOrTx, modelId: string): number {
-  return db.select({ n: count() }).from(engines).where(eq(engines.modelId, modelId)).get()?.n ?? 0;
+/** Engines of a model (of one organisation when `organisationId` is given). */
+export function countEnginesOfModel(
+  db: DbOrTx,
+  modelId: string,
+  organisationId: string | null,
+): number {
+  return (
+    db
+      .select({ n: count() })
+      .from(engines)
+      .where(
+        and(
+          eq(engines.modelId, modelId),
+          organisationId === null ? undefined : eq(engines.organisationId, organisationId),
+        ),
+      )
+      .get()?.n ?? 0
+  );
 }
 
 export function latestVersion(db: DbOrTx, name: string): number {

@@ -20,7 +20,7 @@ export function engineModelsRoutes(ctx: AppContext): Router {
     'GET /engine-models',
     { summary: 'Engine models and their versions', response: engineModelListResponseSchema },
     (_req, res) => {
-      res.json({ items: models.list() });
+      res.json({ items: models.list(principalOf(res)) });
     },
   );
 
@@ -33,7 +33,7 @@ export function engineModelsRoutes(ctx: AppContext): Router {
       response: engineModelSchema,
     },
     (_req, res) => {
-      res.json(models.detail(res.locals.params.id));
+      res.json(models.detail(res.locals.params.id, principalOf(res)));
     },
   );
 

@@ -8,6 +8,7 @@ import { rowChangeProblems } from '@emberline/domain/engine-model';
 import type { AppContext, RequestMeta } from '../../context';
 import { inTransaction } from '../../db/client';
 import { AppError } from '../../http/app-error';
+import { recordScope } from '../../http/record-access';
 import type { Principal } from '../../http/principal';
 import { newId } from '../../lib/ids';
 import { refreshDue } from '../planning/due-basis';
@@ -33,7 +34,8 @@ export function createEngineModelsService(ctx: AppContext) {
     return model;
   }
 
-  function detail(id: string): EngineModel {
+  /** A model; its engine count is of the caller's organisation for a customer (all for staff). */
+  function detail(id: string, principal?: Principal): EngineModel {
     const model = mustFind(id);
     const inUse = rowKeysInUse(db, id);
     return {
@@ -43,7 +45,11 @@ export function createEngineModelsService(ctx: AppContext) {
       notes: model.notes,
       standardInterval: model.standardInterval ?? null,
       rows: listModelRows(db, id).map((row) => ({ ...row, inUse: inUse.has(row.key) })),
-      engineCount: countEnginesOfModel(db, id),
+      engineCount: countEnginesOfModel(
+        db,
+        id,
+        principal ? recordScope(principal).organisationId : null,
+      ),
       createdAt: model.createdAt.toISOString(),
     };
   }
@@ -71,17 +77,19 @@ export function createEngineModelsService(ctx: AppContext) {
   return {
     detail,
 
-    list(): EngineModelSummary[] {
-      return listEngineModels(db).map(({ model, rowCount, engineCount }) => ({
-        id: model.id,
-        name: model.name,
-        version: model.version,
-        notes: model.notes,
-        standardInterval: model.standardInterval ?? null,
-        rowCount: rowCount ?? 0,
-        engineCount: engineCount ?? 0,
-        createdAt: model.createdAt.toISOString(),
-      }));
+    list(principal: Principal): EngineModelSummary[] {
+      return listEngineModels(db, recordScope(principal).organisationId).map(
+        ({ model, rowCount, engineCount }) => ({
+          id: model.id,
+          name: model.name,
+          version: model.version,
+          notes: model.notes,
+          standardInterval: model.standardInterval ?? null,
+          rowCount: rowCount ?? 0,
+          engineCount: engineCount ?? 0,
+          createdAt: model.createdAt.toISOString(),
+        }),
+      );
     },
 
     create(principal: Principal, input: ParsedEngineModelInput, meta: RequestMeta): EngineModel {

@@ -96,6 +96,29 @@ describe('GET /engines', () => {
     expect((await as('customer2').get('/engines')).body.total).toBe(4);
   });
 
+  it('counts a model’s engines of the customer’s own organisation only; staff count them all', async () => {
+    const counts = async (role: 'customer' | 'customer2' | 'planner') => {
+      const models = (await as(role).get('/engine-models')).body.items as {
+        id: string;
+        engineCount: number;
+      }[];
+      const details = await Promise.all(
+        models.map(async (model) => (await as(role).get(`/engine-models/${model.id}`)).body),
+      );
+      return {
+        listed: models.reduce((sum, model) => sum + model.engineCount, 0),
+        detailed: details.reduce((sum, model) => sum + (model.engineCount as number), 0),
+        engines: (await as(role).get('/engines?pageSize=50')).body.total as number,
+      };
+    };
+    for (const role of ['customer', 'customer2', 'planner'] as const) {
+      const seen = await counts(role);
+      expect(seen.listed, role).toBe(seen.engines);
+      expect(seen.detailed, role).toBe(seen.engines);
+    }
+    expect((await counts('customer')).engines).toBeLessThan((await counts('planner')).engines);
+  });
+
   it('refuses unknown query parameters and anonymous callers', async () => {
     expect((await as('planner').get('/engines?organisation=org-corvid')).status).toBe(400);
     expect((await as('planner').get('/engines?pageSize=1000')).status).toBe(400);
@@ -392,7 +415,13 @@ describe('engine models', () => {
       inUse: false,
       numbering: { direction: 'clockwise' },
     });
-    expect(response.body.engineCount).toBe(11);
+    // A customer counts their own organisation's engines of the model (all of the demo's engines
+    // are of this model), not the whole fleet's.
+    const own = (await as('customer').get('/engines?pageSize=50')).body.total as number;
+    expect(response.body.engineCount).toBe(own);
+    expect(
+      (await as('planner').get('/engine-models/model-vt300-v1')).body.engineCount,
+    ).toBeGreaterThan(own);
   });
 
   it('lets an admin create, change and version a model', async () => {

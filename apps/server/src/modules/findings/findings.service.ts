@@ -306,7 +306,7 @@ export function createFindingsService(ctx: AppContext) {
   function visibleFinding(principal: Principal, id: string): FindingRow {
     const finding = findFinding(db, id);
     if (!finding) throw AppError.notFound('There is no such finding');
-    visibleInspection(db, principal, finding.inspectionId);
+    visibleInspection(db, principal, finding.inspectionId, 'There is no such finding');
     return finding;
   }
 

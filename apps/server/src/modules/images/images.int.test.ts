@@ -493,12 +493,19 @@ describe('who may see and add images', () => {
       (await request(t.app).get(`/api/v1/inspections/${inspectionId}`).set('Cookie', customer))
         .status,
     ).toBe(404);
-    for (const rendition of ['thumbnail', 'preview', 'full', 'original']) {
-      expect(
-        (await request(t.app).get(`/api/v1/images/${id}/${rendition}`).set('Cookie', customer))
-          .status,
-        rendition,
-      ).toBe(404);
+    // An image they may not see answers exactly as an id that exists nowhere.
+    const unknown = '0'.repeat(id.length);
+    for (const rendition of ['', '/thumbnail', '/preview', '/full', '/original']) {
+      const hidden = await request(t.app)
+        .get(`/api/v1/images/${id}${rendition}`)
+        .set('Cookie', customer);
+      const nowhere = await request(t.app)
+        .get(`/api/v1/images/${unknown}${rendition}`)
+        .set('Cookie', customer);
+      expect(hidden.status, rendition).toBe(404);
+      expect(nowhere.status, rendition).toBe(404);
+      expect(hidden.body.error.message, rendition).toBe(nowhere.body.error.message);
+      expect(hidden.body.error.code, rendition).toBe(nowhere.body.error.code);
     }
     expect(
       (await request(t.app).get('/api/v1/inspections').set('Cookie', customer)).body.items,

@@ -6,6 +6,7 @@ import {
   type Response,
 } from 'express';
 import multer from 'multer';
+import { createRequestLimiter, requestLimits } from '../../http/rate-limit';
 import {
   imageSchema,
   imageCalibrationInputSchema,
@@ -107,6 +108,7 @@ export function imagesRoutes(ctx: AppContext): Router {
       params: idParamsSchema,
       response: uploadResponseSchema,
       status: 201,
+      limit: createRequestLimiter(requestLimits.upload, ctx.now),
     },
     beforeBytes,
     upload.array('files', UPLOAD_LIMITS.files),

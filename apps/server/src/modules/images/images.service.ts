@@ -170,7 +170,7 @@ export function createImagesService(ctx: AppContext) {
   function visibleImage(principal: Principal, id: string): ImageMeta {
     const image = findImageMeta(db, id);
     if (!image) throw AppError.notFound('There is no such image');
-    visibleInspection(db, principal, image.inspectionId);
+    visibleInspection(db, principal, image.inspectionId, 'There is no such image');
     return image;
   }
 

@@ -11,10 +11,15 @@ import { findInspection, type InspectionRow } from './inspections.repository';
  * The inspection when the caller may see it: staff see every one, customers only released
  * inspections of their own organisation's engines. Anything else is 404, never the record.
  */
-export function visibleInspection(db: DbOrTx, principal: Principal, id: string): InspectionRow {
+export function visibleInspection(
+  db: DbOrTx,
+  principal: Principal,
+  id: string,
+  /** What a 404 says: for a record of the inspection, what an unknown id of that record says. */
+  missing = 'There is no such inspection',
+): InspectionRow {
   const inspection = findInspection(db, id);
-  if (!inspection || !seesInspection(principal, inspection))
-    throw AppError.notFound('There is no such inspection');
+  if (!inspection || !seesInspection(principal, inspection)) throw AppError.notFound(missing);
   return inspection;
 }
 

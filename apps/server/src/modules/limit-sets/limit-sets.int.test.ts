@@ -9,10 +9,11 @@ import {
   tenMillimetreReference,
   uploadImages,
 } from '../../../test/inspection-fixtures';
-import { demoAccounts, startTestApp, type TestApp } from '../../../test/test-app';
+import { DEMO_PASSWORD, demoAccounts, startTestApp, type TestApp } from '../../../test/test-app';
 import { checkLimitDraft } from '../../../test/limit-fixtures';
 import { DEMO_MODEL_ID, demoModelRows } from '../../demo/demo-fleet';
 import { DEMO_DRAFT_LIMIT_SET_ID, DEMO_LIMIT_SET_ID } from '../../demo/demo-limits';
+import { rawConnection } from '../../db/client';
 
 let t: TestApp;
 
@@ -345,5 +346,54 @@ describe("a draft's particulars", () => {
           .send(particulars)
       ).status,
     ).toBe(403);
+  });
+});
+
+describe('publication while the draft changes', () => {
+  it('reads the draft inside its write: of two publications sent at once, one puts it in force', async () => {
+    // bcryptjs works in slices of up to 100 ms between which other requests are served: at cost
+    // 12 (about 350 ms here) both requests are inside the password check at the same time.
+    const own = await startTestApp({ env: { BCRYPT_COST: '12' } });
+    try {
+      const engineer = await own.signIn(demoAccounts.engineer);
+      const moved = await request(own.app)
+        .patch(`/api/v1/limit-sets/${DEMO_DRAFT_LIMIT_SET_ID}`)
+        .set('Cookie', engineer)
+        .send({
+          revision: 'D-2',
+          title: 'Invented demo limits, draft 2',
+          manualReference: 'VT-300 Demo Engine Manual (invented), revision 2',
+          effectiveDate: '2027-01-15',
+        });
+      expect(moved.status).toBe(200);
+      await checkLimitDraft(own.app, (email) => own.signIn(email), DEMO_DRAFT_LIMIT_SET_ID);
+
+      const publish = () =>
+        request(own.app)
+          .post(`/api/v1/limit-sets/${DEMO_DRAFT_LIMIT_SET_ID}/publication`)
+          .set('Cookie', engineer)
+          .send({ password: DEMO_PASSWORD })
+          .then((response) => response);
+      const answers = await Promise.all([publish(), publish()]);
+      expect(answers.map((answer) => answer.status).sort()).toEqual([200, 409]);
+      const refused = answers.find((answer) => answer.status === 409)!;
+      expect(refused.body.error.message).toMatch(/published or superseded/);
+      const signatures = rawConnection(own.runtime.ctx.db)
+        .prepare(
+          "SELECT count(*) AS n FROM signatures WHERE kind = 'publication' AND subject_id = ?",
+        )
+        .get(DEMO_DRAFT_LIMIT_SET_ID) as { n: number };
+      expect(signatures.n).toBe(1);
+      const revisions = await request(own.app)
+        .get(`/api/v1/engine-models/${DEMO_MODEL_ID}/limit-sets`)
+        .set('Cookie', engineer);
+      expect(
+        (revisions.body.items as { revision: string; status: string }[])
+          .filter((revision) => revision.status === 'published')
+          .map((revision) => revision.revision),
+      ).toEqual(['D-2']);
+    } finally {
+      await own.close();
+    }
   });
 });

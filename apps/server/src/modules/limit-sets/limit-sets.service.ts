@@ -104,6 +104,52 @@ export function createLimitSetsService(ctx: AppContext) {
     validateRuleZones(rules, new Map(rows.map((row) => [row.key, row.zones])));
   }
 
+  /**
+   * The draft as a limit-check would sign it, refused (422) when it cannot be checked yet or by
+   * this engineer. Read before the password check, to refuse early, and again inside the signing
+   * transaction, so that the signature covers what is there when it is written.
+   */
+  function checkable(principal: Principal, id: string) {
+    const row = draft(id);
+    if (!row.effectiveDate)
+      throw AppError.unprocessable(
+        'Give the draft its effective date before it is checked: the check covers it.',
+        { fields: { effectiveDate: ['Give the effective date'] }, form: [] },
+      );
+    const rules = listRules(db, id);
+    if (rules.length === 0)
+      throw AppError.unprocessable('A revision without rules cannot be checked');
+    checkRules(row.modelId, rules);
+    const untitled = rules.filter((rule) => !rule.title).map((rule) => rule.id);
+    if (untitled.length > 0)
+      throw AppError.unprocessable(
+        `Give every rule a short title before the check (people read rules by it): ${untitled.length === 1 ? 'rule' : 'rules'} ${untitled.slice(0, 10).join(', ')}${untitled.length > 10 ? ` and ${untitled.length - 10} more` : ''} ${untitled.length === 1 ? 'has' : 'have'} none.`,
+      );
+    if (editorsOf(row).includes(principal.user.id))
+      throw AppError.unprocessable(
+        'You made or changed this draft: another engineer checks it against the manual.',
+      );
+    return { row, rules };
+  }
+
+  /** The draft as publication would put it in force, refused (422) when it cannot be yet. */
+  function publishable(id: string) {
+    const row = draft(id);
+    const rules = listRules(db, id);
+    if (rules.length === 0)
+      throw AppError.unprocessable('A revision without rules cannot be published');
+    checkRules(row.modelId, rules);
+    if (!row.effectiveDate)
+      throw AppError.unprocessable(
+        'Give the draft its effective date, have it checked, then publish.',
+      );
+    if (!currentCheck(row, rules))
+      throw AppError.unprocessable(
+        'This draft has no independent check of its present content: an engineer who did not make or change it signs the check first (any change clears it).',
+      );
+    return { row, rules };
+  }
+
   /** Revision numbers are unique per model. */
   function refuseTakenRevision(modelId: string, revision: string, ownId: string | null): void {
     if (listLimitSets(db, modelId).some((row) => row.revision === revision && row.id !== ownId))
@@ -220,29 +266,13 @@ export function createLimitSetsService(ctx: AppContext) {
       password: string,
       meta: RequestMeta,
     ): Promise<LimitSet> {
-      const row = draft(id);
-      if (!row.effectiveDate)
-        throw AppError.unprocessable(
-          'Give the draft its effective date before it is checked: the check covers it.',
-          { fields: { effectiveDate: ['Give the effective date'] }, form: [] },
-        );
-      const rules = listRules(db, id);
-      if (rules.length === 0)
-        throw AppError.unprocessable('A revision without rules cannot be checked');
-      checkRules(row.modelId, rules);
-      const untitled = rules.filter((rule) => !rule.title).map((rule) => rule.id);
-      if (untitled.length > 0)
-        throw AppError.unprocessable(
-          `Give every rule a short title before the check (people read rules by it): ${untitled.length === 1 ? 'rule' : 'rules'} ${untitled.slice(0, 10).join(', ')}${untitled.length > 10 ? ` and ${untitled.length - 10} more` : ''} ${untitled.length === 1 ? 'has' : 'have'} none.`,
-        );
-      if (editorsOf(row).includes(principal.user.id))
-        throw AppError.unprocessable(
-          'You made or changed this draft: another engineer checks it against the manual.',
-        );
+      checkable(principal, id);
       await confirmPassword(ctx, principal, password, meta, 'signing the check needs it again');
-      const contentSha256 = canonicalSha256(limitSetContent(row, rules));
       const now = ctx.now();
       inTransaction(db, (tx) => {
+        // Read again inside the write: a change saved while the password was checked is seen.
+        const { row, rules } = checkable(principal, id);
+        const contentSha256 = canonicalSha256(limitSetContent(row, rules));
         const signature = appendSignature(ctx, tx, {
           kind: 'limit-check',
           subjectId: id,
@@ -487,24 +517,14 @@ export function createLimitSetsService(ctx: AppContext) {
       password: string,
       meta: RequestMeta,
     ): Promise<LimitSet> {
-      const row = draft(id);
+      publishable(id);
       await confirmPassword(ctx, principal, password, meta, 'publishing needs it again');
-      const rules = listRules(db, id);
-      if (rules.length === 0)
-        throw AppError.unprocessable('A revision without rules cannot be published');
-      checkRules(row.modelId, rules);
-      if (!row.effectiveDate)
-        throw AppError.unprocessable(
-          'Give the draft its effective date, have it checked, then publish.',
-        );
-      if (!currentCheck(row, rules))
-        throw AppError.unprocessable(
-          'This draft has no independent check of its present content: an engineer who did not make or change it signs the check first (any change clears it).',
-        );
-      const contentSha256 = canonicalSha256(limitSetContent(row, rules));
       const now = ctx.now();
-      const reopened = draftInspectionIds(db, row.modelId);
       inTransaction(db, (tx) => {
+        // Read again inside the write: a change saved while the password was checked is seen.
+        const { row, rules } = publishable(id);
+        const contentSha256 = canonicalSha256(limitSetContent(row, rules));
+        const reopened = draftInspectionIds(tx, row.modelId);
         publishLimitSet(tx, id, row.modelId, { at: now, by: principal.user.id, contentSha256 });
         const signature = appendSignature(ctx, tx, {
           kind: 'publication',

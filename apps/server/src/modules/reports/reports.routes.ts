@@ -10,10 +10,10 @@ import {
   verificationCodeParamsSchema,
 } from '@emberline/contracts/reports';
 import { AppError } from '../../http/app-error';
-import { requestMeta } from '../../http/request-meta';
 import { idParamsSchema } from '@emberline/contracts/users';
 import type { AppContext } from '../../context';
 import { principalOf } from '../../http/principal';
+import { createRequestLimiter, requestLimits } from '../../http/rate-limit';
 import { route } from '../../http/route';
 import { createReportsService } from './reports.service';
 
@@ -81,7 +81,8 @@ export function reportsRoutes(ctx: AppContext): Router {
       res.json(reports.undeliveredUrgent());
     },
   );
-  // Anyone holding a report may check it: no sign-in, limited per address.
+  // Anyone holding a report may check it: no sign-in, limited per address (and per person).
+  const checks = createRequestLimiter(requestLimits.verification, ctx.now);
   route(
     router,
     'GET /verify/:code',
@@ -90,9 +91,10 @@ export function reportsRoutes(ctx: AppContext): Router {
         'Whether the report of a verification code is genuine and current, with its engine, day and revision',
       params: verificationCodeParamsSchema,
       response: reportVerificationSchema,
+      limit: checks,
     },
     (req, res) => {
-      res.json(reports.verify(res.locals.params.code, requestMeta(req).ip));
+      res.json(reports.verify(res.locals.params.code));
     },
   );
   route(
@@ -102,6 +104,7 @@ export function reportsRoutes(ctx: AppContext): Router {
       summary: 'Whether a PDF (the body) is, byte for byte, the report of a verification code',
       params: verificationCodeParamsSchema,
       response: reportFileCheckSchema,
+      limit: checks,
     },
     pdfBody,
     (req, res) => {
@@ -111,7 +114,7 @@ export function reportsRoutes(ctx: AppContext): Router {
           'unsupported_media_type',
           'Send the PDF file itself, as application/pdf',
         );
-      res.json(reports.checkFile(res.locals.params.code, requestMeta(req).ip, req.body));
+      res.json(reports.checkFile(res.locals.params.code, req.body));
     },
   );
   return router;

@@ -74,7 +74,13 @@ export function UploadPanel() {
                     aria-label={`Progress of ${item.name}`}
                   />
                 ) : null}
-                {item.message ? <p className="mt-1 text-xs text-red-800">{item.message}</p> : null}
+                {item.message ? (
+                  <p
+                    className={`mt-1 text-xs ${item.status === 'queued' ? 'text-soot-700' : 'text-red-800'}`}
+                  >
+                    {item.message}
+                  </p>
+                ) : null}
                 <div className="mt-1 flex gap-3 text-xs">
                   {item.status === 'uploading' || item.status === 'queued' ? (
                     <button
