@@ -13,7 +13,10 @@ import {
   demoRules,
 } from '../../apps/server/src/demo/demo-limits';
 import { createLogger } from '../../apps/server/src/lib/logger';
-import { currentFindings } from '../../apps/server/src/modules/findings/findings.repository';
+import {
+  currentFindings,
+  currentFindingsQuery,
+} from '../../apps/server/src/modules/findings/findings.repository';
 import { makeDataDir } from '../../apps/server/test/test-app';
 
 const FINDINGS = Number(process.env.BENCH_IMPACT_FINDINGS ?? 200_000);
@@ -189,14 +192,36 @@ export async function benchImpact() {
     if (read < FINDINGS) throw new Error(`read ${read} findings`);
     reads.push(performance.now() - started);
   }
+  // The floor under the read: better-sqlite3 stepping through the same query's rows as arrays,
+  // making nothing of them.
+  const { sql: text, params } = currentFindingsQuery(DEMO_MODEL_ID);
+  const bare = sqlite.prepare(text).raw(true);
+  const scans: number[] = [];
+  for (let run = 0; run < RUNS; run += 1) {
+    const started = performance.now();
+    let read = 0;
+    for (const _row of bare.iterate(...params)) read += 1;
+    if (read < FINDINGS) throw new Error(`scanned ${read} findings`);
+    scans.push(performance.now() - started);
+  }
   await new Promise((resolve) => server.close(resolve));
   await runtime.close();
   const median = (samples: number[]) => [...samples].sort((a, b) => a - b)[samples.length >> 1]!;
   const figure = median(api);
-  return {
-    name: `impact preview, ${(judged / 1000).toFixed(0)}k findings, ${changed} changes (median)`,
-    figure: `${figure.toFixed(0)} ms`,
-    ceiling: `1000 ms; SQL read ${median(reads).toFixed(0)}`,
-    ok: figure < 1000 && judged >= FINDINGS,
-  };
+  const read = median(reads);
+  const scan = median(scans);
+  return [
+    {
+      name: `impact preview, ${(judged / 1000).toFixed(0)}k findings, ${changed} changes (median)`,
+      figure: `${figure.toFixed(0)} ms`,
+      ceiling: `1000 ms; ${(figure / read).toFixed(2)}× its read (1.5×)`,
+      ok: figure < 1000 && figure <= 1.5 * read && judged >= FINDINGS,
+    },
+    {
+      name: `impact preview's SQL read of ${(FINDINGS / 1000).toFixed(0)}k findings`,
+      figure: `${read.toFixed(0)} ms`,
+      ceiling: `${scan.toFixed(0)} ms raw scan × 3 (${(read / scan).toFixed(2)}×)`,
+      ok: read <= 3 * scan,
+    },
+  ];
 }

@@ -10,6 +10,7 @@ const files = fs.readdirSync(directory!).map((name) => path.join(directory!, nam
 const parallel = Number(parallelText ?? 2);
 
 const started = performance.now();
+const cpuBefore = process.cpuUsage();
 let next = 0;
 await Promise.all(
   Array.from({ length: parallel }, async () => {
@@ -20,6 +21,12 @@ await Promise.all(
   }),
 );
 const seconds = (performance.now() - started) / 1000;
+const cpu = process.cpuUsage(cpuBefore);
 process.stdout.write(
-  JSON.stringify({ images: files.length, seconds, peakRss: peakRssBytes(process.pid) }),
+  JSON.stringify({
+    images: files.length,
+    seconds,
+    cpuSeconds: (cpu.user + cpu.system) / 1e6,
+    peakRss: peakRssBytes(process.pid),
+  }),
 );

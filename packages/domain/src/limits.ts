@@ -32,51 +32,61 @@ export function worse(a: Category, b: Category): Category {
   return rank[a] >= rank[b] ? a : b;
 }
 
+function refuseNegative(
+  finding: EvaluationFinding,
+  index: number,
+  field: keyof EvaluationFinding,
+  value: number | null,
+): void {
+  if (value !== null && value < 0)
+    throw new DomainError(`finding ${finding.id} has a negative ${field} (${value})`, [
+      'findings',
+      index,
+      field,
+    ]);
+}
+
+/**
+ * Refuses findings that do not fit the rows, or with negative measurements; and findings sharing
+ * an id, unless the caller vouches for them (`idsUnique`: stored findings, whose ids are primary
+ * keys), since a set of 200,000 ids costs more than judging them.
+ */
 function validateFindings(
   findings: readonly EvaluationFinding[],
   rows: EvaluationRequest['rows'],
+  idsUnique: boolean,
 ): void {
-  const seen = new Set<string>();
-  const measured = [
-    'lengthMm',
-    'widthMm',
-    'depthMm',
-    'areaMm2',
-    'count',
-    'uncertaintyMm',
-    'uncertaintyMm2',
-  ] as const;
-  findings.forEach((finding, index) => {
-    const name = `finding ${finding.id}`;
-    if (seen.has(finding.id))
-      throw new DomainError(`${name} appears twice: every finding needs its own id`, [
-        'findings',
-        index,
-        'id',
-      ]);
-    seen.add(finding.id);
+  const seen = idsUnique ? null : new Set<string>();
+  for (let index = 0; index < findings.length; index += 1) {
+    const finding = findings[index]!;
+    if (seen) {
+      if (seen.has(finding.id))
+        throw new DomainError(
+          `finding ${finding.id} appears twice: every finding needs its own id`,
+          ['findings', index, 'id'],
+        );
+      seen.add(finding.id);
+    }
     const row = rows[finding.row];
     if (!row)
       throw new DomainError(
-        `${name} is on the row "${finding.row}", which this engine model does not have`,
+        `finding ${finding.id} is on the row "${finding.row}", which this engine model does not have`,
         ['findings', index, 'row'],
       );
     if (finding.position < 1 || finding.position > row.count) {
       throw new DomainError(
-        `${name} is at position ${finding.position}, outside ${finding.row} (positions 1 to ${row.count})`,
+        `finding ${finding.id} is at position ${finding.position}, outside ${finding.row} (positions 1 to ${row.count})`,
         ['findings', index, 'position'],
       );
     }
-    for (const field of measured) {
-      const value = finding[field];
-      if (value !== null && value < 0)
-        throw new DomainError(`${name} has a negative ${field} (${value})`, [
-          'findings',
-          index,
-          field,
-        ]);
-    }
-  });
+    refuseNegative(finding, index, 'lengthMm', finding.lengthMm);
+    refuseNegative(finding, index, 'widthMm', finding.widthMm);
+    refuseNegative(finding, index, 'depthMm', finding.depthMm);
+    refuseNegative(finding, index, 'areaMm2', finding.areaMm2);
+    refuseNegative(finding, index, 'count', finding.count);
+    refuseNegative(finding, index, 'uncertaintyMm', finding.uncertaintyMm);
+    refuseNegative(finding, index, 'uncertaintyMm2', finding.uncertaintyMm2);
+  }
 }
 
 function measuredValue(finding: EvaluationFinding, measure: Measure): number | null {
@@ -238,7 +248,8 @@ interface Candidate {
 const noJudgements: RuleJudgement[] = Object.freeze([]) as unknown as RuleJudgement[];
 
 function stricterInterval(a: Interval | null, b: Interval | null): Interval | null {
-  if (!a) return b ? { ...b } : null;
+  // The rule's own interval object when it is the only one: rules are not changed once given.
+  if (!a) return b;
   if (!b) return a;
   return {
     cycles: minimum(a.cycles, b.cycles),
@@ -412,27 +423,30 @@ function applyCountRule(
 
 /** The engine verdict: the worst category, the counts, the strictest interval and every removal action. */
 export function engineVerdict(evaluations: readonly FindingEvaluation[]): EngineVerdict {
-  const counts = Object.fromEntries(categories.map((category) => [category, 0])) as Record<
-    Category,
-    number
-  >;
-  let category: Category = 'serviceable';
-  const intervals: (Interval | null)[] = [];
-  const actions: BeyondAction[] = [];
-  for (const evaluation of evaluations) {
-    counts[evaluation.category] += 1;
-    category = worse(category, evaluation.category);
-    if (evaluation.category === 'repeat-inspection') intervals.push(evaluation.repeatInterval);
-    if (evaluation.category === 'beyond-limits' && evaluation.beyondAction)
-      actions.push(evaluation.beyondAction);
+  const tally = [0, 0, 0, 0];
+  let worst = 0;
+  let interval: Interval | null = null;
+  // The removals as given by the rules (a few objects, shared by many findings), told apart by
+  // what they say only at the end.
+  const given = new Set<BeyondAction>();
+  for (let index = 0; index < evaluations.length; index += 1) {
+    const evaluation = evaluations[index]!;
+    const level = rank[evaluation.category];
+    tally[level]! += 1;
+    if (level > worst) worst = level;
+    if (level === 1) interval = stricterInterval(interval, evaluation.repeatInterval);
+    else if (level === 3 && evaluation.beyondAction) given.add(evaluation.beyondAction);
   }
-  const unique = new Map(
-    actions.map((action) => [`${action.kind}|${action.cycles}|${action.hours}`, action]),
-  );
+  const actions = new Map<string, BeyondAction>();
+  for (const action of given)
+    actions.set(`${action.kind}|${action.cycles}|${action.hours}`, action);
+  const counts = Object.fromEntries(
+    categories.map((category) => [category, tally[rank[category]]!]),
+  ) as Record<Category, number>;
   return {
-    category,
-    repeatInterval: strictestInterval(intervals),
-    beyondActions: [...unique.values()].sort(compareActions),
+    category: bandCategory[worst]!,
+    repeatInterval: interval ? { ...interval } : null,
+    beyondActions: [...actions.values()].sort(compareActions),
     counts,
   };
 }
@@ -447,7 +461,7 @@ export function prepareRules(
   rules: readonly Rule[],
 ): (
   findings: readonly EvaluationFinding[],
-  options?: { explain?: boolean },
+  options?: { explain?: boolean; idsUnique?: boolean },
 ) => FindingEvaluation[] {
   validateRules(rules, new Set(Object.keys(rows)));
   // Candidate rules by row, then damage; zones as sets. Built once, then each finding is a lookup.
@@ -468,7 +482,7 @@ export function prepareRules(
 
   return (findings, options = {}) => {
     const explain = options.explain ?? true;
-    validateFindings(findings, rows);
+    validateFindings(findings, rows, options.idsUnique ?? false);
     const matchedByRule = new Map<Rule, number[]>();
     const evaluations: FindingEvaluation[] = new Array(findings.length);
     let current = 0;
@@ -500,7 +514,7 @@ export function prepareRules(
  */
 export function evaluate(
   input: EvaluationRequest,
-  options: { explain?: boolean } = {},
+  options: { explain?: boolean; idsUnique?: boolean } = {},
 ): EvaluationResult {
   const evaluations = prepareRules(input.rows, input.rules)(input.findings, options);
   return { findings: evaluations, engine: engineVerdict(evaluations) };

@@ -189,6 +189,18 @@ type CurrentRow = [
   string | null,
 ];
 
+/** The SQL of `currentFindings`, also for the benchmark's bare scan of the same columns. */
+export function currentFindingsQuery(modelId: string): { sql: string; params: unknown[] } {
+  return sqliteDialect.sqlToQuery(sql`
+    WITH current AS MATERIALIZED (SELECT i.id ${currentInspectionsOf(modelId)})
+    SELECT f.inspection_id, f.number, f.row_key, f.position, f.zone, f.damage, f.length_mm,
+      f.width_mm, f.depth_mm, f.area_mm2, f.count, f.uncertainty_mm, f.uncertainty_mm2,
+      f.category, f.repeat_cycles, f.repeat_hours, f.repeat_days, f.limit_set_id
+    FROM current c
+    JOIN findings f INDEXED BY findings_impact_idx
+      ON f.inspection_id = c.id AND f.status = 'recorded'`);
+}
+
 /**
  * The current findings of a model's engines, one inspection after another: every recorded
  * finding of the inspections not yet released and of each engine's latest released inspection.
@@ -196,15 +208,7 @@ type CurrentRow = [
  * memory at once), so that 200,000 findings are read in a fraction of a second.
  */
 export function* currentFindings(db: DbOrTx, modelId: string): Generator<CurrentFinding> {
-  const query = sql`
-    WITH current AS MATERIALIZED (SELECT i.id ${currentInspectionsOf(modelId)})
-    SELECT f.inspection_id, f.number, f.row_key, f.position, f.zone, f.damage, f.length_mm,
-      f.width_mm, f.depth_mm, f.area_mm2, f.count, f.uncertainty_mm, f.uncertainty_mm2,
-      f.category, f.repeat_cycles, f.repeat_hours, f.repeat_days, f.limit_set_id
-    FROM current c
-    JOIN findings f INDEXED BY findings_impact_idx
-      ON f.inspection_id = c.id AND f.status = 'recorded'`;
-  const { sql: text, params } = sqliteDialect.sqlToQuery(query);
+  const { sql: text, params } = currentFindingsQuery(modelId);
   const statement = rawConnection(db).prepare(text).raw(true);
   for (const row of statement.iterate(...params) as IterableIterator<CurrentRow>) {
     const interval =

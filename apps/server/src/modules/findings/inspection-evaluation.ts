@@ -64,11 +64,15 @@ export function evaluateInspection(
   const recorded = listFindings(tx, inspectionId).filter(
     (finding) => finding.status === 'recorded',
   );
-  const result = evaluate({
-    rows: Object.fromEntries(rows.map((row) => [row.key, { count: row.count }])),
-    rules,
-    findings: recorded.map((finding) => toEvaluationFinding(finding, finding.id)),
-  });
+  // Stored findings: their ids are primary keys, so not checked for repeats again.
+  const result = evaluate(
+    {
+      rows: Object.fromEntries(rows.map((row) => [row.key, { count: row.count }])),
+      rules,
+      findings: recorded.map((finding) => toEvaluationFinding(finding, finding.id)),
+    },
+    { idsUnique: true },
+  );
   result.findings.forEach((evaluation, index) => {
     storeEvaluation(tx, recorded[index]!.id, {
       evaluation,

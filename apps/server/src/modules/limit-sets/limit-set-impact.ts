@@ -59,9 +59,10 @@ export function limitSetImpact(input: {
       after: null,
     };
     engines.set(inspection.engineId, engine);
+    // Ids made here from each finding's place in its group: unique, so not checked again.
     const judged = judgeAll(
       group.map((finding, index) => toEvaluationFinding(finding, String(index))),
-      { explain: false },
+      { explain: false, idsUnique: true },
     );
     group.forEach((finding, index) => {
       const evaluation = judged[index]!;
