@@ -5,7 +5,7 @@ import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
 import { freePort, signInCookie, startServerProcess } from '../lib/server-process';
-import { cpuSeconds, peakRssBytes } from './memory';
+import { cpuSeconds, cpuSecondsByThread, peakRssBytes, threadCpuSince } from './memory';
 
 const IMAGES = Number(process.env.BENCH_INGEST_IMAGES ?? 200);
 /** Pipelines in flight: the server's bounded queue runs two, and so does the raw pipeline. */
@@ -103,6 +103,7 @@ export async function benchIngest() {
       images: number;
       seconds: number;
       cpuSeconds: number;
+      threads: Record<string, number>;
       peakRss: number;
     };
   const runs = [rawRun(), rawRun()];
@@ -135,6 +136,7 @@ export async function benchIngest() {
   });
   const { id } = (await created.json()) as { id: string };
   const cpuBefore = cpuSeconds(server.pid!);
+  const threadsBefore = cpuSecondsByThread(server.pid!);
   const started = performance.now();
   let next = 0;
   const agent = new http.Agent({ keepAlive: true, maxSockets: REQUESTS_IN_FLIGHT });
@@ -150,6 +152,7 @@ export async function benchIngest() {
   agent.destroy();
   const apiSeconds = (performance.now() - started) / 1000;
   const serverCpu = cpuSeconds(server.pid!) - cpuBefore;
+  const serverThreads = threadCpuSince(threadsBefore, cpuSecondsByThread(server.pid!));
   const serverPeak = peakRssBytes(server.pid!);
   server.kill('SIGTERM');
   fs.rmSync(images, { recursive: true, force: true });
@@ -160,6 +163,14 @@ export async function benchIngest() {
   const serverCpuPerImage = (serverCpu / files.length) * 1000;
   const rawCpuPerImage = (raw.cpuSeconds / raw.images) * 1000;
   const mb = (bytes: number) => `${Math.round(bytes / 1024 / 1024)} MB`;
+  // Where each process's CPU goes, per image: the same libvips work in both, and what the server
+  // does beyond it (receiving, hashing and writing the upload, the record) on its other threads.
+  const perImage = (threads: Record<string, number>, images: number) =>
+    ['main', 'node threads', 'libvips']
+      .map((kind) => `${kind} ${(((threads[kind] ?? 0) / images) * 1000).toFixed(1)}`)
+      .join(', ');
+  console.log(`server CPU per image by thread (ms): ${perImage(serverThreads, files.length)}`);
+  console.log(`raw sharp CPU per image by thread (ms): ${perImage(raw.threads, raw.images)}`);
   return [
     {
       name: `ingest ${files.length} × 12 MP JPEG via API (img/s)`,

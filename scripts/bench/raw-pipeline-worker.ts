@@ -3,7 +3,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { processImage } from '../../apps/server/src/lib/images/image-pipeline';
-import { peakRssBytes } from './memory';
+import { cpuSecondsByThread, peakRssBytes, threadCpuSince } from './memory';
 
 const [directory, parallelText] = process.argv.slice(2);
 const files = fs.readdirSync(directory!).map((name) => path.join(directory!, name));
@@ -11,6 +11,7 @@ const parallel = Number(parallelText ?? 2);
 
 const started = performance.now();
 const cpuBefore = process.cpuUsage();
+const threadsBefore = cpuSecondsByThread(process.pid);
 let next = 0;
 await Promise.all(
   Array.from({ length: parallel }, async () => {
@@ -27,6 +28,7 @@ process.stdout.write(
     images: files.length,
     seconds,
     cpuSeconds: (cpu.user + cpu.system) / 1e6,
+    threads: threadCpuSince(threadsBefore, cpuSecondsByThread(process.pid)),
     peakRss: peakRssBytes(process.pid),
   }),
 );

@@ -435,6 +435,10 @@ describe('input the evaluation refuses', () => {
       /finding twin appears twice/,
     );
     refuse([rule()], [finding({ lengthMm: -0.1 })], /negative lengthMm/);
+    // Names an object has of its own are no rows either.
+    for (const row of ['toString', 'constructor', '__proto__'])
+      refuse([rule()], [finding({ row })], /which this engine model does not have/);
+    refuse([rule()], [finding({ position: Number.NaN })], /position NaN/);
   });
 
   it('names a rule that would pass everything, an inverted band, a band without interval, a wrong unit or an unknown row', () => {

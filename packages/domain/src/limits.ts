@@ -24,6 +24,13 @@ const rank: Record<Category, number> = {
   'beyond-limits': 3,
 };
 
+/** As `rank`, compared instead of looked up: this runs once per finding of an engine verdict. */
+function severityOf(category: Category): number {
+  if (category === 'serviceable') return 0;
+  if (category === 'repeat-inspection') return 1;
+  return category === 'review' ? 2 : 3;
+}
+
 /** A category's severity: 0 serviceable, 1 repeat inspection, 2 review, 3 beyond limits. */
 export const severity = (category: Category): number => rank[category];
 
@@ -46,46 +53,44 @@ function refuseNegative(
     ]);
 }
 
-/**
- * Refuses findings that do not fit the rows, or with negative measurements; and findings sharing
- * an id, unless the caller vouches for them (`idsUnique`: stored findings, whose ids are primary
- * keys), since a set of 200,000 ids costs more than judging them.
- */
-function validateFindings(
-  findings: readonly EvaluationFinding[],
-  rows: EvaluationRequest['rows'],
-  idsUnique: boolean,
-): void {
-  const seen = idsUnique ? null : new Set<string>();
+/** Refuses a finding that does not fit its row, or with a negative measurement. */
+function validateFinding(
+  finding: EvaluationFinding,
+  index: number,
+  row: RowIndex | undefined,
+): asserts row is RowIndex {
+  if (row === undefined)
+    throw new DomainError(
+      `finding ${finding.id} is on the row "${finding.row}", which this engine model does not have`,
+      ['findings', index, 'row'],
+    );
+  if (!(finding.position >= 1 && finding.position <= row.count)) {
+    throw new DomainError(
+      `finding ${finding.id} is at position ${finding.position}, outside ${finding.row} (positions 1 to ${row.count})`,
+      ['findings', index, 'position'],
+    );
+  }
+  refuseNegative(finding, index, 'lengthMm', finding.lengthMm);
+  refuseNegative(finding, index, 'widthMm', finding.widthMm);
+  refuseNegative(finding, index, 'depthMm', finding.depthMm);
+  refuseNegative(finding, index, 'areaMm2', finding.areaMm2);
+  refuseNegative(finding, index, 'count', finding.count);
+  refuseNegative(finding, index, 'uncertaintyMm', finding.uncertaintyMm);
+  refuseNegative(finding, index, 'uncertaintyMm2', finding.uncertaintyMm2);
+}
+
+/** Refuses findings sharing an id. */
+function refuseRepeatedIds(findings: readonly EvaluationFinding[]): void {
+  const seen = new Set<string>();
   for (let index = 0; index < findings.length; index += 1) {
-    const finding = findings[index]!;
-    if (seen) {
-      if (seen.has(finding.id))
-        throw new DomainError(
-          `finding ${finding.id} appears twice: every finding needs its own id`,
-          ['findings', index, 'id'],
-        );
-      seen.add(finding.id);
-    }
-    const row = rows[finding.row];
-    if (!row)
-      throw new DomainError(
-        `finding ${finding.id} is on the row "${finding.row}", which this engine model does not have`,
-        ['findings', index, 'row'],
-      );
-    if (finding.position < 1 || finding.position > row.count) {
-      throw new DomainError(
-        `finding ${finding.id} is at position ${finding.position}, outside ${finding.row} (positions 1 to ${row.count})`,
-        ['findings', index, 'position'],
-      );
-    }
-    refuseNegative(finding, index, 'lengthMm', finding.lengthMm);
-    refuseNegative(finding, index, 'widthMm', finding.widthMm);
-    refuseNegative(finding, index, 'depthMm', finding.depthMm);
-    refuseNegative(finding, index, 'areaMm2', finding.areaMm2);
-    refuseNegative(finding, index, 'count', finding.count);
-    refuseNegative(finding, index, 'uncertaintyMm', finding.uncertaintyMm);
-    refuseNegative(finding, index, 'uncertaintyMm2', finding.uncertaintyMm2);
+    const id = findings[index]!.id;
+    if (seen.has(id))
+      throw new DomainError(`finding ${id} appears twice: every finding needs its own id`, [
+        'findings',
+        index,
+        'id',
+      ]);
+    seen.add(id);
   }
 }
 
@@ -131,23 +136,28 @@ const single = Object.fromEntries(
   ]),
 ) as unknown as Record<Reason, Reason[]>;
 
-/** The working of one rule on one finding, as ranks; reused from finding to finding. */
+/**
+ * The working of one rule on one finding, as ranks; reused from finding to finding. Numbers only,
+ * NaN where there is none, so that V8 keeps them in place instead of boxing each one anew.
+ */
 interface Working {
   level: number;
   measuredLevel: number;
   reasons: Reason[];
-  value: number | null;
-  uncertainty: number | null;
-  utilisation: number | null;
+  value: number;
+  uncertainty: number;
+  utilisation: number;
 }
+
+const orNull = (value: number): number | null => (Number.isNaN(value) ? null : value);
 
 function work(rule: Rule, finding: EvaluationFinding, into: Working): Working {
   const raw = measuredValue(finding, rule.measure);
   const value = raw === null ? null : fromMillimetres(raw, rule.unit);
-  into.value = value;
+  into.value = value ?? NaN;
   into.uncertainty =
-    value === null ? null : fromMillimetres(uncertaintyOf(finding, rule.measure), rule.unit);
-  into.utilisation = null;
+    value === null ? NaN : fromMillimetres(uncertaintyOf(finding, rule.measure), rule.unit);
+  into.utilisation = NaN;
   if (rule.notPermitted) {
     into.level = into.measuredLevel = 3;
     into.reasons = single['not-permitted'];
@@ -159,10 +169,10 @@ function work(rule: Rule, finding: EvaluationFinding, into: Working): Working {
     into.reasons = single['missing-measurement'];
   } else {
     into.measuredLevel = band(rule, value);
-    into.level = band(rule, value + into.uncertainty!);
-    into.reasons = single[bandReason[into.level]!];
+    into.level = band(rule, value + into.uncertainty);
+    into.reasons = bandReasons[into.level]!;
     const outer = (rule.repeatMax ?? rule.serviceableMax)!;
-    into.utilisation = outer === 0 ? null : value / outer;
+    into.utilisation = outer === 0 ? NaN : value / outer;
   }
   return into;
 }
@@ -173,20 +183,22 @@ function toJudgement(rule: Rule, working: Working): RuleJudgement {
     category: bandCategory[working.level]!,
     measuredCategory: bandCategory[working.measuredLevel]!,
     reasons: working.reasons,
-    value: working.value,
-    uncertainty: working.uncertainty,
+    value: orNull(working.value),
+    uncertainty: orNull(working.uncertainty),
     unit: rule.unit,
-    utilisation: working.utilisation,
+    utilisation: orNull(working.utilisation),
   };
 }
+
+const bandReasons = bandReason.map((reason) => single[reason]);
 
 const blank = (): Working => ({
   level: 0,
   measuredLevel: 0,
   reasons: single['count-rule-only'],
-  value: null,
-  uncertainty: null,
-  utilisation: null,
+  value: NaN,
+  uncertainty: NaN,
+  utilisation: NaN,
 });
 
 /** How one rule judges one finding, steps 1 to 6 of DESIGN §5.2. */
@@ -238,11 +250,22 @@ function strictestAction(a: BeyondAction | null, b: BeyondAction | null): Beyond
   return compareActions(b, a) < 0 ? b : a;
 }
 
+/** A rule that matches a finding's row, damage and zone, and whether it also limits counts. */
 interface Candidate {
   rule: Rule;
-  anyZone: boolean;
-  zones: Set<string>;
   counts: boolean;
+}
+
+/** A row's count of positions, and its rules by damage. */
+interface RowIndex {
+  count: number;
+  byDamage: Map<string, ZoneIndex>;
+}
+
+/** The rules of one row and damage, and the lists of those matching each zone met so far. */
+interface ZoneIndex {
+  rules: Rule[];
+  byZone: Map<string, Candidate[]>;
 }
 
 const noJudgements: RuleJudgement[] = Object.freeze([]) as unknown as RuleJudgement[];
@@ -261,28 +284,24 @@ function stricterInterval(a: Interval | null, b: Interval | null): Interval | nu
 const scratch = blank();
 
 /**
- * Judges one finding by every candidate rule that matches its zone and keeps, as it goes, the worst
+ * Judges one finding by every candidate rule (those matching its row, damage and zone) and keeps, as it goes, the worst
  * category and, among the rules tied at it, the strictest interval or removal and the governing rule.
  */
 function judgeFinding(
   finding: EvaluationFinding,
   candidates: readonly Candidate[],
   explain: boolean,
-  onMatch: (candidate: Candidate) => void,
 ): FindingEvaluation {
   let worst = -1;
   let worstMeasured = 0;
   let ruleId: string | null = null;
   let reasons: Reason[] = [];
-  let utilisation: number | null = null;
+  let utilisation = NaN;
   let interval: Interval | null = null;
   let action: BeyondAction | null = null;
   const judgements = explain ? [] : noJudgements;
   for (let index = 0; index < candidates.length; index += 1) {
-    const candidate = candidates[index]!;
-    if (!candidate.anyZone && !candidate.zones.has(finding.zone)) continue;
-    if (candidate.counts) onMatch(candidate);
-    const { rule } = candidate;
+    const { rule } = candidates[index]!;
     const working = work(rule, finding, scratch);
     if (explain) judgements.push(toJudgement(rule, working));
     const level = working.level;
@@ -297,10 +316,10 @@ function judgeFinding(
     } else if (level === worst) {
       if (level === 1) interval = stricterInterval(interval, rule.repeatInterval);
       if (level === 3) action = strictestAction(action, rule.beyondAction);
-      // The higher utilisation governs (null ranks below any number); on a tie, the rule listed first.
+      // The higher utilisation governs (none ranks below any number); on a tie, the rule listed first.
       if (
-        working.utilisation !== null &&
-        (utilisation === null || working.utilisation > utilisation)
+        !Number.isNaN(working.utilisation) &&
+        (Number.isNaN(utilisation) || working.utilisation > utilisation)
       ) {
         ruleId = rule.id;
         reasons = working.reasons;
@@ -308,28 +327,17 @@ function judgeFinding(
       }
     }
   }
-  if (worst === -1) {
-    return {
-      id: finding.id,
-      category: 'review',
-      measuredCategory: 'review',
-      indeterminate: false,
-      ruleId: null,
-      reasons: single['no-matching-rule'],
-      utilisation: null,
-      repeatInterval: null,
-      beyondAction: null,
-      judgements,
-    };
-  }
+  // No rule matches: review (DESIGN §5.2). One object literal for both outcomes, so that V8
+  // allocates every result alike.
+  const matched = worst !== -1;
   return {
     id: finding.id,
-    category: bandCategory[worst]!,
-    measuredCategory: bandCategory[worstMeasured]!,
-    indeterminate: worst !== worstMeasured,
+    category: matched ? bandCategory[worst]! : 'review',
+    measuredCategory: matched ? bandCategory[worstMeasured]! : 'review',
+    indeterminate: worst > worstMeasured,
     ruleId,
-    reasons,
-    utilisation,
+    reasons: matched ? reasons : single['no-matching-rule'],
+    utilisation: orNull(utilisation),
     repeatInterval: interval,
     beyondAction: action,
     judgements,
@@ -431,7 +439,7 @@ export function engineVerdict(evaluations: readonly FindingEvaluation[]): Engine
   const given = new Set<BeyondAction>();
   for (let index = 0; index < evaluations.length; index += 1) {
     const evaluation = evaluations[index]!;
-    const level = rank[evaluation.category];
+    const level = severityOf(evaluation.category);
     tally[level]! += 1;
     if (level > worst) worst = level;
     if (level === 1) interval = stricterInterval(interval, evaluation.repeatInterval);
@@ -464,44 +472,51 @@ export function prepareRules(
   options?: { explain?: boolean; idsUnique?: boolean },
 ) => FindingEvaluation[] {
   validateRules(rules, new Set(Object.keys(rows)));
-  // Candidate rules by row, then damage; zones as sets. Built once, then each finding is a lookup.
-  const candidates = new Map<string, Map<string, Candidate[]>>();
+  // Each row with its count and its rules by damage, in the order given; each finding then looks up
+  // the list for its row, damage and zone, filtered once on first use.
+  const byRow = new Map<string, RowIndex>(
+    Object.entries(rows).map(([row, { count }]) => [row, { count, byDamage: new Map() }]),
+  );
   for (const rule of rules) {
-    let byDamage = candidates.get(rule.row);
-    if (!byDamage) candidates.set(rule.row, (byDamage = new Map()));
-    let list = byDamage.get(rule.damage);
-    if (!list) byDamage.set(rule.damage, (list = []));
-    list.push({
-      rule,
-      anyZone: rule.zones.includes('*'),
-      zones: new Set(rule.zones),
-      counts: hasCountLimit(rule),
-    });
+    const { byDamage } = byRow.get(rule.row)!;
+    let index = byDamage.get(rule.damage);
+    if (!index) byDamage.set(rule.damage, (index = { rules: [], byZone: new Map() }));
+    index.rules.push(rule);
   }
   const none: Candidate[] = [];
+  const candidatesFor = (row: RowIndex, finding: EvaluationFinding): Candidate[] => {
+    const index = row.byDamage.get(finding.damage);
+    if (!index) return none;
+    let list = index.byZone.get(finding.zone);
+    if (!list) {
+      list = index.rules
+        .filter((rule) => rule.zones.includes('*') || rule.zones.includes(finding.zone))
+        .map((rule) => ({ rule, counts: hasCountLimit(rule) }));
+      index.byZone.set(finding.zone, list);
+    }
+    return list;
+  };
 
   return (findings, options = {}) => {
     const explain = options.explain ?? true;
-    validateFindings(findings, rows, options.idsUnique ?? false);
+    if (!options.idsUnique) refuseRepeatedIds(findings);
     const matchedByRule = new Map<Rule, number[]>();
     const evaluations: FindingEvaluation[] = new Array(findings.length);
-    let current = 0;
-    const countMatch = (candidate: Candidate) => {
-      const matched = matchedByRule.get(candidate.rule);
-      if (matched) matched.push(current);
-      else matchedByRule.set(candidate.rule, [current]);
-    };
-    for (current = 0; current < findings.length; current += 1) {
+    for (let current = 0; current < findings.length; current += 1) {
       const finding = findings[current]!;
-      evaluations[current] = judgeFinding(
-        finding,
-        candidates.get(finding.row)?.get(finding.damage) ?? none,
-        explain,
-        countMatch,
-      );
+      const row = byRow.get(finding.row);
+      validateFinding(finding, current, row);
+      const candidates = candidatesFor(row, finding);
+      for (const candidate of candidates) {
+        if (!candidate.counts) continue;
+        const matched = matchedByRule.get(candidate.rule);
+        if (matched) matched.push(current);
+        else matchedByRule.set(candidate.rule, [current]);
+      }
+      evaluations[current] = judgeFinding(finding, candidates, explain);
     }
     for (const [rule, matched] of matchedByRule)
-      applyCountRule(rule, matched, findings, evaluations, rows[rule.row]!.count);
+      applyCountRule(rule, matched, findings, evaluations, byRow.get(rule.row)!.count);
     return evaluations;
   };
 }

@@ -9,7 +9,10 @@ import {
   tenMillimetreReference,
   uploadImages,
 } from '../../../test/inspection-fixtures';
+import { rawConnection } from '../../db/client';
+import { DEMO_MODEL_ID } from '../../demo/demo-fleet';
 import { DEMO_LIMIT_SET_ID } from '../../demo/demo-limits';
+import { currentFindings } from './findings.repository';
 
 let t: TestApp;
 let inspector: string;
@@ -451,5 +454,42 @@ describe('who may see and change findings', () => {
       .send({ name: model.name, notes: model.notes, rows });
     expect(response.status).toBe(409);
     expect(JSON.stringify(response.body)).toMatch(/hpt1-ngv/);
+  });
+});
+
+describe('the current findings read for an impact preview', () => {
+  it('reads every stored measurement back as the same double', () => {
+    // SQLite's JSON writes a real in the fewest digits that read back as it; a value a digit
+    // short would move a finding on a limit (DESIGN §5.2 compares exactly, within 1e-9).
+    const sqlite = rawConnection(t.runtime.ctx.db);
+    const awkward = [0.1 + 0.2, 1 / 3, 0.030000000000000002 * 25.4, 1.2000000000000002, 5e-324];
+    const stored = sqlite
+      .prepare(
+        `SELECT f.id FROM findings f JOIN inspections i ON i.id = f.inspection_id
+         WHERE f.status = 'recorded' AND i.state NOT IN ('released', 'void') LIMIT ?`,
+      )
+      .pluck()
+      .all(awkward.length) as string[];
+    expect(stored).toHaveLength(awkward.length);
+    sqlite.exec('BEGIN');
+    try {
+      const set = sqlite.prepare(
+        'UPDATE findings SET length_mm = ?, uncertainty_mm = ? WHERE id = ?',
+      );
+      stored.forEach((id, index) => set.run(awkward[index], awkward[index]! / 7, id));
+      const read = new Map<string, { lengthMm: number | null; uncertaintyMm: number | null }>();
+      const numbers = sqlite
+        .prepare("SELECT inspection_id || '#' || number FROM findings WHERE id = ?")
+        .pluck();
+      for (const { inspection, findings } of currentFindings(t.runtime.ctx.db, DEMO_MODEL_ID))
+        for (const finding of findings) read.set(`${inspection.id}#${finding.number}`, finding);
+      stored.forEach((id, index) => {
+        const finding = read.get(numbers.get(id) as string);
+        expect(finding?.lengthMm).toBe(awkward[index]);
+        expect(finding?.uncertaintyMm).toBe(awkward[index]! / 7);
+      });
+    } finally {
+      sqlite.exec('ROLLBACK');
+    }
   });
 });

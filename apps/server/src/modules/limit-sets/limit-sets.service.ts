@@ -21,11 +21,7 @@ import { appendAudit, listHistory } from '../audit/audit.repository';
 import { signaturesOf } from '../records/records.repository';
 import { confirmPassword } from '../auth/password-check';
 import { findEngineModel, listModelRows } from '../engine-models/engine-models.repository';
-import {
-  currentFindings,
-  findingRefs,
-  listCurrentInspections,
-} from '../findings/findings.repository';
+import { currentFindings, findingRefs } from '../findings/findings.repository';
 import { evaluateInspection } from '../findings/inspection-evaluation';
 import { draftInspectionIds } from '../inspections/inspections.repository';
 import {
@@ -403,11 +399,8 @@ export function createLimitSetsService(ctx: AppContext) {
         limitSetId: id,
         modelRows: listModelRows(db, row.modelId),
         rules,
-        inspections: new Map(
-          listCurrentInspections(db, row.modelId).map((inspection) => [inspection.id, inspection]),
-        ),
         revisions: new Map(listLimitSets(db, row.modelId).map((set) => [set.id, set.revision])),
-        findings: currentFindings(db, row.modelId),
+        current: currentFindings(db, row.modelId),
       });
       const refs = findingRefs(db, impact.changes);
       return {
