@@ -3,7 +3,12 @@ import os from 'node:os';
 import path from 'node:path';
 import { chromium } from '@playwright/test';
 import sharp from 'sharp';
-import { freePort, signInCookie, startServerProcess } from '../lib/server-process';
+import {
+  freePort,
+  openInspectionOverHttp,
+  signInCookie,
+  startServerProcess,
+} from '../lib/server-process';
 
 const FINDINGS = Number(process.env.BENCH_FINDINGS ?? 200);
 const CLICKS = 30;
@@ -16,24 +21,7 @@ const percentile = (samples: number[], p: number) => {
 /** An inspection with one 4000×3000 still and 200 findings drawn on it, through the API. */
 async function seed(base: string, cookie: string): Promise<string> {
   const json = { 'Content-Type': 'application/json', cookie };
-  const created = await fetch(`${base}/inspections`, {
-    method: 'POST',
-    headers: json,
-    body: JSON.stringify({
-      engineId: 'engine-d0103',
-      date: new Date().toISOString().slice(0, 10),
-      reason: 'scheduled',
-      csn: 9455,
-      tsn: 13237,
-      inspectorName: 'Bench',
-      qualificationRef: 'Q',
-      qualificationExpiresOn: '2099-01-01',
-      probe: 'P',
-      probeCalibrationDueOn: '2099-01-01',
-      rows: ['hpt1-blade'],
-    }),
-  });
-  const { id } = (await created.json()) as { id: string };
+  const id = await openInspectionOverHttp(base, cookie, { inspectorName: 'Bench' });
   const still = await sharp({
     create: {
       width: 4000,

@@ -4,7 +4,13 @@ import http from 'node:http';
 import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
-import { freePort, signInCookie, startServerProcess } from '../lib/server-process';
+import { oneFileEnvelope } from '../lib/multipart';
+import {
+  freePort,
+  openInspectionOverHttp,
+  signInCookie,
+  startServerProcess,
+} from '../lib/server-process';
 import { cpuSeconds, cpuSecondsByThread, peakRssBytes, threadCpuSince } from './memory';
 
 const IMAGES = Number(process.env.BENCH_INGEST_IMAGES ?? 200);
@@ -49,11 +55,7 @@ function postImage(
   inspectionId: string,
   file: string,
 ): Promise<number> {
-  const boundary = `----emberline${Math.random().toString(16).slice(2)}`;
-  const head = Buffer.from(
-    `--${boundary}\r\nContent-Disposition: form-data; name="files"; filename="${path.basename(file)}"\r\nContent-Type: image/jpeg\r\n\r\n`,
-  );
-  const tail = Buffer.from(`\r\n--${boundary}--\r\n`);
+  const { contentType, head, tail } = oneFileEnvelope(path.basename(file));
   const body = fs.readFileSync(file);
   return new Promise((resolve, reject) => {
     const request = http.request(
@@ -65,7 +67,7 @@ function postImage(
         agent,
         headers: {
           cookie,
-          'Content-Type': `multipart/form-data; boundary=${boundary}`,
+          'Content-Type': contentType,
           'Content-Length': head.length + body.length + tail.length,
         },
       },
@@ -117,24 +119,7 @@ export async function benchIngest() {
   const server = await startServerProcess(dataDir, port, {}, profile);
   const base = `http://127.0.0.1:${port}/api/v1`;
   const cookie = await signInCookie(base, 'inspector@demo.test');
-  const created = await fetch(`${base}/inspections`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json', cookie },
-    body: JSON.stringify({
-      engineId: 'engine-d0103',
-      date: new Date().toISOString().slice(0, 10),
-      reason: 'scheduled',
-      csn: 9455,
-      tsn: 13237,
-      inspectorName: 'Bench',
-      qualificationRef: 'Q',
-      qualificationExpiresOn: '2099-01-01',
-      probe: 'P',
-      probeCalibrationDueOn: '2099-01-01',
-      rows: ['hpt1-blade'],
-    }),
-  });
-  const { id } = (await created.json()) as { id: string };
+  const id = await openInspectionOverHttp(base, cookie, { inspectorName: 'Bench' });
   const cpuBefore = cpuSeconds(server.pid!);
   const threadsBefore = cpuSecondsByThread(server.pid!);
   const started = performance.now();

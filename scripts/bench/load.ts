@@ -6,7 +6,13 @@ import fs from 'node:fs';
 import os from 'node:os';
 import autocannon from 'autocannon';
 import sharp from 'sharp';
-import { freePort, signInCookie, startServerProcess } from '../lib/server-process';
+import { oneFileEnvelope } from '../lib/multipart';
+import {
+  freePort,
+  openInspectionOverHttp,
+  signInCookie,
+  startServerProcess,
+} from '../lib/server-process';
 import { peakRssBytes } from './memory';
 
 const DURATION_S = Number(process.env.BENCH_LOAD_SECONDS ?? 8);
@@ -49,7 +55,6 @@ async function run(scenario: Scenario, pid: number): Promise<Row> {
 
 /** Distinct stills as a probe's (1600 × 1200 JPEG, sensor-like noise), one multipart body each. */
 async function uploadBodies(count: number) {
-  const boundary = '----emberlineload';
   return Promise.all(
     Array.from({ length: count }, async (_, index) => {
       const image = await sharp({
@@ -63,16 +68,8 @@ async function uploadBodies(count: number) {
       })
         .jpeg({ quality: 88 })
         .toBuffer();
-      return {
-        boundary,
-        body: Buffer.concat([
-          Buffer.from(
-            `--${boundary}\r\nContent-Disposition: form-data; name="files"; filename="load-${index}.jpg"\r\nContent-Type: image/jpeg\r\n\r\n`,
-          ),
-          image,
-          Buffer.from(`\r\n--${boundary}--\r\n`),
-        ]),
-      };
+      const { contentType, head, tail } = oneFileEnvelope(`load-${index}.jpg`);
+      return { contentType, body: Buffer.concat([head, image, tail]) };
     }),
   );
 }
@@ -89,24 +86,12 @@ try {
     await fetch(`${base}/inspections/inspection-d0103-demo`, { headers: { cookie: inspector } })
   ).json()) as { images: { id: string }[] };
   const thumbnails = demo.images.map((image) => `/api/v1/images/${image.id}/thumbnail`);
-  const created = await fetch(`${base}/inspections`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json', cookie: inspector },
-    body: JSON.stringify({
-      engineId: 'engine-d0104',
-      date: new Date().toISOString().slice(0, 10),
-      reason: 'scheduled',
-      csn: 9000,
-      tsn: 13000,
-      inspectorName: 'Load Bench',
-      qualificationRef: 'Q-1',
-      qualificationExpiresOn: '2099-01-01',
-      probe: 'P-1',
-      probeCalibrationDueOn: '2099-01-01',
-      rows: ['hpt1-blade'],
-    }),
+  const inspectionId = await openInspectionOverHttp(base, inspector, {
+    inspectorName: 'Load Bench',
+    engineId: 'engine-d0104',
+    csn: 9000,
+    tsn: 13000,
   });
-  const inspectionId = ((await created.json()) as { id: string }).id;
   const uploads = await uploadBodies(80);
   const url = `http://127.0.0.1:${port}`;
   const common = { url, duration: DURATION_S, workers: 0 };
@@ -160,7 +145,7 @@ try {
                 ...request,
                 headers: {
                   cookie: inspector,
-                  'content-type': `multipart/form-data; boundary=${upload.boundary}`,
+                  'content-type': upload.contentType,
                 },
                 body: upload.body,
               };

@@ -68,3 +68,35 @@ export async function signInCookie(
   if (!response.ok) throw new Error(`sign-in of ${email} answered ${response.status}`);
   return (response.headers.get('set-cookie') ?? '').split(';')[0]!;
 }
+
+/**
+ * Opens a draft inspection of one blade row through the API (for the fault tests and the
+ * benchmarks) and returns its id; by default on the demo's VT3-D0103 at its current cycles.
+ */
+export async function openInspectionOverHttp(
+  base: string,
+  cookie: string,
+  particulars: { inspectorName: string; engineId?: string; csn?: number; tsn?: number },
+): Promise<string> {
+  const { inspectorName, engineId = 'engine-d0103', csn = 9455, tsn = 13237 } = particulars;
+  const response = await fetch(`${base}/inspections`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json', cookie },
+    body: JSON.stringify({
+      engineId,
+      date: new Date().toISOString().slice(0, 10),
+      reason: 'scheduled',
+      csn,
+      tsn,
+      inspectorName,
+      qualificationRef: 'Q-1',
+      qualificationExpiresOn: '2099-01-01',
+      probe: 'P-1',
+      probeCalibrationDueOn: '2099-01-01',
+      rows: ['hpt1-blade'],
+    }),
+  });
+  if (response.status !== 201)
+    throw new Error(`opening an inspection answered ${response.status}: ${await response.text()}`);
+  return ((await response.json()) as { id: string }).id;
+}

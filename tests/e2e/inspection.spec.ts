@@ -1,3 +1,4 @@
+import type { Page } from '@playwright/test';
 import sharp from 'sharp';
 import { expect, signIn, test } from './fixtures';
 
@@ -21,19 +22,24 @@ async function stills(count: number) {
   );
 }
 
-test('the inspector opens an inspection, drops 20 images, browses and zooms them, and grabs a video frame', async ({
-  page,
-}) => {
-  test.setTimeout(90_000);
+/** Signs in as the inspector and opens a new inspection of VT3-D0104 through its form. */
+async function openInspectionOfD0104(page: Page, probeCalibrationDue: string) {
   await signIn(page, 'inspector@demo.test');
   await page.goto('/fleet/engine-d0104');
   await page.getByRole('link', { name: 'New inspection' }).click();
   await page.getByLabel('Qualification reference').fill('DEMO-L2-0099');
   await page.getByLabel('Qualification valid until').fill('2027-12-31');
   await page.getByLabel('Probe (model and serial)').fill('Demo probe VX-6 s/n 7');
-  await page.getByLabel('Probe calibration due').fill('2020-01-01');
+  await page.getByLabel('Probe calibration due').fill(probeCalibrationDue);
   await page.getByRole('button', { name: 'Open the inspection' }).click();
   await expect(page.getByRole('heading', { name: /Inspection of VT3-D0104/ })).toBeVisible();
+}
+
+test('the inspector opens an inspection, drops 20 images, browses and zooms them, and grabs a video frame', async ({
+  page,
+}) => {
+  test.setTimeout(90_000);
+  await openInspectionOfD0104(page, '2020-01-01');
 
   // An expired calibration is flagged and must be acknowledged with a reason.
   await expect(page.getByText('The probe’s calibration was due on 1 Jan 2020')).toBeVisible();
@@ -164,15 +170,7 @@ test('an upload held by the server’s rate limit waits its turn and goes again 
   page,
   expectHttpError,
 }) => {
-  await signIn(page, 'inspector@demo.test');
-  await page.goto('/fleet/engine-d0104');
-  await page.getByRole('link', { name: 'New inspection' }).click();
-  await page.getByLabel('Qualification reference').fill('DEMO-L2-0099');
-  await page.getByLabel('Qualification valid until').fill('2027-12-31');
-  await page.getByLabel('Probe (model and serial)').fill('Demo probe VX-6 s/n 7');
-  await page.getByLabel('Probe calibration due').fill('2027-01-01');
-  await page.getByRole('button', { name: 'Open the inspection' }).click();
-  await expect(page.getByRole('heading', { name: /Inspection of VT3-D0104/ })).toBeVisible();
+  await openInspectionOfD0104(page, '2027-01-01');
 
   // The first upload is answered as the server answers past its limit; the rest go through.
   expectHttpError(429, /\/images$/);

@@ -6,7 +6,12 @@ import path from 'node:path';
 import Database from 'better-sqlite3';
 import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
-import { freePort, signInCookie, startServerProcess } from '../../scripts/lib/server-process';
+import {
+  freePort,
+  openInspectionOverHttp,
+  signInCookie,
+  startServerProcess,
+} from '../../scripts/lib/server-process';
 
 const sha256 = (data: Buffer) => createHash('sha256').update(data).digest('hex');
 
@@ -53,25 +58,9 @@ describe('pnpm backup and pnpm restore', () => {
     const restoredDir = fs.mkdtempSync(path.join(os.tmpdir(), 'emberline-restored-'));
     try {
       const cookie = await signInCookie(base, 'inspector@demo.test');
-      const created = await fetch(`${base}/inspections`, {
-        method: 'POST',
-        headers: { 'Content-Type': 'application/json', cookie },
-        body: JSON.stringify({
-          engineId: 'engine-d0103',
-          date: new Date().toISOString().slice(0, 10),
-          reason: 'scheduled',
-          csn: 9455,
-          tsn: 13237,
-          inspectorName: 'Backup Test',
-          qualificationRef: 'Q-1',
-          qualificationExpiresOn: '2099-01-01',
-          probe: 'P-1',
-          probeCalibrationDueOn: '2099-01-01',
-          rows: ['hpt1-blade'],
-        }),
+      const inspectionId = await openInspectionOverHttp(base, cookie, {
+        inspectorName: 'Backup Test',
       });
-      expect(created.status).toBe(201);
-      const inspectionId = ((await created.json()) as { id: string }).id;
       const acknowledged: string[] = [];
       let uploading = true;
       const uploader = async (lane: number) => {

@@ -4,7 +4,12 @@ import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
 import { afterAll, describe, expect, it } from 'vitest';
-import { freePort, signInCookie, startServerProcess } from '../../scripts/lib/server-process';
+import {
+  freePort,
+  openInspectionOverHttp,
+  signInCookie,
+  startServerProcess,
+} from '../../scripts/lib/server-process';
 
 // QUALITY §3: a full disk for real, on a small tmpfs holding the whole data directory. Mounting
 // needs root and a kernel that allows it; where the machine refuses, this variant says so and is
@@ -54,25 +59,9 @@ describe('a full disk under the data directory', () => {
       const base = `http://127.0.0.1:${port}/api/v1`;
       server = await startServerProcess(dataDir, port, { FROM_SOURCES: '1' });
       const cookie = await signInCookie(base, 'inspector@demo.test');
-      const created = await fetch(`${base}/inspections`, {
-        method: 'POST',
-        headers: { 'Content-Type': 'application/json', cookie },
-        body: JSON.stringify({
-          engineId: 'engine-d0103',
-          date: new Date().toISOString().slice(0, 10),
-          reason: 'scheduled',
-          csn: 9455,
-          tsn: 13237,
-          inspectorName: 'Disk Test',
-          qualificationRef: 'Q-1',
-          qualificationExpiresOn: '2099-01-01',
-          probe: 'P-1',
-          probeCalibrationDueOn: '2099-01-01',
-          rows: ['hpt1-blade'],
-        }),
+      const inspectionId = await openInspectionOverHttp(base, cookie, {
+        inspectorName: 'Disk Test',
       });
-      expect(created.status).toBe(201);
-      const inspectionId = ((await created.json()) as { id: string }).id;
       const upload = async (data: Buffer, name: string) => {
         const form = new FormData();
         form.append('files', new Blob([new Uint8Array(data)], { type: 'image/jpeg' }), name);

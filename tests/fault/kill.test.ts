@@ -6,7 +6,12 @@ import path from 'node:path';
 import Database from 'better-sqlite3';
 import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
-import { freePort, signInCookie, startServerProcess } from '../../scripts/lib/server-process';
+import {
+  freePort,
+  openInspectionOverHttp,
+  signInCookie,
+  startServerProcess,
+} from '../../scripts/lib/server-process';
 
 // QUALITY §3 kill test: concurrent uploads, the server killed (SIGKILL) at a random moment and
 // restarted, 20 rounds; every acknowledged upload must survive, and nothing may be left orphaned.
@@ -36,26 +41,7 @@ describe('uploads survive a killed server', () => {
     const base = `http://127.0.0.1:${port}/api/v1`;
     let server = await startServerProcess(dataDir, port, { FROM_SOURCES: '1' });
     const cookie = await signInCookie(base, 'inspector@demo.test');
-    const today = new Date().toISOString().slice(0, 10);
-    const created = await fetch(`${base}/inspections`, {
-      method: 'POST',
-      headers: { 'Content-Type': 'application/json', cookie },
-      body: JSON.stringify({
-        engineId: 'engine-d0103',
-        date: today,
-        reason: 'scheduled',
-        csn: 9455,
-        tsn: 13237,
-        inspectorName: 'Kill Test',
-        qualificationRef: 'Q-1',
-        qualificationExpiresOn: '2099-01-01',
-        probe: 'P-1',
-        probeCalibrationDueOn: '2099-01-01',
-        rows: ['hpt1-blade'],
-      }),
-    });
-    expect(created.status).toBe(201);
-    const inspectionId = ((await created.json()) as { id: string }).id;
+    const inspectionId = await openInspectionOverHttp(base, cookie, { inspectorName: 'Kill Test' });
 
     const acknowledged = new Map<string, string>();
     let cut = 0;

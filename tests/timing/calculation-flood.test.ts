@@ -3,29 +3,16 @@ import os from 'node:os';
 import path from 'node:path';
 import { spawn } from 'node:child_process';
 import { describe, expect, it } from 'vitest';
+import { largestOutline, obliqueView } from '../../packages/domain/src/fixtures/largest-shape';
 import { freePort, signInCookie, startServerProcess } from '../../scripts/lib/server-process';
 
 // Timed after every other test project has finished (vite.config.ts, sequence.groupOrder).
 const staff = ['engineer', 'planner', 'inspector', 'admin'].map((role) => `${role}@demo.test`);
 
-const circle = Array.from({ length: 2000 }, (_, index) => {
-  const angle = (index / 2000) * 2 * Math.PI;
-  return [500 + 300 * Math.cos(angle), 500 + 300 * Math.sin(angle)];
-});
 // The largest shape there is (2,000 points) on an oblique view.
 const measurement = JSON.stringify({
-  calibration: {
-    kind: 'plane',
-    corners: [
-      [100, 100],
-      [900, 140],
-      [860, 900],
-      [120, 860],
-    ],
-    widthMm: 20,
-    heightMm: 10,
-  },
-  shape: { kind: 'polygon', points: circle },
+  calibration: obliqueView,
+  shape: { kind: 'polygon', points: largestOutline },
 });
 const rule = (index: number) => ({
   id: `R${index}`,

@@ -38,13 +38,16 @@ export type PlaneCalibration = z.infer<typeof planeCalibrationSchema>;
 export const shapeKindSchema = z.enum(['polyline', 'polygon', 'point']);
 export type ShapeKind = z.infer<typeof shapeKindSchema>;
 
+/** The most points a drawn shape may have: measured in a few milliseconds (QUALITY §4). */
+export const MAX_SHAPE_POINTS = 2000;
+
 /**
  * A drawn shape. How many points each kind needs (a polyline two, a polygon three, a point one) is
  * a rule of the geometry, checked by the domain (422), not by the schema.
  */
 export const shapeSchema = z.strictObject({
   kind: shapeKindSchema,
-  points: z.array(imagePointSchema).min(1).max(2000),
+  points: z.array(imagePointSchema).min(1).max(MAX_SHAPE_POINTS),
 });
 export type Shape = z.infer<typeof shapeSchema>;
 

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { Calibration } from '@emberline/contracts/measurement';
+import { largestOutline, obliqueView } from './fixtures/largest-shape';
 import { measure } from './measurement';
 
 const reference: Calibration = { kind: 'reference', p1: [0, 0], p2: [100, 0], lengthMm: 10 };
@@ -285,23 +286,9 @@ describe('plane calibration', () => {
 });
 
 describe('the cost of a large shape', () => {
-  // An oblique view of a 20 × 10 mm rectangle and a 2,000-point outline round a 300 px circle:
-  // the most points a shape may have (contracts: shapeSchema).
-  const oblique: Calibration = {
-    kind: 'plane',
-    corners: [
-      [100, 100],
-      [900, 140],
-      [860, 900],
-      [120, 860],
-    ],
-    widthMm: 20,
-    heightMm: 10,
-  };
-  const circle = Array.from({ length: 2000 }, (_, index): [number, number] => {
-    const angle = (index / 2000) * 2 * Math.PI;
-    return [500 + 300 * Math.cos(angle), 500 + 300 * Math.sin(angle)];
-  });
+  // The most points a shape may have, on an oblique view (contracts: shapeSchema).
+  const oblique = obliqueView;
+  const circle = largestOutline;
 
   /** §5.1's plane uncertainty as written: the whole figure measured again for every nudge. */
   function uncertaintyByDefinition(kind: 'polyline' | 'polygon', points: [number, number][]) {

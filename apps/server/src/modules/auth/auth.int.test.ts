@@ -149,6 +149,25 @@ describe('sign-in', () => {
     expect(right.status).toBe(429);
   });
 
+  it('says to wait until the oldest counted failure leaves the window, not the whole window', async () => {
+    const t = await start();
+    const wrong = (attempt: number) =>
+      request(t.app)
+        .post('/api/v1/auth/login')
+        .send({ email: demoAccounts.admin, password: `wrong-${attempt}` });
+    expect((await wrong(1)).status).toBe(401);
+    // Ten minutes later nine more: the first of the ten ages out five minutes from now.
+    t.clock.advance(10 * 60_000);
+    for (let attempt = 2; attempt <= 10; attempt += 1)
+      expect((await wrong(attempt)).status, `attempt ${attempt}`).toBe(401);
+    const held = await wrong(11);
+    expect(held.status).toBe(429);
+    expect(held.headers['retry-after']).toBe(String(5 * 60));
+    expect(held.body.error.message).toMatch(/Wait 5 minutes/);
+    t.clock.advance(5 * 60_000 + 1000);
+    expect((await wrong(12)).status).toBe(401);
+  });
+
   it('counts wrong current passwords of a password change with the sign-ins', async () => {
     const t = await start();
     const cookie = await t.signIn(demoAccounts.inspector);

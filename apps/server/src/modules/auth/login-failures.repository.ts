@@ -1,4 +1,4 @@
-import { and, count, desc, eq, gte, inArray, lt, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, gte, inArray, lt, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../../db/client';
 import { loginFailures } from '../../db/schema';
 
@@ -10,6 +10,21 @@ export function countFailuresSince(db: DbOrTx, key: string, since: Date): number
       .where(and(eq(loginFailures.key, key), gte(loginFailures.at, since)))
       .get()?.n ?? 0
   );
+}
+
+/**
+ * When the `skip`+1-th oldest failure of a key since a moment was counted: the one whose expiry
+ * brings the count back under a limit of (count − skip).
+ */
+export function failureSince(db: DbOrTx, key: string, since: Date, skip: number): Date | undefined {
+  return db
+    .select({ at: loginFailures.at })
+    .from(loginFailures)
+    .where(and(eq(loginFailures.key, key), gte(loginFailures.at, since)))
+    .orderBy(asc(loginFailures.at), asc(loginFailures.id))
+    .limit(1)
+    .offset(skip)
+    .get()?.at;
 }
 
 /** When the latest failure of a key was counted, if any is kept. */

@@ -7,6 +7,7 @@ import {
   clearFailures,
   countFailuresSince,
   deleteFailures,
+  failureSince,
   latestFailure,
   pruneFailures,
   recordFailures,
@@ -82,14 +83,23 @@ export function beginPasswordCheck(ctx: Limits, email: string, meta: RequestMeta
   };
   const pairCount = countFailuresSince(db, keys.pair, since);
   const addressCount = countFailuresSince(db, keys.address, since);
-  if (pairCount >= config.loginMaxFailures || addressCount >= config.loginMaxFailuresPerIp) {
-    const oldestWait = config.loginWindowMs / 1000;
+  // Past a limit, the wait lasts until enough of the window's failures have aged out of it to
+  // bring the count back under the limit.
+  const waitFor = (key: string, count: number, limit: number): number => {
+    if (count < limit) return 0;
+    const freeing = failureSince(db, key, since, count - limit);
+    return freeing ? (freeing.getTime() + config.loginWindowMs - now) / 1000 : 0;
+  };
+  const pairWait = waitFor(keys.pair, pairCount, config.loginMaxFailures);
+  const addressWait = waitFor(keys.address, addressCount, config.loginMaxFailuresPerIp);
+  if (pairWait > 0 || addressWait > 0) {
+    const wait = Math.max(pairWait, addressWait);
     throw refuse(
       tooMany(
-        oldestWait,
-        `Too many wrong passwords. Wait ${waitWords(oldestWait)} and try again, or reset your password.`,
+        wait,
+        `Too many wrong passwords. Wait ${waitWords(wait)} and try again, or reset your password.`,
       ),
-      pairCount >= config.loginMaxFailures ? 'pair' : 'address',
+      pairWait >= addressWait ? 'pair' : 'address',
     );
   }
   const accountCount = countFailuresSince(
