@@ -6,14 +6,19 @@ import {
 import type { EngineModelRow } from '@emberline/contracts/fleet';
 import { categories, type Category, type Rule } from '@emberline/contracts/limits';
 import { verdictChange } from '@emberline/domain/impact';
-import { prepareRules, worse } from '@emberline/domain/limits';
+import { prepareRules, severity, worse } from '@emberline/domain/limits';
 import type { CurrentFinding, CurrentInspection } from '../findings/findings.repository';
 
-const zeroCounts = () =>
-  Object.fromEntries(categories.map((category) => [category, 0])) as Record<Category, number>;
+/** Counts by severity (0 serviceable … 3 beyond limits), as each category's count. */
+const countsOf = (tally: readonly number[]) =>
+  Object.fromEntries(
+    categories.map((category) => [category, tally[severity(category)]!]),
+  ) as Record<Category, number>;
 
 const worseOrNull = (a: Category | null, b: Category | null) =>
   a === null ? b : b === null ? a : worse(a, b);
+
+const bySeverity = [...categories].sort((a, b) => severity(a) - severity(b));
 
 /** As `localeCompare`, with one collator made once: thousands of changes are sorted. */
 const byText = new Intl.Collator();
@@ -39,8 +44,8 @@ export function limitSetImpact(input: {
 }): LimitSetImpact {
   const rows = Object.fromEntries(input.modelRows.map((row) => [row.key, { count: row.count }]));
   const judgeAll = prepareRules(rows, input.rules);
-  const before = zeroCounts();
-  const after = zeroCounts();
+  const before = [0, 0, 0, 0];
+  const after = [0, 0, 0, 0];
   const changes: ImpactChange[] = [];
   const engines = new Map<string, LimitSetImpact['engines'][number]>();
   let judgedInspections = 0;
@@ -60,13 +65,20 @@ export function limitSetImpact(input: {
     engines.set(inspection.engineId, engine);
     // A current finding's id is its number, unique within its inspection: not checked again.
     const judged = judgeAll(group, { explain: false, idsUnique: true });
+    let worstBefore = -1;
+    let worstAfter = -1;
     for (let index = 0; index < group.length; index += 1) {
       const finding = group[index]!;
       const evaluation = judged[index]!;
-      if (finding.category) before[finding.category] += 1;
-      after[evaluation.category] += 1;
-      engine.before = worseOrNull(engine.before, finding.category);
-      engine.after = worseOrNull(engine.after, evaluation.category);
+      // Tallied by severity here, and the engine's worst taken once per inspection below.
+      if (finding.category) {
+        const level = severity(finding.category);
+        before[level]! += 1;
+        if (level > worstBefore) worstBefore = level;
+      }
+      const level = severity(evaluation.category);
+      after[level]! += 1;
+      if (level > worstAfter) worstAfter = level;
       const change = verdictChange(finding, evaluation);
       if (change === 'same') continue;
       engine.changedFindings += 1;
@@ -96,6 +108,8 @@ export function limitSetImpact(input: {
         relaxed: change === 'relaxed',
       });
     }
+    if (worstBefore >= 0) engine.before = worseOrNull(engine.before, bySeverity[worstBefore]!);
+    engine.after = worseOrNull(engine.after, bySeverity[worstAfter]!);
   }
 
   changes.sort(
@@ -109,8 +123,8 @@ export function limitSetImpact(input: {
     limitSetId: input.limitSetId,
     inspections: judgedInspections,
     findings: total,
-    before,
-    after,
+    before: countsOf(before),
+    after: countsOf(after),
     changedCount: changes.length,
     changes: changes.slice(0, impactListLimit),
     engines: [...engines.values()]
