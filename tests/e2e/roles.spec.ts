@@ -6,16 +6,24 @@ const expectedNavigation: Record<string, string[]> = {
   'admin@demo.test': [
     'Fleet',
     'Review queue',
+    'Findings',
     'Limit library',
     'Planning board',
     'Reports',
     'Admin',
   ],
-  'inspector@demo.test': ['Fleet', 'Limit library', 'Reports'],
-  'engineer@demo.test': ['Fleet', 'Review queue', 'Limit library', 'Planning board', 'Reports'],
-  'planner@demo.test': ['Fleet', 'Limit library', 'Planning board', 'Reports'],
-  'customer@demo.test': ['Fleet', 'Reports'],
-  'customer2@demo.test': ['Fleet', 'Reports'],
+  'inspector@demo.test': ['Fleet', 'Findings', 'Limit library', 'Reports'],
+  'engineer@demo.test': [
+    'Fleet',
+    'Review queue',
+    'Findings',
+    'Limit library',
+    'Planning board',
+    'Reports',
+  ],
+  'planner@demo.test': ['Fleet', 'Findings', 'Limit library', 'Planning board', 'Reports'],
+  'customer@demo.test': ['Fleet', 'Findings', 'Reports'],
+  'customer2@demo.test': ['Fleet', 'Findings', 'Reports'],
 };
 
 for (const [email, items] of Object.entries(expectedNavigation)) {

@@ -25,6 +25,7 @@ import { reviewRoutes } from './modules/review/review.routes';
 import { planningRoutes } from './modules/planning/planning.routes';
 import { reportsRoutes } from './modules/reports/reports.routes';
 import { exportsRoutes } from './modules/exports/exports.routes';
+import { fleetFindingsRoutes } from './modules/fleet-findings/fleet-findings.routes';
 import { healthRoutes } from './modules/health/health.routes';
 import { installationRoutes } from './modules/installation/installation.routes';
 import { openApiRoutes } from './modules/openapi/openapi.routes';
@@ -54,8 +55,9 @@ export function createApiRouter(ctx: AppContext): Router {
   api.use(utilizationRoutes(ctx));
   api.use(inspectionsRoutes(ctx));
   api.use(imagesRoutes(ctx));
-  // Before the findings routes: /findings/export is not a finding.
+  // Before the findings routes: /findings/export is not a finding, nor is the search.
   api.use(exportsRoutes(ctx));
+  api.use(fleetFindingsRoutes(ctx));
   api.use(findingsRoutes(ctx));
   api.use(coverageRoutes(ctx));
   api.use(limitSetsRoutes(ctx));

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { isoDateSchema } from './forecast';
+import { daysInOrder, findingSearchFilters } from './fleet-findings';
 
 /** Findings as CSV or XLSX (one row a recorded finding, units in the headers). */
 export const tableFormats = ['csv', 'xlsx'] as const;
@@ -22,19 +22,11 @@ export const engineExportQuerySchema = z.strictObject({
 });
 
 /** The fleet's findings, narrowed like the fleet list; customers get their own whatever is asked. */
+/** The fleet's findings as a file: what the fleet findings search selects, in its order. */
 export const fleetExportQuerySchema = z
   .strictObject({
     format: z.enum(tableFormats, { message: 'Choose csv or xlsx' }),
-    modelId: z.string().trim().min(1).max(64).optional(),
-    organisationId: z.string().trim().min(1).max(64).optional(),
-    engineId: z.string().trim().min(1).max(64).optional(),
-    /** Inspections on or after this day. */
-    from: isoDateSchema.optional(),
-    /** Inspections on or before this day. */
-    to: isoDateSchema.optional(),
+    ...findingSearchFilters,
   })
-  .refine((query) => !query.from || !query.to || query.from <= query.to, {
-    message: 'The first day comes after the last',
-    path: ['to'],
-  });
+  .refine(daysInOrder, { message: 'The first day comes after the last', path: ['to'] });
 export type FleetExportQuery = z.output<typeof fleetExportQuerySchema>;

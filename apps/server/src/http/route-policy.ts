@@ -77,6 +77,7 @@ export const routePolicy = {
   'GET /inspections/:id/export': 'read:inspection',
   'GET /engines/:id/export': 'read:engine',
   'GET /findings/export': 'read:inspection',
+  'GET /findings': 'read:inspection',
   'GET /urgent-notices/undelivered': 'review:inspection',
   'GET /verify/:code': 'public',
   'POST /verify/:code/file': 'public',

@@ -80,6 +80,10 @@ const router = createBrowserRouter([
         lazy: async () => ({ Component: (await import('./routes/planning')).PlanningRoute }),
       },
       {
+        path: 'findings',
+        lazy: async () => ({ Component: (await import('./routes/findings')).FindingsRoute }),
+      },
+      {
         path: 'reports',
         lazy: async () => ({ Component: (await import('./routes/reports')).ReportsRoute }),
       },

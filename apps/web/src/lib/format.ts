@@ -1,4 +1,5 @@
 import { dayWords } from '@emberline/domain/dates';
+import { MM_PER_INCH, MM2_PER_SQUARE_INCH } from '@emberline/domain/units';
 /** Hours with one decimal and thousands separated, as logbooks show them. */
 export function formatHours(value: number): string {
   return value.toLocaleString('en-GB', { minimumFractionDigits: 1, maximumFractionDigits: 1 });
@@ -39,4 +40,20 @@ export function formatDateTime(value: string | null): string {
     timeZone: 'UTC',
   });
   return `${day}, ${time} UTC`;
+}
+
+const fixed = (value: number, digits: number) =>
+  value.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
+
+/** A length in mm with its uncertainty, and the same in inches: 1.30 mm ± 0.09 (0.0512 in ± 0.0034). */
+export function formatLength(mm: number, uncertainty: number | null): string {
+  const inches = mm / MM_PER_INCH;
+  const inchUncertainty = uncertainty === null ? null : uncertainty / MM_PER_INCH;
+  return `${fixed(mm, 2)} mm${uncertainty === null ? '' : ` ± ${fixed(uncertainty, 2)}`} (${fixed(inches, 4)} in${inchUncertainty === null ? '' : ` ± ${fixed(inchUncertainty, 4)}`})`;
+}
+
+/** An area in mm² with its uncertainty, and the same in square inches. */
+export function formatArea(mm2: number, uncertainty: number | null): string {
+  const square = mm2 / MM2_PER_SQUARE_INCH;
+  return `${fixed(mm2, 2)} mm²${uncertainty === null ? '' : ` ± ${fixed(uncertainty, 2)}`} (${fixed(square, 5)} in²)`;
 }

@@ -210,6 +210,21 @@ describe('exports of findings (CSV, XLSX) and of a whole inspection (JSON)', () 
     expect(new Set(narrowed.rows.map((row) => row.Engine))).toEqual(new Set(['VT3-D0201']));
     // Submitted findings carry their verdict and no decision yet.
     expect(narrowed.rows.every((row) => row.Decision === '')).toBe(true);
+    // The fleet export holds what the fleet search selects, in its order.
+    const searched = (
+      await request(t.app)
+        .get('/api/v1/findings?row=hpt1-blade&damage=crack&sort=lengthMm&order=desc&pageSize=100')
+        .set('Cookie', engineer)
+    ).body as { total: number; items: { lengthMm: number }[] };
+    const cracks = await csvRows(
+      '/findings/export?format=csv&row=hpt1-blade&damage=crack&sort=lengthMm&order=desc',
+      engineer,
+    );
+    expect(cracks.rows).toHaveLength(searched.total);
+    expect(cracks.rows.map((row) => Number(row['Length (mm)']))).toEqual(
+      searched.items.map((item) => Number(item.lengthMm.toFixed(4))),
+    );
+    expect(new Set(cracks.rows.map((row) => row.Damage))).toEqual(new Set(['crack']));
     const backwards = await request(t.app)
       .get('/api/v1/findings/export?format=csv&from=2026-06-01&to=2026-05-01')
       .set('Cookie', engineer);

@@ -1,5 +1,7 @@
 import type { Inspection } from '@emberline/contracts/inspections';
 import type { ExportFormat, FleetExportQuery } from '@emberline/contracts/exports';
+import { createFleetFindingsService } from '../fleet-findings/fleet-findings.service';
+import { findingInspections } from '../fleet-findings/fleet-findings.repository';
 import { todayIn } from '../planning/planning.service';
 import type { AppContext } from '../../context';
 import type { Principal } from '../../http/principal';
@@ -37,6 +39,7 @@ export function createExportsService(ctx: AppContext) {
   const findings = createFindingsService(ctx);
   const coverage = createCoverageService(ctx);
   const review = createReviewService(ctx);
+  const search = createFleetFindingsService(ctx);
 
   /** The recorded findings of some inspections, each with its engine, row name and decision. */
   function linesOf(principal: Principal, of: readonly Inspection[]): FindingLine[] {
@@ -139,23 +142,27 @@ export function createExportsService(ctx: AppContext) {
       return table(format, `emberline-findings-${engine.serialNumber}`, linesOf(principal, list));
     },
 
+    /**
+     * The findings the fleet search selects, in its order, up to `findingExportLimit` (the file
+     * then says in its name that it holds the first of them).
+     */
     async fleet(principal: Principal, query: FleetExportQuery): Promise<ExportFile> {
-      const list = recorded(inspections.list(principal, undefined)).filter(
-        (inspection) =>
-          (!query.from || inspection.date >= query.from) &&
-          (!query.to || inspection.date <= query.to) &&
-          (!query.engineId || inspection.engineId === query.engineId),
-      );
-      const lines = linesOf(principal, list).filter(
-        (line) =>
-          (!query.organisationId || line.engine.organisationId === query.organisationId) &&
-          (!query.modelId || line.engine.modelId === query.modelId),
-      );
-      return table(
-        query.format,
-        `emberline-findings-fleet-${todayIn(ctx.config.timeZone, ctx.now())}`,
-        lines,
-      );
+      const { format, ...selection } = query;
+      const { ids, total } = search.matchingIds(principal, selection);
+      const order = new Map(ids.map((id, index) => [id, index]));
+      const inspectionIds = [...new Set(findingInspections(ctx.db, ids))];
+      const lines = linesOf(
+        principal,
+        inspectionIds.map((id) => inspections.detail(principal, id)),
+      )
+        .filter((line) => order.has(line.finding.id))
+        .sort((a, b) => order.get(a.finding.id)! - order.get(b.finding.id)!);
+      const day = todayIn(ctx.config.timeZone, ctx.now());
+      const name =
+        total > ids.length
+          ? `emberline-findings-fleet-${day}-first-${ids.length}-of-${total}`
+          : `emberline-findings-fleet-${day}`;
+      return table(format, name, lines);
     },
   };
 }

@@ -3,39 +3,30 @@ import type { Rule } from '@emberline/contracts/limits';
 import type { Disposition } from '@emberline/contracts/review';
 import { decisionWords } from '@emberline/domain/decision-words';
 import { comparisonWords, ruleName } from '@emberline/domain/verdict-words';
-import { MM_PER_INCH, unitSymbols } from '@emberline/domain/units';
+import { unitSymbols } from '@emberline/domain/units';
 import { Link } from 'react-router-dom';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
-import { formatDate, formatDateTime, formatKey } from '../../../lib/format';
+import {
+  formatArea,
+  formatDate,
+  formatDateTime,
+  formatKey,
+  formatLength,
+} from '../../../lib/format';
 import { reasonLabels } from '../../../lib/reason-labels';
 import { useDamageSeries } from '../api/review';
 import { useJudgedAgainst } from '../../../lib/limit-set-query';
 import { FindingTrend } from './finding-trend';
 
-const fixed = (value: number, digits: number) =>
-  value.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
-
-/** A length in mm with its uncertainty, and the same in inches. */
-function lengthWords(mm: number, uncertainty: number | null): string {
-  const inches = mm / MM_PER_INCH;
-  const inchUncertainty = uncertainty === null ? null : uncertainty / MM_PER_INCH;
-  return `${fixed(mm, 2)} mm${uncertainty === null ? '' : ` ± ${fixed(uncertainty, 2)}`} (${fixed(inches, 4)} in${inchUncertainty === null ? '' : ` ± ${fixed(inchUncertainty, 4)}`})`;
-}
-
-function areaWords(mm2: number, uncertainty: number | null): string {
-  const square = mm2 / (MM_PER_INCH * MM_PER_INCH);
-  return `${fixed(mm2, 2)} mm²${uncertainty === null ? '' : ` ± ${fixed(uncertainty, 2)}`} (${fixed(square, 5)} in²)`;
-}
-
 /** The figures of a finding as measured, in mm and in. */
 function measurementLines(finding: Finding): string[] {
   const lines: string[] = [];
   if (finding.lengthMm !== null)
-    lines.push(`Length ${lengthWords(finding.lengthMm, finding.uncertaintyMm)}`);
+    lines.push(`Length ${formatLength(finding.lengthMm, finding.uncertaintyMm)}`);
   if (finding.areaMm2 !== null)
-    lines.push(`Area ${areaWords(finding.areaMm2, finding.uncertaintyMm2)}`);
-  if (finding.widthMm !== null) lines.push(`Width ${lengthWords(finding.widthMm, null)}`);
-  if (finding.depthMm !== null) lines.push(`Depth ${lengthWords(finding.depthMm, null)}`);
+    lines.push(`Area ${formatArea(finding.areaMm2, finding.uncertaintyMm2)}`);
+  if (finding.widthMm !== null) lines.push(`Width ${formatLength(finding.widthMm, null)}`);
+  if (finding.depthMm !== null) lines.push(`Depth ${formatLength(finding.depthMm, null)}`);
   if (finding.count !== null) lines.push(`Count ${finding.count}`);
   if (lines.length === 0) lines.push('Nothing measured');
   return lines;
@@ -143,8 +134,8 @@ export function FindingReview({
                   F{entry.number} of {formatDate(entry.inspectionDate)}
                 </Link>{' '}
                 at CSN {entry.csn.toLocaleString('en-GB')}:{' '}
-                {entry.lengthMm !== null ? lengthWords(entry.lengthMm, entry.uncertaintyMm) : ''}
-                {entry.areaMm2 !== null ? areaWords(entry.areaMm2, entry.uncertaintyMm2) : ''}
+                {entry.lengthMm !== null ? formatLength(entry.lengthMm, entry.uncertaintyMm) : ''}
+                {entry.areaMm2 !== null ? formatArea(entry.areaMm2, entry.uncertaintyMm2) : ''}
               </li>
             ))}
           </ul>
