@@ -4,6 +4,7 @@ import { execFileSync } from 'node:child_process';
 import { benchAnnotation } from './annotation';
 import { benchEngineList } from './engine-list';
 import { benchEvaluation } from './evaluation';
+import { benchFindingsSearch } from './findings-search';
 import { benchImpact } from './impact';
 import { benchIngest } from './ingest';
 import { benchInitialJavaScript } from './initial-javascript';
@@ -17,6 +18,7 @@ const benches: [string, () => Promise<Result | Result[]>][] = [
   ['session-check', benchSessionCheck],
   ['engine-list', benchEngineList],
   ['impact', benchImpact],
+  ['findings-search', benchFindingsSearch],
   ['planning', benchPlanning],
   ['ingest', benchIngest],
   ['annotation', benchAnnotation],

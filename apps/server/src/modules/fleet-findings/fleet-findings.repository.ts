@@ -80,6 +80,19 @@ export function searchFindings(
   query: FindingSearchSelection,
   page: { offset: number; limit: number },
 ): { items: FindingSearchItem[]; total: number } {
+  const { page: pageIds, count } = searchStatements(db, scope, query, page);
+  const ids = pageIds.all().map((row) => row.id);
+  const byId = new Map(findingDetails(db, scope, ids).map((item) => [item.id, item]));
+  return { items: ids.map((id) => byId.get(id)!), total: count.get()?.n ?? 0 };
+}
+
+/** The page's statement and the count's, as `searchFindings` runs them (and a benchmark reads). */
+export function searchStatements(
+  db: DbOrTx,
+  scope: SearchScope,
+  query: FindingSearchSelection,
+  page: { offset: number; limit: number },
+) {
   const decision = decisionOf(scope);
   const where = and(
     eq(findings.status, 'recorded'),
@@ -103,7 +116,52 @@ export function searchFindings(
   );
   const sorted = sortColumns[query.sort];
   const direction = query.order === 'asc' ? asc : desc;
-  const rows = db
+  // The page is chosen on narrow rows (ids and what they sort by); the details of those few are
+  // read after, so that nothing is computed for a row that is not shown.
+  const pageIds = db
+    .select({ id: findings.id })
+    .from(findings)
+    .innerJoin(inspections, eq(inspections.id, findings.inspectionId))
+    .innerJoin(engines, eq(engines.id, inspections.engineId))
+    .where(where)
+    .orderBy(
+      sql`${sorted} IS NULL`,
+      direction(sorted),
+      desc(inspections.date),
+      asc(engines.serialNumber),
+      asc(findings.number),
+    )
+    .limit(page.limit)
+    .offset(page.offset);
+  const total = db
+    .select({ n: count() })
+    .from(findings)
+    .innerJoin(inspections, eq(inspections.id, findings.inspectionId))
+    .innerJoin(engines, eq(engines.id, inspections.engineId))
+    .where(where);
+  return { page: pageIds, count: total };
+}
+
+/** The inspection of each finding, in the order given (for an export of search matches). */
+export function findingInspections(db: DbOrTx, ids: readonly string[]): string[] {
+  const byId = new Map<string, string>();
+  for (let start = 0; start < ids.length; start += 500) {
+    const slice = ids.slice(start, start + 500);
+    for (const row of db
+      .select({ id: findings.id, inspectionId: findings.inspectionId })
+      .from(findings)
+      .where(inArray(findings.id, slice))
+      .all())
+      byId.set(row.id, row.inspectionId);
+  }
+  return ids.map((id) => byId.get(id)!);
+}
+
+/** What a page shows of each of its findings, with the decision as the caller may see it. */
+function findingDetails(db: DbOrTx, scope: SearchScope, ids: readonly string[]) {
+  if (ids.length === 0) return [];
+  const decision = decisionOf(scope);
+  return db
     .select({
       id: findings.id,
       number: findings.number,
@@ -141,39 +199,6 @@ export function searchFindings(
       engineModelRows,
       and(eq(engineModelRows.modelId, engines.modelId), eq(engineModelRows.key, findings.rowKey)),
     )
-    .where(where)
-    .orderBy(
-      sql`${sorted} IS NULL`,
-      direction(sorted),
-      desc(inspections.date),
-      asc(engines.serialNumber),
-      asc(findings.number),
-    )
-    .limit(page.limit)
-    .offset(page.offset)
-    .all();
-  const total =
-    db
-      .select({ n: count() })
-      .from(findings)
-      .innerJoin(inspections, eq(inspections.id, findings.inspectionId))
-      .innerJoin(engines, eq(engines.id, inspections.engineId))
-      .where(where)
-      .get()?.n ?? 0;
-  return { items: rows as FindingSearchItem[], total };
-}
-
-/** The inspection of each finding, in the order given (for an export of search matches). */
-export function findingInspections(db: DbOrTx, ids: readonly string[]): string[] {
-  const byId = new Map<string, string>();
-  for (let start = 0; start < ids.length; start += 500) {
-    const slice = ids.slice(start, start + 500);
-    for (const row of db
-      .select({ id: findings.id, inspectionId: findings.inspectionId })
-      .from(findings)
-      .where(inArray(findings.id, slice))
-      .all())
-      byId.set(row.id, row.inspectionId);
-  }
-  return ids.map((id) => byId.get(id)!);
+    .where(inArray(findings.id, [...ids]))
+    .all() as FindingSearchItem[];
 }

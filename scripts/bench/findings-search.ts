@@ -1,0 +1,105 @@
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { findingSearchQuerySchema } from '../../packages/contracts/src/fleet-findings';
+import { createApp } from '../../apps/server/src/app';
+import { prepareRuntime } from '../../apps/server/src/bootstrap';
+import { loadConfig } from '../../apps/server/src/config/env';
+import { rawConnection } from '../../apps/server/src/db/client';
+import { createLogger } from '../../apps/server/src/lib/logger';
+import { searchStatements } from '../../apps/server/src/modules/fleet-findings/fleet-findings.repository';
+import { makeDataDir } from '../../apps/server/test/test-app';
+import { seedFindings } from './seed-findings';
+
+const FINDINGS = Number(process.env.BENCH_SEARCH_FINDINGS ?? 200_000);
+const WARM_UP = 10;
+const REQUESTS = 40;
+
+// What engineers ask of the fleet: the newest first, one kind of damage by size, the worst
+// verdicts, the undecided, one engine's history.
+const searches = [
+  '',
+  'row=hpt1-blade&damage=crack&sort=lengthMm&order=desc',
+  'category=beyond-limits&sort=category',
+  'decision=none',
+  'engineId=bench-engine-4242',
+];
+
+const p95 = (samples: number[]) =>
+  [...samples].sort((a, b) => a - b)[Math.ceil(samples.length * 0.95) - 1]!;
+
+/**
+ * The fleet findings search over `FINDINGS` recorded findings (one inspection of 20 per engine,
+ * submitted or released): each search's p95 through HTTP beside the same two statements (the page
+ * and the count) run straight on better-sqlite3, the raw-SQL ceiling.
+ */
+export async function benchFindingsSearch() {
+  const config = loadConfig({
+    DEMO: '1',
+    DATA_DIR: makeDataDir(),
+    LOG_LEVEL: 'silent',
+    BCRYPT_COST: '10',
+    NODE_ENV: 'production',
+    DEMO_IMAGES: '0',
+  });
+  const runtime = await prepareRuntime(config, createLogger('silent', false));
+  const sqlite = rawConnection(runtime.ctx.db);
+  seedFindings(sqlite, { findings: FINDINGS, otherwise: 'submitted' });
+  sqlite.pragma('optimize');
+  const server = http.createServer(createApp(runtime.ctx, { webDist: null }));
+  // The raw-SQL rounds between searches leave the client's connection idle for seconds: kept open,
+  // so that the next search is not sent on a socket the server has just closed.
+  server.keepAliveTimeout = 120_000;
+  server.listen(0, '127.0.0.1');
+  await new Promise((resolve) => server.once('listening', resolve));
+  const origin = `http://127.0.0.1:${(server.address() as AddressInfo).port}/api/v1`;
+  const login = await fetch(`${origin}/auth/login`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ email: 'engineer@demo.test', password: 'emberline-demo' }),
+  });
+  const cookie = (login.headers.get('set-cookie') ?? '').split(';')[0]!;
+
+  const results = [];
+  for (const search of searches) {
+    const api: number[] = [];
+    let total = 0;
+    for (let index = 0; index < WARM_UP + REQUESTS; index += 1) {
+      const started = performance.now();
+      const response = await fetch(`${origin}/findings?${search}`, { headers: { cookie } });
+      const body = (await response.json()) as { total: number };
+      if (response.status !== 200)
+        throw new Error(`GET /findings?${search} answered ${response.status}`);
+      if (index >= WARM_UP) api.push(performance.now() - started);
+      total = body.total;
+    }
+    const { page, pageSize, ...selection } = findingSearchQuerySchema.parse(
+      Object.fromEntries(new URLSearchParams(search)),
+    );
+    const statements = searchStatements(
+      runtime.ctx.db,
+      { organisationId: null, releasedOnly: false },
+      selection,
+      { offset: (page - 1) * pageSize, limit: pageSize },
+    );
+    const raw = [statements.page.toSQL(), statements.count.toSQL()].map((query) => ({
+      statement: sqlite.prepare(query.sql).raw(true),
+      params: query.params,
+    }));
+    const sql: number[] = [];
+    for (let index = 0; index < WARM_UP + REQUESTS; index += 1) {
+      const started = performance.now();
+      for (const { statement, params } of raw) statement.all(...params);
+      if (index >= WARM_UP) sql.push(performance.now() - started);
+    }
+    const figure = p95(api);
+    results.push({
+      name: `GET /findings?${search || '(newest first)'} at ${FINDINGS / 1000}k (p95, ${total} match)`,
+      figure: `${figure.toFixed(1)} ms`,
+      ceiling: `10 ms; raw SQL ${p95(sql).toFixed(1)}`,
+      ok: FINDINGS > 200_000 || figure <= 10,
+    });
+  }
+  await new Promise((resolve) => server.close(resolve));
+  await runtime.close();
+  return results;
+}
