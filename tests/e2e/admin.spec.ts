@@ -43,6 +43,7 @@ test('an admin invites a planner, reads the invitation in the outbox, and the pl
   await invitePage.getByRole('button', { name: 'Join and sign in' }).click();
   await expect(invitePage.getByRole('navigation', { name: 'Main' }).getByRole('link')).toHaveText([
     'Fleet',
+    'Findings',
     'Limit library',
     'Planning board',
     'Reports',
