@@ -100,3 +100,25 @@ export async function openInspectionOverHttp(
     throw new Error(`opening an inspection answered ${response.status}: ${await response.text()}`);
   return ((await response.json()) as { id: string }).id;
 }
+
+/**
+ * Runs one of the project's commands (pnpm backup, restore, migrate-storage…) from its sources
+ * against a data directory, and gives its exit code and everything it printed.
+ */
+export function runCommand(
+  script: string,
+  args: string[],
+  dataDir: string,
+  env: Record<string, string> = {},
+): Promise<{ code: number | null; output: string }> {
+  return new Promise((resolve) => {
+    const child = spawn(process.execPath, ['--import', 'tsx', script, ...args], {
+      env: { ...process.env, DATA_DIR: dataDir, LOG_LEVEL: 'error', ...env },
+      stdio: ['ignore', 'pipe', 'pipe'],
+    });
+    let output = '';
+    child.stdout!.on('data', (chunk: Buffer) => (output += chunk.toString()));
+    child.stderr!.on('data', (chunk: Buffer) => (output += chunk.toString()));
+    child.once('exit', (code) => resolve({ code, output }));
+  });
+}

@@ -13,8 +13,9 @@ import { createMailer } from './lib/email/mailer';
 import { startSmtpFake, type SmtpFake } from './lib/email/smtp-fake';
 import type { Logger } from './lib/logger';
 import { loadRecordsKey } from './lib/records/records-key';
-import { createLocalStorage } from './lib/storage/local-storage';
+import { createStorage } from './lib/storage/create-storage';
 import { knownImageHashes } from './modules/images/images.repository';
+import { imageHashesNamedInSignatures } from './modules/records/records.repository';
 import { createReminders } from './modules/reminders/reminders.service';
 import { createScheduler, type Scheduler } from './modules/reminders/scheduler';
 import { countUsers } from './modules/users/users.repository';
@@ -84,13 +85,15 @@ export async function prepareRuntime(
     }
   }
 
-  const storage = await createLocalStorage(config.dataDir);
+  const storage = await createStorage(config.dataDir, config.storage);
   // Files that a crash left without a record (or half-written) go; every record keeps its file,
-  // because a record is only written after its file is in place.
+  // because a record is only written after its file is in place, and what a signature names
+  // stays whatever the rows say.
   const known = knownImageHashes(handle.db);
-  const swept = await storage.sweep((sha256) => known.has(sha256));
-  if (swept.removed > 0)
-    logger.info({ removed: swept.removed }, 'removed image files without records');
+  const signed = imageHashesNamedInSignatures(handle.db);
+  const swept = await storage.sweep((sha256) => known.has(sha256) || signed.has(sha256));
+  if (swept.removed > 0 || swept.quarantined > 0)
+    logger.info(swept, `took away image files without records from ${storage.where}`);
 
   const smtpFake = config.smtp ? null : await startSmtpFake(path.join(config.dataDir, 'mail'));
   const mailer = createMailer(

@@ -3,7 +3,7 @@ import type { Db } from './db/client';
 import type { CaughtMailStore } from './lib/email/caught-mail';
 import type { RecordsKey } from './lib/records/records-key';
 import type { Logger } from './lib/logger';
-import type { ImageStorage } from './lib/storage/local-storage';
+import type { ImageStorage } from './lib/storage/image-storage';
 
 /** What every module is given: configuration, the database, side-effect services and the clock. */
 export interface AppContext {

@@ -8,22 +8,26 @@ import { runMigrations } from '../db/migrate';
 import { restore } from '../db/restore';
 import { createLogger } from '../lib/logger';
 import { loadRecordsKey } from '../lib/records/records-key';
-import { createLocalStorage } from '../lib/storage/local-storage';
+import { createStorage } from '../lib/storage/create-storage';
 import { createRecordsService } from '../modules/records/records.service';
 
 try {
   const source = process.argv[2];
   if (!source) throw new Error('Name the backup folder: pnpm restore backups/emberline-<time>');
   const config = loadConfig();
-  const manifest = await restore({ source: path.resolve(source), dataDir: config.dataDir });
+  const storage = await createStorage(config.dataDir, config.storage);
+  const manifest = await restore({
+    source: path.resolve(source),
+    dataDir: config.dataDir,
+    storage,
+  });
   const recordsKey = loadRecordsKey(config, createLogger('error', false));
-  const storage = await createLocalStorage(config.dataDir);
   const handle = openDatabase(path.join(config.dataDir, 'emberline.sqlite'), recordsKey.key);
   runMigrations(handle.db);
   const result = await createRecordsService({ db: handle.db, recordsKey, storage }).verify();
   handle.close();
   console.log(
-    `Restored the backup of ${manifest.createdAt} into ${config.dataDir}: ${manifest.images.length} original images; ${result.checked.signatures} signatures and ${result.checked.auditRows} audit rows walked.`,
+    `Restored the backup of ${manifest.createdAt} into ${config.dataDir}: ${manifest.images.length} original images into ${storage.where}; ${result.checked.signatures} signatures and ${result.checked.auditRows} audit rows walked.`,
   );
   for (const problem of result.problems) console.log(`PROBLEM ${problem.message}`);
   console.log(

@@ -6,13 +6,13 @@ import { ConfigError, loadConfig } from '../config/env';
 import { openDatabase } from '../db/client';
 import { runMigrations } from '../db/migrate';
 import { createLogger } from '../lib/logger';
-import { createLocalStorage } from '../lib/storage/local-storage';
+import { createStorage } from '../lib/storage/create-storage';
 import { loadRecordsKey } from '../lib/records/records-key';
 import { createRecordsService } from '../modules/records/records.service';
 
 try {
   const config = loadConfig();
-  const storage = await createLocalStorage(config.dataDir);
+  const storage = await createStorage(config.dataDir, config.storage);
   fs.mkdirSync(config.dataDir, { recursive: true });
   const recordsKey = loadRecordsKey(config, createLogger('error', false));
   const handle = openDatabase(path.join(config.dataDir, 'emberline.sqlite'), recordsKey.key);

@@ -1,8 +1,11 @@
 import { createHash } from 'node:crypto';
-import { createReadStream } from 'node:fs';
+import { createReadStream, createWriteStream } from 'node:fs';
 import fs from 'node:fs/promises';
 import path from 'node:path';
+import { pipeline } from 'node:stream/promises';
 import Database from 'better-sqlite3';
+import type { ImageStorage } from '../lib/storage/image-storage';
+import { originalFileUnder } from '../lib/storage/local-storage';
 
 /**
  * An installation's backup: the SQLite file copied by SQLite's online backup (a consistent
@@ -48,16 +51,15 @@ export function countRows(database: Database.Database): Record<string, number> {
   );
 }
 
-export const originalFile = (root: string, sha256: string) =>
-  path.join(root, 'images', 'originals', sha256.slice(0, 2), sha256);
-
 /**
  * Writes a backup of the data directory `dataDir` into the new folder `target`. The database
- * first, then the originals its rows name: a file is in place before its row commits, so every
- * image of the snapshot is there to copy, whatever uploads go on meanwhile.
+ * first, then the originals its rows name, read from the installation's storage (the disk or the
+ * bucket) into the backup's own folder: a file is in place before its row commits, so every image
+ * of the snapshot is there to copy, whatever uploads go on meanwhile.
  */
 export async function backup(options: {
   dataDir: string;
+  storage: ImageStorage;
   target: string;
   recordsKeyFile: string | null;
   now: Date;
@@ -89,14 +91,18 @@ export async function backup(options: {
   }
   const images: BackupManifest['images'] = [];
   for (const sha256 of hashes) {
-    const from = originalFile(dataDir, sha256);
-    const to = originalFile(target, sha256);
+    const to = originalFileUnder(target, sha256);
     await fs.mkdir(path.dirname(to), { recursive: true });
-    await fs.copyFile(from, to);
+    const stored = await options.storage.openOriginal(sha256);
+    if (!stored)
+      throw new Error(
+        `The original image ${sha256} is missing from ${options.storage.where}: run pnpm verify-records, and keep the last good backup.`,
+      );
+    await pipeline(stored.stream, createWriteStream(to));
     const copied = await sha256Of(to);
     if (copied !== sha256)
       throw new Error(
-        `The original image ${sha256} in ${dataDir} does not match its name (its bytes hash to ${copied}): run pnpm verify-records, and keep the last good backup.`,
+        `The original image ${sha256} in ${options.storage.where} does not match its name (its bytes hash to ${copied}): run pnpm verify-records, and keep the last good backup.`,
       );
     images.push({
       sha256,

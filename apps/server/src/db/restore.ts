@@ -1,7 +1,8 @@
 import fs from 'node:fs/promises';
 import path from 'node:path';
 import Database from 'better-sqlite3';
-import { countRows, MANIFEST, originalFile, sha256Of, type BackupManifest } from './backup';
+import type { ImageStorage } from '../lib/storage/image-storage';
+import { countRows, MANIFEST, sha256Of, type BackupManifest } from './backup';
 
 /** A backup that cannot be restored as it is; the message says what and what to do. */
 export class BackupUnusable extends Error {
@@ -18,12 +19,14 @@ async function exists(file: string): Promise<boolean> {
 /**
  * Checks a backup whole before anything is put in place: the manifest, the database's hash,
  * SQLite's integrity check and foreign-key check, the row counts, every image's hash and the
- * records key's; then copies it into `dataDir`, which must hold no database yet. The caller then
- * verifies both chains of the restored records (cli/restore.ts).
+ * records key's; then puts the images into the installation's storage (the disk or the bucket)
+ * and the rest into `dataDir`, which must hold no database yet. The caller then verifies both
+ * chains of the restored records (cli/restore.ts).
  */
 export async function restore(options: {
   source: string;
   dataDir: string;
+  storage: ImageStorage;
 }): Promise<BackupManifest> {
   const { source, dataDir } = options;
   const manifestFile = path.join(source, MANIFEST);
@@ -77,9 +80,9 @@ export async function restore(options: {
     );
   await fs.mkdir(dataDir, { recursive: true });
   for (const image of manifest.images) {
-    const to = originalFile(dataDir, image.sha256);
-    await fs.mkdir(path.dirname(to), { recursive: true });
-    await fs.copyFile(path.join(source, image.file), to);
+    const temp = options.storage.tempFile();
+    await fs.copyFile(path.join(source, image.file), temp);
+    await options.storage.commitOriginal(temp, image.sha256);
   }
   if ('file' in manifest.recordsKey && !(await exists(path.join(dataDir, 'records-key'))))
     await fs.copyFile(

@@ -32,6 +32,12 @@ function fromMiddleware(error: HttpishError): AppError | null {
       'storage_full',
       "The server's storage is full: nothing of this request was kept. Tell your administrator, who can make room; what is stored already can still be read.",
     );
+  if ((error as { code?: unknown }).code === 'STORAGE_UNAVAILABLE')
+    return new AppError(
+      503,
+      'storage_unavailable',
+      'The image store cannot be reached: nothing of this request was kept. Try again in a few minutes; if it goes on, tell your administrator.',
+    );
   switch (error.type) {
     case 'entity.too.large':
       return new AppError(413, 'payload_too_large', 'The request is too large');

@@ -1,6 +1,4 @@
-import { randomUUID } from 'node:crypto';
 import fs from 'node:fs/promises';
-import path from 'node:path';
 import exifReader from 'exif-reader';
 import sharp, { type Metadata } from 'sharp';
 
@@ -187,18 +185,15 @@ export function processImageQueued(file: string): Promise<ProcessedImage> {
 }
 
 /** The full-resolution, oriented rendition in a format browsers show (JPEG q90), without metadata. */
+/** Renders an original as the full-resolution oriented JPEG into `target` (a temp file). */
 export async function renderFull(original: string, target: string): Promise<void> {
-  // A name of its own per render: parallel first requests never rename over each other.
-  const temp = `${target}.${randomUUID()}.tmp`;
-  await fs.mkdir(path.dirname(target), { recursive: true });
   await slot(() =>
     sharp(original, { limitInputPixels: MAX_INPUT_PIXELS })
       .autoOrient()
       .removeAlpha()
       .jpeg({ quality: 90 })
-      .toFile(temp),
+      .toFile(target),
   );
-  await fs.rename(temp, target);
 }
 
 /** Renders an SVG drawing to a JPEG, for the invented demo stills. */

@@ -5,6 +5,7 @@ import {
   type RequestHandler,
   type Response,
 } from 'express';
+import { pipeline } from 'node:stream/promises';
 import multer from 'multer';
 import { createRequestLimiter, requestLimits } from '../../http/rate-limit';
 import {
@@ -20,6 +21,7 @@ import { AppError } from '../../http/app-error';
 import { principalOf } from '../../http/principal';
 import { requestMeta } from '../../http/request-meta';
 import { route } from '../../http/route';
+import type { StoredBytes } from '../../lib/storage/image-storage';
 import { createImagesService, displayName, type FrameSource } from './images.service';
 import { hashingStorage, type ReceivedFile } from './upload-storage';
 
@@ -76,6 +78,38 @@ const uploadErrors: ErrorRequestHandler = (error, req, res, next) => {
     rejected: [{ filename: displayName(error.field ?? 'upload'), code: 'too_large', message }],
   });
 };
+
+/**
+ * Streams stored bytes (from the disk or the bucket) with their content address as a strong
+ * ETag: a browser that has them gets a 304 and no bytes.
+ */
+async function sendStored(
+  req: Request,
+  res: Response,
+  bytes: StoredBytes,
+  type: string,
+  etag: string,
+): Promise<void> {
+  res.setHeader('Cache-Control', 'private, max-age=31536000, immutable');
+  res.setHeader('ETag', `"${etag}"`);
+  if (req.headers['if-none-match'] === `"${etag}"`) {
+    bytes.stream.destroy();
+    res.status(304).end();
+    return;
+  }
+  res.setHeader('Content-Type', type);
+  res.setHeader('Content-Length', String(bytes.size));
+  try {
+    await pipeline(bytes.stream, res);
+  } catch (error) {
+    // The reader went away, or the store failed mid-way: the answer is cut off, not replaced.
+    if (res.headersSent) {
+      res.destroy();
+      return;
+    }
+    throw error;
+  }
+}
 
 function sendBuffer(res: Response, data: Buffer, type: string, etag: string): void {
   res.setHeader('Content-Type', type);
@@ -210,15 +244,10 @@ export function imagesRoutes(ctx: AppContext): Router {
     router,
     'GET /images/:id/full',
     { summary: 'Full resolution, oriented, JPEG', params: idParamsSchema },
-    async (_req, res) => {
+    async (req, res) => {
       const full = await images.full(principalOf(res), res.locals.params.id);
-      res.setHeader('Cache-Control', 'private, max-age=31536000, immutable');
       res.setHeader('Content-Disposition', 'inline');
-      res.sendFile(full.path, {
-        headers: { 'Content-Type': 'image/jpeg' },
-        etag: true,
-        lastModified: false,
-      });
+      await sendStored(req, res, full.bytes, 'image/jpeg', `${full.sha256}-full`);
     },
   );
 
@@ -226,8 +255,8 @@ export function imagesRoutes(ctx: AppContext): Router {
     router,
     'GET /images/:id/original',
     { summary: 'The bytes as uploaded, as a download', params: idParamsSchema },
-    (_req, res) => {
-      const { path, image } = images.original(principalOf(res), res.locals.params.id);
+    async (req, res) => {
+      const { bytes, image } = await images.original(principalOf(res), res.locals.params.id);
       const type = { jpeg: 'image/jpeg', png: 'image/png', tiff: 'image/tiff', webp: 'image/webp' }[
         image.format
       ];
@@ -236,8 +265,7 @@ export function imagesRoutes(ctx: AppContext): Router {
         'Content-Disposition',
         `attachment; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(image.originalName)}`,
       );
-      res.setHeader('Cache-Control', 'private, max-age=31536000, immutable');
-      res.sendFile(path, { headers: { 'Content-Type': type }, etag: true, lastModified: false });
+      await sendStored(req, res, bytes, type, image.sha256);
     },
   );
 

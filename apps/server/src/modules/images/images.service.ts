@@ -18,6 +18,7 @@ import { recordScope } from '../../http/record-access';
 import type { Principal } from '../../http/principal';
 import { newId } from '../../lib/ids';
 import { ImageRefusal, processImageQueued, renderFull } from '../../lib/images/image-pipeline';
+import type { StoredBytes } from '../../lib/storage/image-storage';
 import { appendAudit } from '../audit/audit.repository';
 import { listModelRows } from '../engine-models/engine-models.repository';
 import { findEngineRow } from '../engines/engines.repository';
@@ -66,7 +67,7 @@ export function createImagesService(ctx: AppContext) {
    * UNIQUE failure). Each store is entered here before its first await.
    */
   const storing = new Map<string, Promise<Image | RejectedFile>>();
-  /** Full renditions being made, by target path. */
+  /** Full renditions being made, by the original's hash. */
   const rendering = new Map<string, Promise<void>>();
 
   async function ingest(
@@ -300,32 +301,47 @@ export function createImagesService(ctx: AppContext) {
       return readRendition(db, id, which)!;
     },
 
-    /** The full-resolution oriented JPEG, made on first request and kept on disk. */
-    async full(principal: Principal, id: string): Promise<{ path: string; sha256: string }> {
+    /** The full-resolution oriented JPEG, made on first request and stored beside the original. */
+    async full(principal: Principal, id: string): Promise<{ bytes: StoredBytes; sha256: string }> {
       const image = visibleImage(principal, id);
-      const target = storage.fullPath(image.sha256);
-      if (!(await storage.exists(target))) {
+      const { sha256 } = image;
+      let bytes = await storage.openFull(sha256);
+      if (!bytes) {
         // One render a rendition: parallel first requests wait for it and send the same bytes.
-        let render = rendering.get(target);
+        let render = rendering.get(sha256);
         if (!render) {
-          render = renderFull(storage.originalPath(image.sha256), target).finally(() =>
-            rendering.delete(target),
-          );
-          rendering.set(target, render);
+          render = (async () => {
+            const rendered = storage.tempFile('.jpg');
+            try {
+              await storage.withOriginalFile(sha256, (original) => renderFull(original, rendered));
+              await storage.commitFull(rendered, sha256);
+            } finally {
+              await storage.discard(rendered);
+            }
+          })().finally(() => rendering.delete(sha256));
+          rendering.set(sha256, render);
         }
         await render;
+        bytes = await storage.openFull(sha256);
+        if (!bytes) throw new Error(`The full rendition of ${sha256} was made but cannot be read`);
       }
-      return { path: target, sha256: image.sha256 };
+      return { bytes, sha256 };
     },
 
     /**
      * The bytes as uploaded, for staff only: they carry the probe's metadata (a position
      * included). Owners get renditions; to them an original answers as an unknown image.
      */
-    original(principal: Principal, id: string): { path: string; image: ImageMeta } {
+    async original(
+      principal: Principal,
+      id: string,
+    ): Promise<{ bytes: StoredBytes; image: ImageMeta }> {
       if (recordScope(principal).releasedOnly) throw AppError.notFound('There is no such image');
       const image = visibleImage(principal, id);
-      return { path: storage.originalPath(image.sha256), image };
+      const bytes = await storage.openOriginal(image.sha256);
+      if (!bytes)
+        throw new Error(`The original ${image.sha256} of image ${image.id} is not in storage`);
+      return { bytes, image };
     },
   };
 }

@@ -1,6 +1,6 @@
 import type { Request } from 'express';
 import type { StorageEngine } from 'multer';
-import type { ImageStorage } from '../../lib/storage/local-storage';
+import type { ImageStorage } from '../../lib/storage/image-storage';
 
 /** A received upload: multer's file fields plus the SHA-256 computed while it was written. */
 export interface ReceivedFile extends Express.Multer.File {

@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, gt, inArray } from 'drizzle-orm';
+import { and, asc, desc, eq, gt, inArray, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../../db/client';
 import { signatures } from '../../db/schema';
 import type { SignatureRecord } from './signature-chain';
@@ -51,4 +51,19 @@ export function signaturesOf(
     .where(and(eq(signatures.kind, kind), eq(signatures.subjectId, subjectId)))
     .orderBy(asc(signatures.seq))
     .all() as SignatureRecord[];
+}
+
+/**
+ * The original images that signed dispositions name: whatever happens to rows, the storage
+ * sweeper never moves these.
+ */
+export function imageHashesNamedInSignatures(db: DbOrTx): Set<string> {
+  const rows = db
+    .select({
+      sha256: sql<string | null>`json_extract(${signatures.content}, '$.finding.imageSha256')`,
+    })
+    .from(signatures)
+    .where(eq(signatures.kind, 'disposition'))
+    .all();
+  return new Set(rows.flatMap((row) => (row.sha256 ? [row.sha256] : [])));
 }

@@ -58,8 +58,7 @@ export function createRecordsService(ctx: Pick<AppContext, 'db' | 'recordsKey' |
       const signed = checkSignedDispositions(ctx.db, problems);
       const reports = checkReports(ctx.db, problems);
       for (const [sha256, label] of signed.originals) {
-        const file = ctx.storage.originalPath(sha256);
-        const actual = (await ctx.storage.exists(file)) ? await ctx.storage.hash(file) : null;
+        const actual = await ctx.storage.hashOriginal(sha256);
         if (actual !== sha256)
           problems.push({
             kind: 'signature',
