@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { pageOf, pageQuerySchema } from './paging';
 
 export const auditEntrySchema = z.object({
   id: z.number().int(),
@@ -45,4 +46,6 @@ export const historyEntrySchema = z.object({
   details: z.array(z.string()),
 });
 export type HistoryEntry = z.infer<typeof historyEntrySchema>;
-export const historyResponseSchema = z.object({ items: z.array(historyEntrySchema) });
+/** A page of a record's history, oldest first. */
+export const historyQuerySchema = pageQuerySchema;
+export const historyResponseSchema = pageOf(historyEntrySchema);

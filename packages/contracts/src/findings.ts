@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { pageOf, pageQueryFields, pageQuerySchema } from './paging';
 import { noteText } from './text';
 import { isoDateSchema } from './forecast';
 import {
@@ -222,6 +223,7 @@ export const seriesCandidatesQuerySchema = z.strictObject({
   position: z.coerce.number().int().min(1).max(2000),
   zone: key.optional(),
   damage: damageTypeSchema,
+  ...pageQueryFields(50),
 });
 
 /** An earlier finding of the same engine, offered as the same damage seen again. */
@@ -245,4 +247,5 @@ export const seriesEntrySchema = z.object({
   seriesId: z.string(),
 });
 export type SeriesEntry = z.infer<typeof seriesEntrySchema>;
-export const seriesListResponseSchema = z.object({ items: z.array(seriesEntrySchema) });
+export const seriesQuerySchema = pageQuerySchema;
+export const seriesListResponseSchema = pageOf(seriesEntrySchema);

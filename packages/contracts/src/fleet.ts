@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { pageOf, pageQuerySchema } from './paging';
 import { nameText, noteText } from './text';
 import { intervalSchema } from './limits';
 import { baselineSchema, dueStateSchema } from './planning';
@@ -124,7 +125,8 @@ export const engineModelSummarySchema = engineModelSchema
   .omit({ rows: true })
   .extend({ rowCount: z.number().int() });
 export type EngineModelSummary = z.infer<typeof engineModelSummarySchema>;
-export const engineModelListResponseSchema = z.object({ items: z.array(engineModelSummarySchema) });
+export const engineModelListQuerySchema = pageQuerySchema;
+export const engineModelListResponseSchema = pageOf(engineModelSummarySchema);
 
 export const engineStatuses = ['installed', 'removed', 'in-shop'] as const;
 export const engineStatusSchema = z.enum(engineStatuses);
@@ -308,8 +310,9 @@ export const utilizationRecordSchema = z.object({
 });
 export type UtilizationRecord = z.infer<typeof utilizationRecordSchema>;
 
-export const utilizationListResponseSchema = z.object({
-  items: z.array(utilizationRecordSchema),
+export const utilizationListQuerySchema = pageQuerySchema;
+/** A page of an engine's records, newest first, and the daily utilization of all of them. */
+export const utilizationListResponseSchema = pageOf(utilizationRecordSchema).extend({
   utilization: dailyUtilizationSchema,
 });
 export type UtilizationListResponse = z.infer<typeof utilizationListResponseSchema>;

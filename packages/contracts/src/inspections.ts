@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { pageOf, pageQueryFields } from './paging';
 import { nameText, noteText } from './text';
 import { isoDateSchema } from './forecast';
 import { calibrationSchema } from './measurement';
@@ -226,8 +227,10 @@ export type InspectionDetail = z.infer<typeof inspectionDetailSchema>;
 
 export const inspectionListQuerySchema = z.strictObject({
   engineId: z.string().max(64).optional(),
+  ...pageQueryFields(50),
 });
-export const inspectionListResponseSchema = z.object({ items: z.array(inspectionSchema) });
+export type InspectionListQuery = z.output<typeof inspectionListQuerySchema>;
+export const inspectionListResponseSchema = pageOf(inspectionSchema);
 
 export const returnToDraftInputSchema = z.strictObject({
   reason: noteText(1000, { min: 5, message: 'Say what the inspector should look at again' }),

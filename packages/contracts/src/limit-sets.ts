@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { pageOf, pageQuerySchema } from './paging';
 import { isoDateSchema } from './forecast';
 import { categorySchema, intervalSchema, ruleSchema } from './limits';
 import { nameText } from './text';
@@ -64,7 +65,8 @@ export const limitSetSchema = limitSetSummarySchema.extend({
 });
 export type LimitSet = z.infer<typeof limitSetSchema>;
 
-export const limitSetListResponseSchema = z.object({ items: z.array(limitSetSummarySchema) });
+export const limitSetListQuerySchema = pageQuerySchema;
+export const limitSetListResponseSchema = pageOf(limitSetSummarySchema);
 
 const revisionText = nameText('Give the revision', { max: 40 });
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { pageOf, pageQuerySchema } from './paging';
 import { nameText } from './text';
 import { emailSchema } from './auth';
 
@@ -12,7 +13,8 @@ export const organisationSchema = z.object({
 });
 export type Organisation = z.infer<typeof organisationSchema>;
 
-export const organisationListResponseSchema = z.object({ items: z.array(organisationSchema) });
+export const organisationListQuerySchema = pageQuerySchema;
+export const organisationListResponseSchema = pageOf(organisationSchema);
 export type OrganisationListResponse = z.infer<typeof organisationListResponseSchema>;
 
 export const organisationInputSchema = z.strictObject({

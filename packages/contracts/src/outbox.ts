@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { pageOf, pageQuerySchema } from './paging';
 
 /**
  * The durable outbox (DESIGN §5.7): every e-mail is a row written with the business change that
@@ -94,10 +95,8 @@ export const mailSummarySchema = z.object({
 export type MailSummary = z.infer<typeof mailSummarySchema>;
 
 /** The caught messages, newest first; `catching` is false when a real relay is configured. */
-export const mailListResponseSchema = z.object({
-  items: z.array(mailSummarySchema),
-  catching: z.boolean(),
-});
+export const mailListQuerySchema = pageQuerySchema;
+export const mailListResponseSchema = pageOf(mailSummarySchema).extend({ catching: z.boolean() });
 export type MailListResponse = z.infer<typeof mailListResponseSchema>;
 
 export const mailMessageSchema = mailSummarySchema.extend({

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { pageOf, pageQuerySchema } from './paging';
 import { isoDateSchema } from './forecast';
 import { outboxRecipientSchema, outboxStateSchema } from './outbox';
 
@@ -108,7 +109,9 @@ export const deliverySchema = z.object({
 });
 export type Delivery = z.infer<typeof deliverySchema>;
 
-export const deliveryLogSchema = z.object({ items: z.array(deliverySchema) });
+/** A page of an inspection's delivery log, newest first. */
+export const deliveryLogQuerySchema = pageQuerySchema;
+export const deliveryLogSchema = pageOf(deliverySchema);
 export type DeliveryLog = z.infer<typeof deliveryLogSchema>;
 
 /** An urgent notice its owner has not received: the engineers see it at once, in the product. */
@@ -120,6 +123,5 @@ export const undeliveredUrgentNoticeSchema = deliverySchema.extend({
   inspectionDate: isoDateSchema,
 });
 export type UndeliveredUrgentNotice = z.infer<typeof undeliveredUrgentNoticeSchema>;
-export const undeliveredUrgentNoticesSchema = z.object({
-  items: z.array(undeliveredUrgentNoticeSchema),
-});
+export const undeliveredUrgentNoticesQuerySchema = pageQuerySchema;
+export const undeliveredUrgentNoticesSchema = pageOf(undeliveredUrgentNoticeSchema);

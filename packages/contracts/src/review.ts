@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { pageOf, pageQueryFields } from './paging';
 import { inspectionFlagCodes, inspectionSchema } from './inspections';
 import { beyondActionSchema, categorySchema, intervalSchema } from './limits';
 import { nameText, noteText } from './text';
@@ -200,8 +201,10 @@ export const reviewQueueQuerySchema = z.strictObject({
   modelId: z.string().max(64).optional(),
   engineId: z.string().max(64).optional(),
   verdict: categorySchema.optional(),
+  ...pageQueryFields(50),
 });
-export type ReviewQueueQuery = z.infer<typeof reviewQueueQuerySchema>;
+/** The queue's filters (its page apart). */
+export type ReviewQueueQuery = Omit<z.infer<typeof reviewQueueQuerySchema>, 'page' | 'pageSize'>;
 
 export const reviewQueueItemSchema = z.object({
   inspection: inspectionSchema,
@@ -220,4 +223,4 @@ export const reviewQueueItemSchema = z.object({
   }),
 });
 export type ReviewQueueItem = z.infer<typeof reviewQueueItemSchema>;
-export const reviewQueueResponseSchema = z.object({ items: z.array(reviewQueueItemSchema) });
+export const reviewQueueResponseSchema = pageOf(reviewQueueItemSchema);

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { pageOf, pageQuerySchema } from './paging';
 import { nameText } from './text';
 import { emailSchema } from './auth';
 import { isoDateSchema } from './forecast';
@@ -53,7 +54,8 @@ export const userSchema = z.object({
 });
 export type User = z.infer<typeof userSchema>;
 
-export const userListResponseSchema = z.object({ items: z.array(userSchema) });
+export const userListQuerySchema = pageQuerySchema;
+export const userListResponseSchema = pageOf(userSchema);
 export type UserListResponse = z.infer<typeof userListResponseSchema>;
 
 export const inviteUserInputSchema = z.strictObject({

@@ -1,7 +1,9 @@
 import { Router } from 'express';
+import { pageOfList } from '@emberline/contracts/paging';
 import {
   auditListQuerySchema,
   auditListResponseSchema,
+  historyQuerySchema,
   historyResponseSchema,
 } from '@emberline/contracts/audit';
 import { idParamsSchema } from '@emberline/contracts/users';
@@ -31,10 +33,16 @@ export function auditRoutes(ctx: AppContext): Router {
     {
       summary: 'What happened to an inspection, its images and its findings, in words',
       params: idParamsSchema,
+      query: historyQuerySchema,
       response: historyResponseSchema,
     },
     (_req, res) => {
-      res.json({ items: audit.inspectionHistory(principalOf(res), res.locals.params.id) });
+      res.json(
+        pageOfList(
+          audit.inspectionHistory(principalOf(res), res.locals.params.id),
+          res.locals.query,
+        ),
+      );
     },
   );
   route(
@@ -43,10 +51,13 @@ export function auditRoutes(ctx: AppContext): Router {
     {
       summary: 'What happened to a finding, in words',
       params: idParamsSchema,
+      query: historyQuerySchema,
       response: historyResponseSchema,
     },
     (_req, res) => {
-      res.json({ items: audit.findingHistory(principalOf(res), res.locals.params.id) });
+      res.json(
+        pageOfList(audit.findingHistory(principalOf(res), res.locals.params.id), res.locals.query),
+      );
     },
   );
   route(
@@ -55,10 +66,11 @@ export function auditRoutes(ctx: AppContext): Router {
     {
       summary: 'What happened to a limit revision, in words',
       params: idParamsSchema,
+      query: historyQuerySchema,
       response: historyResponseSchema,
     },
     (_req, res) => {
-      res.json({ items: audit.limitSetHistory(res.locals.params.id) });
+      res.json(pageOfList(audit.limitSetHistory(res.locals.params.id), res.locals.query));
     },
   );
   return router;

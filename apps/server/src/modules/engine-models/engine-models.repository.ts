@@ -6,7 +6,12 @@ import { engineModelRows, engineModels, engines, findings, inspections } from '.
 export type EngineModelRecord = typeof engineModels.$inferSelect;
 
 /** Every model with its row count and engine count (of one organisation when `organisationId` is given). */
-export function listEngineModels(db: DbOrTx, organisationId: string | null) {
+/** A page of engine models by name and version, with their row counts and engine counts. */
+export function listEngineModels(
+  db: DbOrTx,
+  organisationId: string | null,
+  page: { limit: number; offset: number },
+) {
   const rowCounts = db
     .select({ modelId: engineModelRows.modelId, rows: count().as('rows') })
     .from(engineModelRows)
@@ -23,8 +28,14 @@ export function listEngineModels(db: DbOrTx, organisationId: string | null) {
     .from(engineModels)
     .leftJoin(rowCounts, eq(rowCounts.modelId, engineModels.id))
     .leftJoin(engineCounts, eq(engineCounts.modelId, engineModels.id))
-    .orderBy(asc(engineModels.name), asc(engineModels.version))
+    .orderBy(asc(engineModels.name), asc(engineModels.version), asc(engineModels.id))
+    .limit(page.limit)
+    .offset(page.offset)
     .all();
+}
+
+export function countEngineModels(db: DbOrTx): number {
+  return db.select({ n: count() }).from(engineModels).get()?.n ?? 0;
 }
 
 export function findEngineModel(db: DbOrTx, id: string): EngineModelRecord | undefined {

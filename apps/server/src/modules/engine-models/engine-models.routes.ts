@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import {
   engineModelInputSchema,
+  engineModelListQuerySchema,
   engineModelListResponseSchema,
   engineModelSchema,
 } from '@emberline/contracts/fleet';
@@ -18,9 +19,13 @@ export function engineModelsRoutes(ctx: AppContext): Router {
   route(
     router,
     'GET /engine-models',
-    { summary: 'Engine models and their versions', response: engineModelListResponseSchema },
+    {
+      summary: 'Engine models and their versions, a page at a time',
+      query: engineModelListQuerySchema,
+      response: engineModelListResponseSchema,
+    },
     (_req, res) => {
-      res.json({ items: models.list(principalOf(res)) });
+      res.json(models.list(principalOf(res), res.locals.query));
     },
   );
 

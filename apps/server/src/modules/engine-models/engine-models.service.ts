@@ -1,3 +1,4 @@
+import { offsetOf, type Page, type PageQuery } from '@emberline/contracts/paging';
 import type {
   EngineModel,
   ParsedEngineModelInput,
@@ -18,6 +19,7 @@ import {
   findEngineModel,
   insertEngineModel,
   latestVersion,
+  countEngineModels,
   listEngineModels,
   listModelRows,
   replaceModelRows,
@@ -77,19 +79,21 @@ export function createEngineModelsService(ctx: AppContext) {
   return {
     detail,
 
-    list(principal: Principal): EngineModelSummary[] {
-      return listEngineModels(db, recordScope(principal).organisationId).map(
-        ({ model, rowCount, engineCount }) => ({
-          id: model.id,
-          name: model.name,
-          version: model.version,
-          notes: model.notes,
-          standardInterval: model.standardInterval ?? null,
-          rowCount: rowCount ?? 0,
-          engineCount: engineCount ?? 0,
-          createdAt: model.createdAt.toISOString(),
-        }),
-      );
+    list(principal: Principal, query: PageQuery): Page<EngineModelSummary> {
+      const items = listEngineModels(db, recordScope(principal).organisationId, {
+        limit: query.pageSize,
+        offset: offsetOf(query),
+      }).map(({ model, rowCount, engineCount }) => ({
+        id: model.id,
+        name: model.name,
+        version: model.version,
+        notes: model.notes,
+        standardInterval: model.standardInterval ?? null,
+        rowCount: rowCount ?? 0,
+        engineCount: engineCount ?? 0,
+        createdAt: model.createdAt.toISOString(),
+      }));
+      return { items, total: countEngineModels(db), ...query };
     },
 
     create(principal: Principal, input: ParsedEngineModelInput, meta: RequestMeta): EngineModel {

@@ -138,7 +138,7 @@ export function createExportsService(ctx: AppContext) {
       format: Exclude<ExportFormat, 'json'>,
     ): Promise<ExportFile> {
       const engine = engines.detail(principal, engineId);
-      const list = recorded(inspections.list(principal, engineId));
+      const list = recorded(inspections.ofEngine(principal, engineId));
       return table(format, `emberline-findings-${engine.serialNumber}`, linesOf(principal, list));
     },
 

@@ -1,3 +1,4 @@
+import { pageOfList } from '@emberline/contracts/paging';
 import { Router } from 'express';
 import {
   findingInputSchema,
@@ -5,6 +6,7 @@ import {
   findingSchema,
   seriesCandidatesQuerySchema,
   seriesListResponseSchema,
+  seriesQuerySchema,
   voidInputSchema,
 } from '@emberline/contracts/findings';
 import { idParamsSchema } from '@emberline/contracts/users';
@@ -66,9 +68,13 @@ export function findingsRoutes(ctx: AppContext): Router {
       response: seriesListResponseSchema,
     },
     (_req, res) => {
-      res.json({
-        items: findings.seriesCandidates(principalOf(res), res.locals.params.id, res.locals.query),
-      });
+      const { page, pageSize, ...match } = res.locals.query;
+      res.json(
+        pageOfList(findings.seriesCandidates(principalOf(res), res.locals.params.id, match), {
+          page,
+          pageSize,
+        }),
+      );
     },
   );
 
@@ -128,10 +134,13 @@ export function findingsRoutes(ctx: AppContext): Router {
     {
       summary: 'The damage series of a finding, oldest inspection first',
       params: idParamsSchema,
+      query: seriesQuerySchema,
       response: seriesListResponseSchema,
     },
     (_req, res) => {
-      res.json({ items: findings.series(principalOf(res), res.locals.params.id) });
+      res.json(
+        pageOfList(findings.series(principalOf(res), res.locals.params.id), res.locals.query),
+      );
     },
   );
 

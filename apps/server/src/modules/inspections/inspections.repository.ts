@@ -1,4 +1,4 @@
-import { and, desc, eq, gt, ne, sql, type SQL } from 'drizzle-orm';
+import { and, count, desc, eq, gt, ne, sql, type SQL } from 'drizzle-orm';
 import type { DbOrTx } from '../../db/client';
 import { alias } from 'drizzle-orm/sqlite-core';
 import { engines, images, inspections, users } from '../../db/schema';
@@ -17,7 +17,11 @@ export type InspectionRow = InspectionRecord & {
   inForceLimitSetId: string | null;
 };
 
-function selectInspections(db: DbOrTx, where: SQL | undefined) {
+function selectInspections(
+  db: DbOrTx,
+  where: SQL | undefined,
+  page: { limit: number; offset: number } = { limit: -1, offset: 0 },
+) {
   return db
     .select({
       inspection: inspections,
@@ -38,7 +42,9 @@ function selectInspections(db: DbOrTx, where: SQL | undefined) {
     .leftJoin(users, eq(users.id, inspections.returnedBy))
     .leftJoin(voiders, eq(voiders.id, inspections.voidedBy))
     .where(where)
-    .orderBy(desc(inspections.date), desc(inspections.createdAt))
+    .orderBy(desc(inspections.date), desc(inspections.createdAt), desc(inspections.id))
+    .limit(page.limit)
+    .offset(page.offset)
     .all()
     .map((row): InspectionRow => ({
       ...row.inspection,
@@ -52,15 +58,31 @@ function selectInspections(db: DbOrTx, where: SQL | undefined) {
     }));
 }
 
-export function listInspections(
-  db: DbOrTx,
-  filter: { engineId?: string; organisationId?: string; releasedOnly?: boolean },
-): InspectionRow[] {
+type InspectionFilter = { engineId?: string; organisationId?: string; releasedOnly?: boolean };
+
+function inspectionFilter(filter: InspectionFilter): SQL | undefined {
   const conditions: SQL[] = [];
   if (filter.engineId) conditions.push(eq(inspections.engineId, filter.engineId));
   if (filter.organisationId) conditions.push(eq(engines.organisationId, filter.organisationId));
   if (filter.releasedOnly) conditions.push(gt(inspections.releaseRevision, 0));
-  return selectInspections(db, conditions.length ? and(...conditions) : undefined);
+  return conditions.length ? and(...conditions) : undefined;
+}
+
+/** A page of inspections, newest first, and how many the filter selects in all. */
+export function listInspections(
+  db: DbOrTx,
+  filter: InspectionFilter,
+  page: { limit: number; offset: number },
+): { rows: InspectionRow[]; total: number } {
+  const where = inspectionFilter(filter);
+  const total =
+    db
+      .select({ n: count() })
+      .from(inspections)
+      .innerJoin(engines, eq(engines.id, inspections.engineId))
+      .where(where)
+      .get()?.n ?? 0;
+  return { rows: selectInspections(db, where, page), total };
 }
 
 export function findInspection(db: DbOrTx, id: string): InspectionRow | undefined {

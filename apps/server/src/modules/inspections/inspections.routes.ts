@@ -26,12 +26,13 @@ export function inspectionsRoutes(ctx: AppContext): Router {
     router,
     'GET /inspections',
     {
-      summary: 'Inspections, newest first; customers see released ones of their own',
+      summary:
+        'Inspections, newest first, a page at a time; customers see released ones of their own',
       query: inspectionListQuerySchema,
       response: inspectionListResponseSchema,
     },
     (_req, res) => {
-      res.json({ items: inspections.list(principalOf(res), res.locals.query.engineId) });
+      res.json(inspections.list(principalOf(res), res.locals.query));
     },
   );
 

@@ -1,9 +1,11 @@
+import { offsetOf, type Page } from '@emberline/contracts/paging';
 import type {
   Inspection,
   InspectionDefaults,
   InspectionDetail,
   InspectionFlag,
   ParsedInspectionInput,
+  InspectionListQuery,
   ParsedInspectionParticulars,
 } from '@emberline/contracts/inspections';
 import { inspectionFlags } from '@emberline/domain/inspection-flags';
@@ -94,15 +96,36 @@ export function createInspectionsService(ctx: AppContext) {
     recordScope(principal).releasedOnly ? asReleased : (inspection: Inspection) => inspection;
 
   return {
-    list(principal: Principal, engineId: string | undefined): Inspection[] {
+    list(principal: Principal, query: InspectionListQuery): Page<Inspection> {
+      const { engineId, page, pageSize } = query;
       if (engineId) engines.visibleEngine(principal, engineId);
       const scope = recordScope(principal);
-      return listInspections(db, {
-        engineId,
-        organisationId: scope.organisationId ?? undefined,
-        releasedOnly: scope.releasedOnly,
-      })
-        .map(toInspection)
+      const { rows, total } = listInspections(
+        db,
+        {
+          engineId,
+          organisationId: scope.organisationId ?? undefined,
+          releasedOnly: scope.releasedOnly,
+        },
+        { limit: pageSize, offset: offsetOf(query) },
+      );
+      return { items: rows.map(toInspection).map(seen(principal)), total, page, pageSize };
+    },
+
+    /** Every inspection of one engine, newest first (a few a year over an engine's life). */
+    ofEngine(principal: Principal, engineId: string): Inspection[] {
+      engines.visibleEngine(principal, engineId);
+      const scope = recordScope(principal);
+      return listInspections(
+        db,
+        {
+          engineId,
+          organisationId: scope.organisationId ?? undefined,
+          releasedOnly: scope.releasedOnly,
+        },
+        { limit: -1, offset: 0 },
+      )
+        .rows.map(toInspection)
         .map(seen(principal));
     },
 

@@ -1,3 +1,4 @@
+import { pageOfList } from '@emberline/contracts/paging';
 import express, { Router } from 'express';
 import {
   limitFileQuerySchema,
@@ -6,6 +7,7 @@ import {
   limitSetCopyInputSchema,
   limitSetImpactSchema,
   limitSetParticularsSchema,
+  limitSetListQuerySchema,
   limitSetListResponseSchema,
   limitSetSchema,
   limitCheckInputSchema,
@@ -47,10 +49,11 @@ export function limitSetsRoutes(ctx: AppContext): Router {
     {
       summary: 'The damage-limit revisions of an engine model, newest first',
       params: idParamsSchema,
+      query: limitSetListQuerySchema,
       response: limitSetListResponseSchema,
     },
     (_req, res) => {
-      res.json({ items: limitSets.list(res.locals.params.id) });
+      res.json(pageOfList(limitSets.list(res.locals.params.id), res.locals.query));
     },
   );
 

@@ -5,12 +5,20 @@ import { engines, organisations, reportContacts } from '../../db/schema';
 export type OrganisationRow = typeof organisations.$inferSelect;
 export type ContactRow = typeof reportContacts.$inferSelect;
 
-export function listOrganisations(db: DbOrTx): OrganisationRow[] {
-  return db
+/** The organisations, the home one first, by name; a page of them when `page` is given. */
+export function listOrganisations(
+  db: DbOrTx,
+  page?: { limit: number; offset: number },
+): OrganisationRow[] {
+  const ordered = db
     .select()
     .from(organisations)
-    .orderBy(desc(organisations.kind), asc(organisations.name))
-    .all();
+    .orderBy(desc(organisations.kind), asc(organisations.name), asc(organisations.id));
+  return page ? ordered.limit(page.limit).offset(page.offset).all() : ordered.all();
+}
+
+export function countOrganisations(db: DbOrTx): number {
+  return db.select({ n: count() }).from(organisations).get()?.n ?? 0;
 }
 
 export function findOrganisation(db: DbOrTx, id: string): OrganisationRow | undefined {

@@ -4,6 +4,7 @@ import {
   contactSchema,
   organisationDetailSchema,
   organisationInputSchema,
+  organisationListQuerySchema,
   organisationListResponseSchema,
 } from '@emberline/contracts/organisations';
 import { idParamsSchema } from '@emberline/contracts/users';
@@ -22,11 +23,12 @@ export function organisationsRoutes(ctx: AppContext): Router {
     router,
     'GET /organisations',
     {
-      summary: 'The home organisation and the customer organisations',
+      summary: 'The home organisation and the customer organisations, a page at a time',
+      query: organisationListQuerySchema,
       response: organisationListResponseSchema,
     },
     (_req, res) => {
-      res.json({ items: organisations.list() });
+      res.json(organisations.list(res.locals.query));
     },
   );
 

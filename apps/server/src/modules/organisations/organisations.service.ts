@@ -1,3 +1,4 @@
+import { offsetOf, type Page, type PageQuery } from '@emberline/contracts/paging';
 import type {
   Contact,
   ParsedContactInput,
@@ -21,6 +22,7 @@ import {
   insertContact,
   insertOrganisation,
   listContacts,
+  countOrganisations,
   listOrganisations,
   renameOrganisation,
   type ContactRow,
@@ -76,8 +78,14 @@ export function createOrganisationsService(ctx: AppContext) {
   });
 
   return {
-    list(): Organisation[] {
-      return listOrganisations(db).map(toOrganisation);
+    list(query: PageQuery): Page<Organisation> {
+      return {
+        items: listOrganisations(db, { limit: query.pageSize, offset: offsetOf(query) }).map(
+          toOrganisation,
+        ),
+        total: countOrganisations(db),
+        ...query,
+      };
     },
 
     detail(id: string): OrganisationDetail {

@@ -1,5 +1,7 @@
 import { Router } from 'express';
+import { pageOfList } from '@emberline/contracts/paging';
 import {
+  mailListQuerySchema,
   mailListResponseSchema,
   mailMessageSchema,
   outboxListQuerySchema,
@@ -75,12 +77,13 @@ export function outboxRoutes(ctx: AppContext): Router {
     router,
     'GET /outbox/caught',
     {
-      summary: 'Messages caught by the local SMTP fake',
+      summary: 'Messages caught by the local SMTP fake, newest first, a page at a time',
+      query: mailListQuerySchema,
       response: mailListResponseSchema,
     },
     async (_req, res) => {
       res.json({
-        items: ctx.caughtMail ? await ctx.caughtMail.list() : [],
+        ...pageOfList(ctx.caughtMail ? await ctx.caughtMail.list() : [], res.locals.query),
         catching: ctx.caughtMail !== null,
       });
     },

@@ -1,9 +1,12 @@
 import express, { Router } from 'express';
+import { pageOfList } from '@emberline/contracts/paging';
 import { z } from 'zod';
 import {
+  deliveryLogQuerySchema,
   deliveryLogSchema,
   reportListQuerySchema,
   reportListResponseSchema,
+  undeliveredUrgentNoticesQuerySchema,
   undeliveredUrgentNoticesSchema,
   reportFileCheckSchema,
   reportVerificationSchema,
@@ -64,10 +67,13 @@ export function reportsRoutes(ctx: AppContext): Router {
       summary:
         'The delivery log of an inspection: each report revision’s e-mail and urgent notices',
       params: idParamsSchema,
+      query: deliveryLogQuerySchema,
       response: deliveryLogSchema,
     },
     (_req, res) => {
-      res.json(reports.deliveries(principalOf(res), res.locals.params.id));
+      res.json(
+        pageOfList(reports.deliveries(principalOf(res), res.locals.params.id), res.locals.query),
+      );
     },
   );
   route(
@@ -75,10 +81,11 @@ export function reportsRoutes(ctx: AppContext): Router {
     'GET /urgent-notices/undelivered',
     {
       summary: 'Urgent notices to owners that have not been delivered (failed or needing a person)',
+      query: undeliveredUrgentNoticesQuerySchema,
       response: undeliveredUrgentNoticesSchema,
     },
     (_req, res) => {
-      res.json(reports.undeliveredUrgent());
+      res.json(pageOfList(reports.undeliveredUrgent(), res.locals.query));
     },
   );
   // Anyone holding a report may check it: no sign-in, limited per address (and per person).

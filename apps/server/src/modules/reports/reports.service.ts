@@ -180,7 +180,7 @@ export function createReportsService(ctx: AppContext) {
      * The delivery log of an inspection: each report revision's e-mail and every urgent notice to
      * its owner, with recipients, attempts and errors (404 where the inspection is not visible).
      */
-    deliveries(principal: Principal, inspectionId: string): DeliveryLog {
+    deliveries(principal: Principal, inspectionId: string): DeliveryLog['items'] {
       const inspection = visibleInspection(db, principal, inspectionId);
       const revisions = reportRevisionsOf(db, inspection.id);
       const byId = new Map(revisions.map((report) => [report.id, report.revision]));
@@ -188,31 +188,29 @@ export function createReportsService(ctx: AppContext) {
         { type: 'report', ids: revisions.map((report) => report.id) },
         { type: 'inspection', ids: [inspection.id], kinds: ['urgent'] },
       ]);
-      return { items: messages.map((message) => toDelivery(message, byId)) };
+      return messages.map((message) => toDelivery(message, byId));
     },
 
     /**
      * Urgent notices (remove before the next flight) that have not reached the owner: shown to
      * the engineers at once, so that someone telephones the owner.
      */
-    undeliveredUrgent(): { items: UndeliveredUrgentNotice[] } {
-      return {
-        items: listUndelivered(db, 'urgent').flatMap((message) => {
-          const inspection = message.recordId ? findInspection(db, message.recordId) : undefined;
-          const engine = inspection && findEngineRow(db, inspection.engineId);
-          if (!inspection || !engine) return [];
-          return [
-            {
-              ...toDelivery(message, new Map()),
-              inspectionId: inspection.id,
-              engineId: inspection.engineId,
-              engineSerialNumber: inspection.engineSerialNumber,
-              organisationName: engine.organisationName,
-              inspectionDate: inspection.date,
-            },
-          ];
-        }),
-      };
+    undeliveredUrgent(): UndeliveredUrgentNotice[] {
+      return listUndelivered(db, 'urgent').flatMap((message) => {
+        const inspection = message.recordId ? findInspection(db, message.recordId) : undefined;
+        const engine = inspection && findEngineRow(db, inspection.engineId);
+        if (!inspection || !engine) return [];
+        return [
+          {
+            ...toDelivery(message, new Map()),
+            inspectionId: inspection.id,
+            engineId: inspection.engineId,
+            engineSerialNumber: inspection.engineSerialNumber,
+            organisationName: engine.organisationName,
+            inspectionDate: inspection.date,
+          },
+        ];
+      });
     },
 
     /**

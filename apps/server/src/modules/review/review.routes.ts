@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { pageOfList } from '@emberline/contracts/paging';
 import { inspectionDetailSchema, returnToDraftInputSchema } from '@emberline/contracts/inspections';
 import {
   dispositionInputSchema,
@@ -31,7 +32,8 @@ export function reviewRoutes(ctx: AppContext): Router {
       response: reviewQueueResponseSchema,
     },
     (_req, res) => {
-      res.json({ items: review.queue(principalOf(res), res.locals.query) });
+      const { page, pageSize, ...filter } = res.locals.query;
+      res.json(pageOfList(review.queue(principalOf(res), filter), { page, pageSize }));
     },
   );
 

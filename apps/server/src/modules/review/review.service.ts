@@ -285,7 +285,10 @@ export function createReviewService(
 
   return {
     /** Submitted and dispositioned inspections, worst verdict first, then the longest waiting. */
-    queue(principal: Principal, query: ReviewQueueQuery): ReviewQueueItem[] {
+    queue(
+      principal: Principal,
+      query: Omit<ReviewQueueQuery, 'page' | 'pageSize'>,
+    ): ReviewQueueItem[] {
       const scope = recordScope(principal);
       const rows = listReviewInspections(db, {
         organisationId: query.organisationId ?? scope.organisationId ?? undefined,

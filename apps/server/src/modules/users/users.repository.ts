@@ -56,9 +56,11 @@ export function findUserByEmail(db: DbOrTx, email: string): UserWithOrganisation
     .get();
 }
 
+/** One page of users, the home organisation's first, by name; or the one user of `id`. */
 export function listUsersWithSessionCounts(
   db: DbOrTx,
   now: Date,
+  which: { limit: number; offset: number } | { id: string },
 ): (UserWithOrganisation & { activeSessions: number })[] {
   const live = db
     .select({ userId: sessions.userId, active: count().as('active') })
@@ -71,7 +73,10 @@ export function listUsersWithSessionCounts(
     .from(users)
     .innerJoin(organisations, eq(organisations.id, users.organisationId))
     .leftJoin(live, eq(live.userId, users.id))
-    .orderBy(desc(organisations.kind), asc(users.name))
+    .where('id' in which ? eq(users.id, which.id) : undefined)
+    .orderBy(desc(organisations.kind), asc(users.name), asc(users.id))
+    .limit('id' in which ? 1 : which.limit)
+    .offset('id' in which ? 0 : which.offset)
     .all();
 }
 

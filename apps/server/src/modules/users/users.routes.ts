@@ -5,6 +5,7 @@ import {
   inviteUserInputSchema,
   inviteUserResponseSchema,
   updateUserInputSchema,
+  userListQuerySchema,
   userListResponseSchema,
   userSchema,
 } from '@emberline/contracts/users';
@@ -22,9 +23,13 @@ export function usersRoutes(ctx: AppContext): Router {
   route(
     router,
     'GET /users',
-    { summary: 'Every user, with status and live sessions', response: userListResponseSchema },
+    {
+      summary: 'Users, a page at a time, with status and live sessions',
+      query: userListQuerySchema,
+      response: userListResponseSchema,
+    },
     (_req, res) => {
-      res.json({ items: users.list() });
+      res.json(users.list(res.locals.query));
     },
   );
 

@@ -1,3 +1,4 @@
+import { offsetOf, type Page, type PageQuery } from '@emberline/contracts/paging';
 import { can, organisationKindOf } from '@emberline/contracts/permissions';
 import { roleLabels, type Role } from '@emberline/contracts/roles';
 import type {
@@ -21,6 +22,7 @@ import { issueUserToken } from '../auth/user-tokens.service';
 import { findEngineModel } from '../engine-models/engine-models.repository';
 import { findOrganisation, type OrganisationRow } from '../organisations/organisations.repository';
 import {
+  countUsers,
   findUserByEmail,
   findUserById,
   insertUser,
@@ -94,8 +96,15 @@ export function createUsersService(ctx: AppContext) {
   }
 
   return {
-    list(): User[] {
-      return listUsersWithSessionCounts(db, ctx.now()).map(toUser);
+    list(query: PageQuery): Page<User> {
+      return {
+        items: listUsersWithSessionCounts(db, ctx.now(), {
+          limit: query.pageSize,
+          offset: offsetOf(query),
+        }).map(toUser),
+        total: countUsers(db),
+        ...query,
+      };
     },
 
     invite(principal: Principal, input: InviteUserInput, meta: RequestMeta): InviteUserResponse {
@@ -252,7 +261,7 @@ export function createUsersService(ctx: AppContext) {
           ip: meta.ip,
         });
       });
-      const refreshed = listUsersWithSessionCounts(db, now).find((user) => user.id === id);
+      const [refreshed] = listUsersWithSessionCounts(db, now, { id });
       return toUser(refreshed ?? mustFind(id));
     },
 

@@ -1,6 +1,7 @@
 import express, { Router } from 'express';
 import {
   utilizationImportPreviewSchema,
+  utilizationListQuerySchema,
   utilizationListResponseSchema,
   utilizationRecordInputSchema,
 } from '@emberline/contracts/fleet';
@@ -35,10 +36,11 @@ export function utilizationRoutes(ctx: AppContext): Router {
     {
       summary: 'Utilization records of an engine, newest first, with the daily utilization',
       params: idParamsSchema,
+      query: utilizationListQuerySchema,
       response: utilizationListResponseSchema,
     },
     (_req, res) => {
-      res.json(utilization.list(principalOf(res), res.locals.params.id));
+      res.json(utilization.list(principalOf(res), res.locals.params.id, res.locals.query));
     },
   );
 

@@ -1,3 +1,4 @@
+import { pageOfList, type PageQuery } from '@emberline/contracts/paging';
 import type {
   UtilizationImportPreview,
   UtilizationListResponse,
@@ -138,10 +139,18 @@ export function createUtilizationService(ctx: AppContext) {
   }
 
   return {
-    list(principal: Principal, engineId: string): UtilizationListResponse {
+    list(
+      principal: Principal,
+      engineId: string,
+      query: PageQuery = { page: 1, pageSize: 50 },
+    ): UtilizationListResponse {
       engines.visibleEngine(principal, engineId);
+      // A few records a month per engine: the daily utilization takes them all.
       const rows = listUtilization(db, engineId);
-      return { items: rows.map(toRecord).reverse(), utilization: dailyUtilization(rows) };
+      return {
+        ...pageOfList(rows.map(toRecord).reverse(), query),
+        utilization: dailyUtilization(rows),
+      };
     },
 
     add(

@@ -8,7 +8,9 @@ export function AdminAuditLogRoute() {
       <p className="mb-4 text-sm text-soot-600">
         Every change, newest first. Entries are never edited or removed.
       </p>
-      <AuditLogView people={(users.data ?? []).map((user) => ({ id: user.id, name: user.name }))} />
+      <AuditLogView
+        people={(users.data?.items ?? []).map((user) => ({ id: user.id, name: user.name }))}
+      />
     </>
   );
 }

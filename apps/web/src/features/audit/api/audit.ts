@@ -1,5 +1,6 @@
 import { infiniteQueryOptions, useInfiniteQuery, useQuery } from '@tanstack/react-query';
 import type { AuditListQuery, AuditListResponse, HistoryEntry } from '@emberline/contracts/audit';
+import type { Page } from '@emberline/contracts/paging';
 import { api } from '../../../lib/api-client';
 
 export type AuditFilters = Partial<Omit<AuditListQuery, 'before' | 'limit'>>;
@@ -29,14 +30,16 @@ export function useAuditLog(filters: AuditFilters) {
 
 export type HistoryKind = 'inspections' | 'findings' | 'limit-sets';
 
-/** A record's history in words, oldest first. */
-export function useRecordHistory(kind: HistoryKind, id: string, enabled = true) {
+export const HISTORY_PAGE_SIZE = 100;
+
+/** A page of a record's history in words, oldest first. */
+export function useRecordHistory(kind: HistoryKind, id: string, page = 1, enabled = true) {
   return useQuery({
-    queryKey: auditKeys.history(kind, id),
+    queryKey: [...auditKeys.history(kind, id), page],
     queryFn: () =>
-      api
-        .get<{ items: HistoryEntry[] }>(`/${kind}/${encodeURIComponent(id)}/history`)
-        .then((body) => body.items),
+      api.get<Page<HistoryEntry>>(
+        `/${kind}/${encodeURIComponent(id)}/history?page=${page}&pageSize=${HISTORY_PAGE_SIZE}`,
+      ),
     enabled,
   });
 }

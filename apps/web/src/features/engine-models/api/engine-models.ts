@@ -1,5 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { EngineModel, EngineModelInput, EngineModelSummary } from '@emberline/contracts/fleet';
+import type { Page } from '@emberline/contracts/paging';
 import { api } from '../../../lib/api-client';
 
 export const engineModelKeys = {
@@ -8,11 +9,12 @@ export const engineModelKeys = {
   detail: (id: string) => [...engineModelKeys.all, 'detail', id] as const,
 };
 
+/** The engine models to choose from: the first 200, the most a page holds (DESIGN §6). */
 export const engineModelsQueryOptions = () =>
   queryOptions({
     queryKey: engineModelKeys.list(),
-    queryFn: () =>
-      api.get<{ items: EngineModelSummary[] }>('/engine-models').then((body) => body.items),
+    queryFn: () => api.get<Page<EngineModelSummary>>('/engine-models?pageSize=200'),
+    select: (page) => page.items,
   });
 
 export const engineModelQueryOptions = (id: string) =>

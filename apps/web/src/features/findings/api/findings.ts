@@ -51,7 +51,7 @@ export function useLimitSetInForce(modelId: string | null, enabled: boolean) {
     staleTime: 60_000,
     queryFn: async () => {
       const { items } = await api.get<{ items: LimitSetSummary[] }>(
-        `/engine-models/${encodeURIComponent(modelId!)}/limit-sets`,
+        `/engine-models/${encodeURIComponent(modelId!)}/limit-sets?pageSize=200`,
       );
       const inForce = items.find((item) => item.status === 'published');
       return inForce ? api.get<LimitSet>(`/limit-sets/${encodeURIComponent(inForce.id)}`) : null;
@@ -73,6 +73,7 @@ export function useSeriesCandidates(
             row: match!.row,
             position: String(match!.position),
             damage: match!.damage,
+            pageSize: '200',
           })}`,
         )
         .then((body) => body.items),

@@ -15,7 +15,7 @@ import { verdictStyles } from '@emberline/drawings/verdict-style';
 import { ArrowDown, ArrowUp } from 'lucide-react';
 import { useId } from 'react';
 import { Link } from 'react-router-dom';
-import { Button } from '../../../components/ui/button';
+import { Pager } from '../../../components/ui/pager';
 import { ExportLinks } from '../../../components/ui/export-links';
 import { DateInput, Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
@@ -140,7 +140,6 @@ export function FindingsSearch({
   owners: readonly Organisation[] | null;
 }) {
   const search = useFindingSearch(query);
-  const pages = search.data ? Math.max(1, Math.ceil(search.data.total / query.pageSize)) : 1;
   const row = rows.find((candidate) => candidate.key === query.row);
   const { page: _page, pageSize: _pageSize, ...selection } = query;
   return (
@@ -326,30 +325,13 @@ export function FindingsSearch({
               ))}
             </tbody>
           </table>
-          <div className="flex items-center justify-between px-3 py-2 text-sm">
-            <span>
-              Page {query.page} of {pages} · {search.data.total}{' '}
-              {search.data.total === 1 ? 'finding' : 'findings'}
-            </span>
-            {pages > 1 ? (
-              <span className="flex gap-2">
-                <Button
-                  variant="secondary"
-                  disabled={query.page <= 1}
-                  onClick={() => onChange({ page: query.page - 1 })}
-                >
-                  Previous
-                </Button>
-                <Button
-                  variant="secondary"
-                  disabled={query.page >= pages}
-                  onClick={() => onChange({ page: query.page + 1 })}
-                >
-                  Next
-                </Button>
-              </span>
-            ) : null}
-          </div>
+          <Pager
+            page={query.page}
+            pageSize={query.pageSize}
+            total={search.data.total}
+            noun={['finding', 'findings']}
+            onPage={(page) => onChange({ page })}
+          />
         </div>
       )}
       <ExportLinks

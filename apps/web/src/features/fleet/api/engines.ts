@@ -45,12 +45,16 @@ export const engineQueryOptions = (id: string) =>
     queryFn: () => api.get<EngineDetail>(`/engines/${encodeURIComponent(id)}`),
   });
 
-export const utilizationQueryOptions = (id: string) =>
+export const utilizationQueryOptions = (id: string, page = 1) =>
   queryOptions({
-    queryKey: engineKeys.utilization(id),
+    queryKey: [...engineKeys.utilization(id), page],
     queryFn: () =>
-      api.get<UtilizationListResponse>(`/engines/${encodeURIComponent(id)}/utilization`),
+      api.get<UtilizationListResponse>(
+        `/engines/${encodeURIComponent(id)}/utilization?page=${page}&pageSize=${UTILIZATION_PAGE_SIZE}`,
+      ),
   });
+
+export const UTILIZATION_PAGE_SIZE = 50;
 
 export function useEngines(query: Partial<EngineListQuery>) {
   return useQuery(enginesQueryOptions(query));
@@ -60,8 +64,8 @@ export function useEngine(id: string) {
   return useQuery(engineQueryOptions(id));
 }
 
-export function useUtilization(id: string) {
-  return useQuery(utilizationQueryOptions(id));
+export function useUtilization(id: string, page?: number) {
+  return useQuery(utilizationQueryOptions(id, page));
 }
 
 export function useCreateEngine() {

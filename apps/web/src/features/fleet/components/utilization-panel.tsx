@@ -8,12 +8,14 @@ import { Button } from '../../../components/ui/button';
 import { DateInput, Field, NumberInput } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { LoadingLine } from '../../../components/ui/page';
+import { Pager } from '../../../components/ui/pager';
 import { applyServerErrors, useZodForm } from '../../../lib/form';
 import { formatCount, formatDate, formatHours } from '../../../lib/format';
 import {
   useAddUtilization,
   useImportUtilization,
   usePreviewUtilizationImport,
+  UTILIZATION_PAGE_SIZE,
   useUtilization,
 } from '../api/engines';
 
@@ -178,7 +180,8 @@ export function UtilizationPanel({
   engineId: string;
   canManage: boolean;
 }) {
-  const utilization = useUtilization(engineId);
+  const [page, setPage] = useState(1);
+  const utilization = useUtilization(engineId, page);
   return (
     <div className="flex flex-col gap-6">
       {canManage ? (
@@ -230,7 +233,15 @@ export function UtilizationPanel({
           </table>
           {utilization.data.items.length === 0 ? (
             <p className="py-3 text-sm text-soot-600">No utilization recorded yet.</p>
-          ) : null}
+          ) : (
+            <Pager
+              page={page}
+              pageSize={UTILIZATION_PAGE_SIZE}
+              total={utilization.data.total}
+              noun={['record', 'records']}
+              onPage={setPage}
+            />
+          )}
         </div>
       )}
     </div>

@@ -11,12 +11,15 @@ import type {
 import { api, apiUrl } from '../../../lib/api-client';
 import { inspectionKeys } from '../../../lib/inspection-keys';
 
+/** An engine's inspections, newest first: four a year fill a page of 200 in fifty years. */
 export const inspectionsQueryOptions = (engineId: string) =>
   queryOptions({
     queryKey: inspectionKeys.list(engineId),
     queryFn: () =>
       api
-        .get<{ items: Inspection[] }>(`/inspections?engineId=${encodeURIComponent(engineId)}`)
+        .get<{
+          items: Inspection[];
+        }>(`/inspections?engineId=${encodeURIComponent(engineId)}&pageSize=200`)
         .then((body) => body.items),
   });
 

@@ -28,7 +28,7 @@ export function useLimitSets(modelId: string) {
     queryFn: () =>
       api
         .get<{ items: LimitSetSummary[] }>(
-          `/engine-models/${encodeURIComponent(modelId)}/limit-sets`,
+          `/engine-models/${encodeURIComponent(modelId)}/limit-sets?pageSize=200`,
         )
         .then((body) => body.items),
   });

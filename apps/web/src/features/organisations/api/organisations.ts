@@ -14,12 +14,24 @@ export const organisationKeys = {
   detail: (id: string) => [...organisationKeys.all, 'detail', id] as const,
 };
 
-export const organisationsQueryOptions = () =>
+/**
+ * The organisations to choose from: the first 200, the most a page holds (DESIGN §6); the
+ * organisations screen says when there are more.
+ */
+const organisationsPageOptions = () =>
   queryOptions({
     queryKey: organisationKeys.list(),
-    queryFn: () => api.get<OrganisationListResponse>('/organisations').then((body) => body.items),
+    queryFn: () => api.get<OrganisationListResponse>('/organisations?pageSize=200'),
     staleTime: 5 * 60_000,
   });
+
+export const organisationsQueryOptions = () =>
+  queryOptions({ ...organisationsPageOptions(), select: (page) => page.items });
+
+/** The page of organisations with its total, for the screen that lists them. */
+export function useOrganisationsPage() {
+  return useQuery(organisationsPageOptions());
+}
 
 export const organisationQueryOptions = (id: string) =>
   queryOptions({

@@ -9,7 +9,7 @@ import {
   useAddContact,
   useCreateOrganisation,
   useOrganisation,
-  useOrganisations,
+  useOrganisationsPage,
   useRemoveContact,
 } from '../api/organisations';
 
@@ -149,19 +149,18 @@ function Contacts({ organisationId }: { organisationId: string }) {
 }
 
 export function OrganisationsView() {
-  const organisations = useOrganisations();
+  const organisations = useOrganisationsPage();
   const [selected, setSelected] = useState<string | null>(null);
   if (organisations.isPending) return <LoadingLine />;
   if (organisations.error) return <Notice tone="error">{organisations.error.message}</Notice>;
+  const { items, total } = organisations.data;
   const current =
-    selected ??
-    organisations.data.find((organisation) => organisation.kind === 'customer')?.id ??
-    null;
+    selected ?? items.find((organisation) => organisation.kind === 'customer')?.id ?? null;
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,2fr)]">
       <Panel className="flex flex-col gap-4">
         <ul className="flex flex-col gap-1" aria-label="Organisations">
-          {organisations.data.map((organisation) => (
+          {items.map((organisation) => (
             <li key={organisation.id}>
               <button
                 type="button"
@@ -177,6 +176,11 @@ export function OrganisationsView() {
             </li>
           ))}
         </ul>
+        {total > items.length ? (
+          <p className="text-xs text-soot-600">
+            The first {items.length} of {total} organisations, by name.
+          </p>
+        ) : null}
         <NewOrganisationForm onCreated={setSelected} />
       </Panel>
       <Panel>

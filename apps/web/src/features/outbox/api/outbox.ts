@@ -73,10 +73,13 @@ export function useResendMessage() {
   });
 }
 
-export function useCaughtMail() {
+export const CAUGHT_PAGE_SIZE = 50;
+
+export function useCaughtMail(page = 1) {
   return useQuery({
-    queryKey: outboxKeys.caught(),
-    queryFn: () => api.get<MailListResponse>('/outbox/caught'),
+    queryKey: [...outboxKeys.caught(), page],
+    queryFn: () =>
+      api.get<MailListResponse>(`/outbox/caught?page=${page}&pageSize=${CAUGHT_PAGE_SIZE}`),
     staleTime: 0,
     refetchInterval: 5_000,
   });

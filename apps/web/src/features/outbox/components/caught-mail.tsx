@@ -2,11 +2,13 @@ import { useState } from 'react';
 import { Notice } from '../../../components/ui/notice';
 import { LoadingLine } from '../../../components/ui/page';
 import { formatDateTime } from '../../../lib/format';
-import { useCaughtMail, useCaughtMessage } from '../api/outbox';
+import { Pager } from '../../../components/ui/pager';
+import { CAUGHT_PAGE_SIZE, useCaughtMail, useCaughtMessage } from '../api/outbox';
 
 /** What the local SMTP fake caught: the messages as they arrived, read back from their `.eml`. */
 export function CaughtMail() {
-  const outbox = useCaughtMail();
+  const [page, setPage] = useState(1);
+  const outbox = useCaughtMail(page);
   const [selected, setSelected] = useState<string | null>(null);
   const mail = useCaughtMessage(selected);
 
@@ -28,29 +30,38 @@ export function CaughtMail() {
         <Notice>No e-mail has arrived yet.</Notice>
       ) : (
         <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
-          <ul
-            className="divide-y divide-soot-100 rounded-lg border border-soot-200 bg-white"
-            aria-label="Caught messages"
-          >
-            {outbox.data.items.map((item) => (
-              <li key={item.id}>
-                <button
-                  type="button"
-                  onClick={() => setSelected(item.id)}
-                  aria-current={selected === item.id || undefined}
-                  className={`block w-full px-4 py-3 text-left text-sm hover:bg-soot-50 ${selected === item.id ? 'bg-ember-50' : ''}`}
-                >
-                  <span className="block font-medium text-soot-900">
-                    {item.subject || '(no subject)'}
-                  </span>
-                  <span className="block text-soot-600">To {item.to.join(', ')}</span>
-                  <span className="block text-xs text-soot-500">
-                    {formatDateTime(item.receivedAt)}
-                  </span>
-                </button>
-              </li>
-            ))}
-          </ul>
+          <div>
+            <ul
+              className="divide-y divide-soot-100 rounded-lg border border-soot-200 bg-white"
+              aria-label="Caught messages"
+            >
+              {outbox.data.items.map((item) => (
+                <li key={item.id}>
+                  <button
+                    type="button"
+                    onClick={() => setSelected(item.id)}
+                    aria-current={selected === item.id || undefined}
+                    className={`block w-full px-4 py-3 text-left text-sm hover:bg-soot-50 ${selected === item.id ? 'bg-ember-50' : ''}`}
+                  >
+                    <span className="block font-medium text-soot-900">
+                      {item.subject || '(no subject)'}
+                    </span>
+                    <span className="block text-soot-600">To {item.to.join(', ')}</span>
+                    <span className="block text-xs text-soot-500">
+                      {formatDateTime(item.receivedAt)}
+                    </span>
+                  </button>
+                </li>
+              ))}
+            </ul>
+            <Pager
+              page={page}
+              pageSize={CAUGHT_PAGE_SIZE}
+              total={outbox.data.total}
+              noun={['message', 'messages']}
+              onPage={setPage}
+            />
+          </div>
           <div className="rounded-lg border border-soot-200 bg-white p-5">
             {!selected ? (
               <p className="text-sm text-soot-600">Choose a message to read it.</p>

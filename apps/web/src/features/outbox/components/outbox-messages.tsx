@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { outboxStateLabels, outboxStates, type OutboxState } from '@emberline/contracts/outbox';
 import { useSearchParams } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
+import { Pager } from '../../../components/ui/pager';
 import { Select } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { LoadingLine } from '../../../components/ui/page';
@@ -119,7 +120,6 @@ export function OutboxMessages() {
 
   const recordLabel = messages.data?.items.find((item) => item.record?.id === recordId)?.record
     ?.label;
-  const pages = messages.data ? Math.max(1, Math.ceil(messages.data.total / PAGE_SIZE)) : 1;
 
   return (
     <section aria-labelledby="outbox-messages" className="flex flex-col gap-4">
@@ -226,29 +226,13 @@ export function OutboxMessages() {
                 ))}
               </tbody>
             </table>
-            {pages > 1 ? (
-              <div className="flex items-center justify-between px-3 py-2 text-sm">
-                <span>
-                  Page {page} of {pages} · {messages.data.total} messages
-                </span>
-                <span className="flex gap-2">
-                  <Button
-                    variant="secondary"
-                    disabled={page <= 1}
-                    onClick={() => update({ page: String(page - 1) })}
-                  >
-                    Previous
-                  </Button>
-                  <Button
-                    variant="secondary"
-                    disabled={page >= pages}
-                    onClick={() => update({ page: String(page + 1) })}
-                  >
-                    Next
-                  </Button>
-                </span>
-              </div>
-            ) : null}
+            <Pager
+              page={page}
+              pageSize={PAGE_SIZE}
+              total={messages.data.total}
+              noun={['message', 'messages']}
+              onPage={(next) => update({ page: String(next) })}
+            />
           </div>
           <div className="rounded-lg border border-soot-200 bg-white p-5">
             {selected ? (

@@ -34,7 +34,9 @@ export function useDeliveries(inspectionId: string) {
   return useQuery({
     queryKey: reportKeys.deliveries(inspectionId),
     queryFn: () =>
-      api.get<DeliveryLog>(`/inspections/${encodeURIComponent(inspectionId)}/deliveries`),
+      api.get<DeliveryLog>(
+        `/inspections/${encodeURIComponent(inspectionId)}/deliveries?pageSize=200`,
+      ),
     refetchInterval: (query) =>
       query.state.data?.items.some((item) => item.state !== 'sent') ? 15_000 : false,
   });
@@ -44,7 +46,10 @@ export function useDeliveries(inspectionId: string) {
 export function useUndeliveredUrgent(enabled: boolean) {
   return useQuery({
     queryKey: reportKeys.undeliveredUrgent(),
-    queryFn: () => api.get<{ items: UndeliveredUrgentNotice[] }>('/urgent-notices/undelivered'),
+    queryFn: () =>
+      api.get<{ items: UndeliveredUrgentNotice[]; total: number }>(
+        '/urgent-notices/undelivered?pageSize=200',
+      ),
     enabled,
     refetchInterval: 30_000,
   });

@@ -10,9 +10,9 @@ import {
 import { decisionKindLabels } from '@emberline/contracts/review';
 import { Download } from 'lucide-react';
 import { Link } from 'react-router-dom';
-import { Button } from '../../../components/ui/button';
 import { Select } from '../../../components/ui/field';
 import { LoadingLine } from '../../../components/ui/page';
+import { Pager } from '../../../components/ui/pager';
 import { Notice } from '../../../components/ui/notice';
 import { formatDate, formatDateTime } from '../../../lib/format';
 import { reportUrl, useReports } from '../api/reports';
@@ -40,7 +40,6 @@ export function ReportsTable({
   owners: Organisation[] | null;
 }) {
   const reports = useReports(query);
-  const pages = reports.data ? Math.max(1, Math.ceil(reports.data.total / query.pageSize)) : 1;
   return (
     <section className="flex flex-col gap-4" aria-label="Reports">
       {owners ? (
@@ -154,30 +153,13 @@ export function ReportsTable({
               ))}
             </tbody>
           </table>
-          <div className="flex items-center justify-between px-3 py-2 text-sm">
-            <span>
-              Page {query.page} of {pages} · {reports.data.total}{' '}
-              {reports.data.total === 1 ? 'report' : 'reports'}
-            </span>
-            {pages > 1 ? (
-              <span className="flex gap-2">
-                <Button
-                  variant="secondary"
-                  disabled={query.page <= 1}
-                  onClick={() => onChange({ page: query.page - 1 })}
-                >
-                  Previous
-                </Button>
-                <Button
-                  variant="secondary"
-                  disabled={query.page >= pages}
-                  onClick={() => onChange({ page: query.page + 1 })}
-                >
-                  Next
-                </Button>
-              </span>
-            ) : null}
-          </div>
+          <Pager
+            page={query.page}
+            pageSize={query.pageSize}
+            total={reports.data.total}
+            noun={['report', 'reports']}
+            onPage={(page) => onChange({ page })}
+          />
         </div>
       )}
       <p className="text-xs text-soot-600">{cautions.dispositions}</p>

@@ -27,6 +27,11 @@ export function UrgentNoticeBanner({ enabled }: { enabled: boolean }) {
             </Link>
           </li>
         ))}
+        {(notices.data?.total ?? 0) > items.length ? (
+          <li className="font-semibold">
+            And {notices.data!.total - items.length} more urgent notices not delivered.
+          </li>
+        ) : null}
       </ul>
     </div>
   );

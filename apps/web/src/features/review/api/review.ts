@@ -9,22 +9,24 @@ import type {
   ReviewQueueItem,
   ReviewQueueQuery,
 } from '@emberline/contracts/review';
+import type { Page } from '@emberline/contracts/paging';
 import { api } from '../../../lib/api-client';
 import { findingQueryOptions } from '../../../lib/finding-query';
 import { inspectionKeys } from '../../../lib/inspection-keys';
 
 const path = (id: string) => encodeURIComponent(id);
 
-export function useReviewQueue(query: ReviewQueueQuery) {
+export const REVIEW_QUEUE_PAGE_SIZE = 50;
+
+export function useReviewQueue(query: ReviewQueueQuery, page: number) {
   const params = new URLSearchParams(
     Object.entries(query).filter((entry): entry is [string, string] => Boolean(entry[1])),
   );
+  params.set('page', String(page));
+  params.set('pageSize', String(REVIEW_QUEUE_PAGE_SIZE));
   return useQuery({
-    queryKey: inspectionKeys.queue(query),
-    queryFn: () =>
-      api
-        .get<{ items: ReviewQueueItem[] }>(`/review-queue?${params.toString()}`)
-        .then((body) => body.items),
+    queryKey: [...inspectionKeys.queue(query), page],
+    queryFn: () => api.get<Page<ReviewQueueItem>>(`/review-queue?${params.toString()}`),
   });
 }
 
@@ -49,7 +51,7 @@ export function useDamageSeries(findingId: string | null) {
     queryKey: ['findings', 'series', findingId],
     queryFn: () =>
       api
-        .get<{ items: SeriesEntry[] }>(`/findings/${path(findingId ?? '')}/series`)
+        .get<{ items: SeriesEntry[] }>(`/findings/${path(findingId ?? '')}/series?pageSize=200`)
         .then((body) => body.items),
     enabled: findingId !== null,
   });

@@ -11,19 +11,20 @@ import { api } from '../../../lib/api-client';
 
 export const userKeys = {
   all: ['users'] as const,
-  list: () => [...userKeys.all, 'list'] as const,
+  list: (page: number, pageSize: number) => [...userKeys.all, 'list', page, pageSize] as const,
 };
 
-export const usersQueryOptions = () =>
+/** A page of users; by default the first 200, the most a page holds, for choosing a person. */
+export const usersQueryOptions = (page = 1, pageSize = 200) =>
   // Sessions and statuses change by other people's hands: fetch afresh whenever the page opens.
   queryOptions({
-    queryKey: userKeys.list(),
-    queryFn: () => api.get<UserListResponse>('/users').then((body) => body.items),
+    queryKey: userKeys.list(page, pageSize),
+    queryFn: () => api.get<UserListResponse>(`/users?page=${page}&pageSize=${pageSize}`),
     staleTime: 0,
   });
 
-export function useUsers() {
-  return useQuery(usersQueryOptions());
+export function useUsers(page?: number, pageSize?: number) {
+  return useQuery(usersQueryOptions(page, pageSize));
 }
 
 export function useInviteUser() {

@@ -178,7 +178,7 @@ export function CredentialsPanel({
   const users = useUsers();
   const [editing, setEditing] = useState<string | null>(null);
   if (!users.data) return null;
-  const people = users.data.filter(
+  const people = users.data.items.filter(
     (user) =>
       user.status !== 'disabled' &&
       (can(user.role, 'review:inspection') || can(user.role, 'create:inspection')),

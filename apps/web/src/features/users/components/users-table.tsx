@@ -5,6 +5,7 @@ import type { User } from '@emberline/contracts/users';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { LoadingLine } from '../../../components/ui/page';
+import { Pager } from '../../../components/ui/pager';
 import { formatDateTime } from '../../../lib/format';
 import { useEndSessions, useResendInvitation, useUpdateUser, useUsers } from '../api/users';
 
@@ -14,8 +15,11 @@ const statusStyles: Record<User['status'], string> = {
   disabled: 'bg-soot-200 text-soot-700',
 };
 
+const USERS_PAGE_SIZE = 50;
+
 export function UsersTable({ currentUserId }: { currentUserId: string }) {
-  const users = useUsers();
+  const [page, setPage] = useState(1);
+  const users = useUsers(page, USERS_PAGE_SIZE);
   const update = useUpdateUser();
   const endSessions = useEndSessions();
   const resend = useResendInvitation();
@@ -59,7 +63,7 @@ export function UsersTable({ currentUserId }: { currentUserId: string }) {
             </tr>
           </thead>
           <tbody>
-            {users.data.map((user) => {
+            {users.data.items.map((user) => {
               const self = user.id === currentUserId;
               return (
                 <tr
@@ -182,6 +186,13 @@ export function UsersTable({ currentUserId }: { currentUserId: string }) {
           </tbody>
         </table>
       </div>
+      <Pager
+        page={page}
+        pageSize={USERS_PAGE_SIZE}
+        total={users.data.total}
+        noun={['user', 'users']}
+        onPage={setPage}
+      />
     </div>
   );
 }
