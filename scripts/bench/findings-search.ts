@@ -2,7 +2,7 @@ import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { findingSearchQuerySchema } from '../../packages/contracts/src/fleet-findings';
 import { createApp } from '../../apps/server/src/app';
-import { prepareRuntime } from '../../apps/server/src/bootstrap';
+import { prepareRuntime, type Runtime } from '../../apps/server/src/bootstrap';
 import { loadConfig } from '../../apps/server/src/config/env';
 import { rawConnection } from '../../apps/server/src/db/client';
 import { createLogger } from '../../apps/server/src/lib/logger';
@@ -33,22 +33,44 @@ const p95 = (samples: number[]) =>
  * and the count) run straight on better-sqlite3, the raw-SQL ceiling.
  */
 export async function benchFindingsSearch() {
-  const config = loadConfig({
+  const config = benchConfig(makeDataDir());
+  const runtime = await prepareRuntime(config, createLogger('silent', false));
+  const sqlite = rawConnection(runtime.ctx.db);
+  seedFindings(sqlite, { findings: FINDINGS, otherwise: 'submitted' });
+  sqlite.pragma('optimize');
+  const results = await measureSearches(runtime, {
+    label: `${FINDINGS / 1000}k`,
+    warmUp: WARM_UP,
+    requests: REQUESTS,
+    budget: FINDINGS > 200_000 ? null : 10,
+  });
+  await runtime.close();
+  return results;
+}
+
+export const benchConfig = (dataDir: string) =>
+  loadConfig({
     DEMO: '1',
-    DATA_DIR: makeDataDir(),
+    DATA_DIR: dataDir,
     LOG_LEVEL: 'silent',
     BCRYPT_COST: '10',
     NODE_ENV: 'production',
     DEMO_IMAGES: '0',
   });
-  const runtime = await prepareRuntime(config, createLogger('silent', false));
+
+/**
+ * Each search of `searches` through HTTP as an engineer, `requests` times after `warmUp`, beside
+ * its two statements on better-sqlite3; `budget` null records the figure without a ceiling.
+ */
+export async function measureSearches(
+  runtime: Runtime,
+  options: { label: string; warmUp: number; requests: number; budget: number | null },
+) {
   const sqlite = rawConnection(runtime.ctx.db);
-  seedFindings(sqlite, { findings: FINDINGS, otherwise: 'submitted' });
-  sqlite.pragma('optimize');
   const server = http.createServer(createApp(runtime.ctx, { webDist: null }));
   // The raw-SQL rounds between searches leave the client's connection idle for seconds: kept open,
   // so that the next search is not sent on a socket the server has just closed.
-  server.keepAliveTimeout = 120_000;
+  server.keepAliveTimeout = 600_000;
   server.listen(0, '127.0.0.1');
   await new Promise((resolve) => server.once('listening', resolve));
   const origin = `http://127.0.0.1:${(server.address() as AddressInfo).port}/api/v1`;
@@ -63,13 +85,13 @@ export async function benchFindingsSearch() {
   for (const search of searches) {
     const api: number[] = [];
     let total = 0;
-    for (let index = 0; index < WARM_UP + REQUESTS; index += 1) {
+    for (let index = 0; index < options.warmUp + options.requests; index += 1) {
       const started = performance.now();
       const response = await fetch(`${origin}/findings?${search}`, { headers: { cookie } });
       const body = (await response.json()) as { total: number };
       if (response.status !== 200)
         throw new Error(`GET /findings?${search} answered ${response.status}`);
-      if (index >= WARM_UP) api.push(performance.now() - started);
+      if (index >= options.warmUp) api.push(performance.now() - started);
       total = body.total;
     }
     const { page, pageSize, ...selection } = findingSearchQuerySchema.parse(
@@ -86,20 +108,19 @@ export async function benchFindingsSearch() {
       params: query.params,
     }));
     const sql: number[] = [];
-    for (let index = 0; index < WARM_UP + REQUESTS; index += 1) {
+    for (let index = 0; index < options.warmUp + options.requests; index += 1) {
       const started = performance.now();
       for (const { statement, params } of raw) statement.all(...params);
-      if (index >= WARM_UP) sql.push(performance.now() - started);
+      if (index >= options.warmUp) sql.push(performance.now() - started);
     }
     const figure = p95(api);
     results.push({
-      name: `GET /findings?${search || '(newest first)'} at ${FINDINGS / 1000}k (p95, ${total} match)`,
+      name: `GET /findings?${search || '(newest first)'} at ${options.label} (p95, ${total} match)`,
       figure: `${figure.toFixed(1)} ms`,
-      ceiling: `10 ms; raw SQL ${p95(sql).toFixed(1)}`,
-      ok: FINDINGS > 200_000 || figure <= 10,
+      ceiling: `${options.budget === null ? 'recorded' : `${options.budget} ms`}; raw SQL ${p95(sql).toFixed(1)}`,
+      ok: options.budget === null || figure <= options.budget,
     });
   }
   await new Promise((resolve) => server.close(resolve));
-  await runtime.close();
   return results;
 }

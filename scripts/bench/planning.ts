@@ -10,7 +10,7 @@ import { computeDueBases } from '../../apps/server/src/modules/planning/due-basi
 import { bookingsOf, dueBasesOf } from '../../apps/server/src/modules/planning/planning.repository';
 import { makeDataDir } from '../../apps/server/test/test-app';
 
-const ENGINES = 2000;
+const ENGINES = Number(process.env.BENCH_PLANNING_ENGINES ?? 2000);
 const INSPECTIONS = 10;
 const REQUESTS = 40;
 // Requests made before timing: the first computes every due basis, and the code the rest run is
@@ -205,7 +205,8 @@ export async function benchPlanning() {
   return {
     name: `GET /planning, ${total} engines × ${INSPECTIONS} inspections (p95)`,
     figure: `${figure.toFixed(0)} ms`,
-    ceiling: `50 ms; reads alone ${p95(reads).toFixed(0)}`,
-    ok: figure <= 50,
+    // The 50 ms budget is for 2,000 engines; at ten times that the figure is recorded.
+    ceiling: `${ENGINES > 2000 ? 'recorded' : '50 ms'}; reads alone ${p95(reads).toFixed(0)}`,
+    ok: ENGINES > 2000 || figure <= 50,
   };
 }

@@ -44,7 +44,13 @@ const pick = (draw: number) => {
  */
 export function seedFindings(
   sqlite: Database,
-  options: { findings: number; perInspection?: number; otherwise: 'draft' | 'submitted' },
+  options: {
+    findings: number;
+    perInspection?: number;
+    /** Engines to spread the inspections over (by default, one inspection each). */
+    engines?: number;
+    otherwise: 'draft' | 'submitted';
+  },
 ): { engines: number } {
   const next = random(11);
   const findings = options.findings;
@@ -73,19 +79,26 @@ export function seedFindings(
   );
   const submit = sqlite.prepare("UPDATE inspections SET state = 'submitted' WHERE id = ?");
   const now = Date.now();
-  const engines = Math.ceil(findings / perInspection);
+  const inspections = Math.ceil(findings / perInspection);
+  const engines = Math.min(options.engines ?? inspections, inspections);
   // Synthetic rows only: the image and user they name are not created.
   sqlite.pragma('foreign_keys = OFF');
   sqlite.transaction(() => {
     let made = 0;
-    for (let engine = 0; engine < engines; engine += 1) {
+    for (let engine = 0; engine < engines; engine += 1)
+      insertEngine.run(
+        `bench-engine-${engine}`,
+        `VT3-B${String(engine).padStart(5, '0')}`,
+        DEMO_MODEL_ID,
+        now,
+      );
+    for (let inspection = 0; inspection < inspections; inspection += 1) {
+      const engine = inspection % engines;
       const engineId = `bench-engine-${engine}`;
-      const inspectionId = `bench-inspection-${engine}`;
-      insertEngine.run(engineId, `VT3-B${String(engine).padStart(5, '0')}`, DEMO_MODEL_ID, now);
+      const inspectionId = `bench-inspection-${inspection}`;
       // Findings go into a draft (a submitted inspection refuses them, db/triggers.ts); every
-      // other inspection is then released.
-      // Two years of inspections, a day apart engine after engine.
-      const date = new Date(Date.UTC(2025, 0, 1) + (engine % 730) * 86_400_000)
+      // other inspection is then released. Two years of inspections, a day apart.
+      const date = new Date(Date.UTC(2025, 0, 1) + (inspection % 730) * 86_400_000)
         .toISOString()
         .slice(0, 10);
       insertInspection.run(inspectionId, engineId, date, 'draft', now);
@@ -136,7 +149,7 @@ export function seedFindings(
           now,
         );
       });
-      if (engine % 2) release.run(inspectionId);
+      if (inspection % 2) release.run(inspectionId);
       else if (options.otherwise === 'submitted') submit.run(inspectionId);
     }
   })();

@@ -53,6 +53,8 @@ export const routePolicy = {
   'GET /findings/:id/history': 'read:history',
   'GET /limit-sets/:id/history': 'read:history',
   'GET /records/verification': 'verify:records',
+  'POST /records/verifications': 'verify:records',
+  'GET /records/verifications/latest': 'verify:records',
   'GET /inspections': 'read:inspection',
   'POST /inspections': 'create:inspection',
   'GET /inspections/defaults': 'create:inspection',

@@ -300,3 +300,71 @@ describe('the audit chain', () => {
     );
   });
 });
+
+describe('the records check in the background', () => {
+  async function waitForCheck(cookie: string) {
+    for (let attempt = 0; attempt < 200; attempt += 1) {
+      const latest = await request(t.app)
+        .get('/api/v1/records/verifications/latest')
+        .set('Cookie', cookie);
+      expect(latest.status).toBe(200);
+      if (latest.body.job.state !== 'running') return latest.body.job;
+      await new Promise((resolve) => setTimeout(resolve, 10));
+    }
+    throw new Error('the records check did not finish');
+  }
+
+  it('runs the whole check with its progress, one at a time, and gives the same result as the check in the request', async () => {
+    const engineer = await t.signIn(demoAccounts.engineer);
+    const none = await request(t.app)
+      .get('/api/v1/records/verifications/latest')
+      .set('Cookie', engineer);
+    expect(none.status).toBe(200);
+    expect(none.body).toEqual({ job: null });
+
+    signThree();
+    const started = await request(t.app)
+      .post('/api/v1/records/verifications')
+      .set('Cookie', engineer);
+    expect(started.status).toBe(202);
+    expect(started.body).toMatchObject({ state: 'running', startedBy: 'Priya Castellane' });
+    const done = await waitForCheck(engineer);
+    expect(done).toMatchObject({ id: started.body.id, state: 'done', error: null });
+    expect(done.progress.phase).toBe('done');
+    expect(done.finishedAt).not.toBeNull();
+    // The same as the check in a request, but for the sign-in that request is audited with.
+    const direct = await verification();
+    expect(done.result).toEqual({
+      ...direct,
+      checked: { ...direct.checked, auditRows: direct.checked.auditRows - 1 },
+    });
+    expect(done.result.checked.signatures).toBe(3);
+
+    // A record changed behind the product's back is found by the next check.
+    tamper("update signatures set meaning = 'changed' where seq = 2");
+    const again = await request(t.app)
+      .post('/api/v1/records/verifications')
+      .set('Cookie', engineer);
+    expect(again.body.id).not.toBe(started.body.id);
+    const found = await waitForCheck(engineer);
+    expect(found.result.ok).toBe(false);
+    expect(found.result.problems.length).toBeGreaterThan(0);
+  });
+
+  it('gives the running check to a second request instead of starting another', async () => {
+    const engineer = await t.signIn(demoAccounts.engineer);
+    const [first, second] = await Promise.all([
+      request(t.app).post('/api/v1/records/verifications').set('Cookie', engineer),
+      request(t.app).post('/api/v1/records/verifications').set('Cookie', engineer),
+    ]);
+    expect([first.status, second.status]).toEqual([202, 202]);
+    const running = [first.body, second.body].filter((job) => job.state === 'running');
+    // Both asked while it ran: the same check.
+    if (running.length === 2) expect(second.body.id).toBe(first.body.id);
+    await waitForCheck(engineer);
+    const planner = await t.signIn(demoAccounts.planner);
+    expect(
+      (await request(t.app).post('/api/v1/records/verifications').set('Cookie', planner)).status,
+    ).toBe(403);
+  });
+});

@@ -26,7 +26,7 @@ export function AppShell() {
         Skip to content
       </a>
       <header className="bg-soot-900 text-soot-100">
-        <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-8 gap-y-2 px-6 py-3">
+        <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-6 py-3">
           <Link
             to="/"
             className="flex items-center gap-2 text-lg font-semibold tracking-tight text-white"
@@ -41,7 +41,7 @@ export function AppShell() {
                   <NavLink
                     to={item.to}
                     className={({ isActive }) =>
-                      `block rounded-md px-3 py-1.5 text-sm font-medium ${isActive ? 'bg-ember-700 text-white' : 'text-soot-200 hover:bg-soot-800 hover:text-white'}`
+                      `block rounded-md px-2.5 py-1.5 text-sm font-medium ${isActive ? 'bg-ember-700 text-white' : 'text-soot-200 hover:bg-soot-800 hover:text-white'}`
                     }
                   >
                     {item.label}
@@ -61,7 +61,10 @@ export function AppShell() {
                 <span className="block leading-tight text-white" data-testid="signed-in-name">
                   {user.name}
                 </span>
-                <span className="block text-xs leading-tight text-soot-200">
+                <span
+                  className="block max-w-64 truncate text-xs leading-tight text-soot-200"
+                  title={`${roleLabels[user.role]} · ${user.organisationName}`}
+                >
                   {roleLabels[user.role]} · {user.organisationName}
                 </span>
               </span>

@@ -1,19 +1,59 @@
+import { useEffect, useRef } from 'react';
+import { verificationPhaseLabels } from '@emberline/contracts/records';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { LoadingLine } from '../../../components/ui/page';
-import { formatCount } from '../../../lib/format';
-import { useRecordsVerification } from '../api/records';
+import { formatCount, formatDateTime } from '../../../lib/format';
+import { useLatestVerification, useStartVerification } from '../api/records';
 
 /**
  * The records check: every signature and audit row walked, hashed and its seal recomputed, and
- * each broken record named in words. The chain head is what reports print, so that a cut-off tail
- * shows when the two are compared.
+ * each broken record named in words. It runs in the background on the server (at volume it
+ * takes minutes); opening the screen starts one, and the screen follows its progress. The chain
+ * head is what reports print, so that a cut-off tail shows when the two are compared.
  */
 export function RecordsCheck() {
-  const check = useRecordsVerification();
-  if (check.isPending) return <LoadingLine label="Checking every record…" />;
-  if (check.error) return <Notice tone="error">{check.error.message}</Notice>;
-  const result = check.data;
+  const latest = useLatestVerification();
+  const start = useStartVerification();
+  const started = useRef(false);
+  useEffect(() => {
+    if (started.current || latest.isPending || latest.error) return;
+    started.current = true;
+    if (latest.data?.state !== 'running') start.mutate();
+  }, [latest.isPending, latest.error, latest.data, start]);
+
+  if (latest.error) return <Notice tone="error">{latest.error.message}</Notice>;
+  if (start.error) return <Notice tone="error">{start.error.message}</Notice>;
+  const job = latest.data;
+  if (!job || job.state === 'running') {
+    const progress = job?.progress;
+    return (
+      <div className="flex flex-col gap-2" aria-live="polite">
+        <LoadingLine label="Checking every record…" />
+        {progress ? (
+          <p className="text-sm text-soot-700">
+            {verificationPhaseLabels[progress.phase]}
+            {progress.done > 0 || progress.total
+              ? `: ${formatCount(progress.done)}${progress.total ? ` of ${formatCount(progress.total)}` : ''}`
+              : ''}
+            . The check goes on if you leave this page.
+          </p>
+        ) : null}
+      </div>
+    );
+  }
+  if (job.state === 'failed' || !job.result)
+    return (
+      <div className="flex flex-col gap-3">
+        <Notice tone="error">{job.error ?? 'The check stopped before the end.'}</Notice>
+        <div>
+          <Button variant="secondary" busy={start.isPending} onClick={() => start.mutate()}>
+            Check again
+          </Button>
+        </div>
+      </div>
+    );
+  const result = job.result;
   return (
     <div className="flex flex-col gap-4">
       {result.keyInsideDataDir ? (
@@ -53,8 +93,12 @@ export function RecordsCheck() {
           {result.head ? `${result.head.seq} · ${result.head.sha256}` : 'no signature yet'}
         </dd>
       </dl>
+      <p className="text-xs text-soot-600">
+        Checked from {formatDateTime(job.startedAt)}
+        {job.finishedAt ? ` to ${formatDateTime(job.finishedAt)}` : ''}, started by {job.startedBy}.
+      </p>
       <div>
-        <Button variant="secondary" busy={check.isFetching} onClick={() => void check.refetch()}>
+        <Button variant="secondary" busy={start.isPending} onClick={() => start.mutate()}>
           Check again
         </Button>
       </div>
