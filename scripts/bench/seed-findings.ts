@@ -81,9 +81,18 @@ export function seedFindings(
   const now = Date.now();
   const inspections = Math.ceil(findings / perInspection);
   const engines = Math.min(options.engines ?? inspections, inspections);
-  // Synthetic rows only: the image and user they name are not created.
+  // Synthetic rows: every finding is drawn on one stand-in image (a row without a file), so that
+  // every reference holds and the server opens the file as it opens a real installation's.
   sqlite.pragma('foreign_keys = OFF');
   sqlite.transaction(() => {
+    sqlite
+      .prepare(
+        `INSERT INTO images (id, inspection_id, sha256, format, bytes, width, height, original_name,
+           source, thumbnail, thumbnail_type, preview, preview_type, created_by, created_at)
+         VALUES ('bench-image', 'bench-inspection-0', ?, 'jpeg', 1, 1, 1, 'bench.jpg', 'upload',
+           x'', 'image/webp', x'', 'image/webp', 'user-admin', ?)`,
+      )
+      .run('0'.repeat(64), now);
     let made = 0;
     for (let engine = 0; engine < engines; engine += 1)
       insertEngine.run(
