@@ -2,10 +2,10 @@ import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { ListObjectsV2Command } from '@aws-sdk/client-s3';
-import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { makeDataDir, startTestApp, demoAccounts } from '../../../test/test-app';
+import { openInspection, still } from '../../../test/inspection-fixtures';
 import { startS3Fake, type S3Fake } from '../../../test/s3-fake';
 import { takeServerErrors } from '../../../test/server-log';
 import { loadConfig, type S3StorageConfig } from '../../config/env';
@@ -90,39 +90,24 @@ describe('image storage on an S3 protocol server', () => {
     const t = await startTestApp({ env: own.env });
     try {
       const inspector = await t.signIn(demoAccounts.inspector);
-      const created = await request(t.app)
-        .post('/api/v1/inspections')
-        .set('Cookie', inspector)
-        .send({
-          engineId: 'engine-d0101',
-          date: '2026-05-20',
-          reason: 'scheduled',
-          csn: 14_125,
-          tsn: 22_600,
-          inspectorName: 'Tobias Rennick',
-          qualificationRef: 'BSI-L2-0457',
-          qualificationExpiresOn: '2027-03-31',
-          probe: 'Demo probe VX-6 s/n 118',
-          probeCalibrationDueOn: '2026-09-30',
-          rows: ['hpt1-blade'],
-        });
-      expect(created.status).toBe(201);
+      const inspectionId = await openInspection(t.app, inspector, {
+        engineId: 'engine-d0101',
+        date: '2026-05-20',
+        csn: 14_125,
+        rows: ['hpt1-blade'],
+      });
       await own.close();
-      const still = await sharp({
-        create: { width: 320, height: 240, channels: 3, background: { r: 120, g: 80, b: 30 } },
-      })
-        .jpeg()
-        .toBuffer();
+      const image = await still(320, 240);
       const response = await request(t.app)
-        .post(`/api/v1/inspections/${created.body.id}/images`)
+        .post(`/api/v1/inspections/${inspectionId}/images`)
         .set('Cookie', inspector)
-        .attach('files', still, { filename: 'outage.jpg', contentType: 'image/jpeg' });
+        .attach('files', image, { filename: 'outage.jpg', contentType: 'image/jpeg' });
       expect(response.status).toBe(503);
       expect(response.body.error.code).toBe('storage_unavailable');
       expect(response.body.error.message).toMatch(/image store cannot be reached/);
       expect(fs.readdirSync(t.runtime.ctx.storage.tempDir)).toEqual([]);
       const detail = await request(t.app)
-        .get(`/api/v1/inspections/${created.body.id}`)
+        .get(`/api/v1/inspections/${inspectionId}`)
         .set('Cookie', inspector);
       expect(detail.body.images).toEqual([]);
       // The operator's log says what failed, with the store's own words.
