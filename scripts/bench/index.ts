@@ -64,10 +64,20 @@ if (child) {
     results.push(...(JSON.parse(mark.slice(MARK.length)) as Result[]));
   }
 
-  console.log(`\n${'benchmark'.padEnd(60)}${'figure'.padEnd(16)}${'ceiling'.padEnd(30)}within`);
+  // Columns as wide as their longest entry, so that every row reads straight across.
+  const width = (key: 'name' | 'figure' | 'ceiling', heading: string) =>
+    Math.max(heading.length, ...results.map((result) => result[key].length)) + 2;
+  const [name, figure, ceiling] = [
+    width('name', 'benchmark'),
+    width('figure', 'figure'),
+    width('ceiling', 'ceiling'),
+  ];
+  console.log(
+    `\n${'benchmark'.padEnd(name)}${'figure'.padEnd(figure)}${'ceiling'.padEnd(ceiling)}within`,
+  );
   for (const result of results) {
     console.log(
-      `${result.name.padEnd(60)}${result.figure.padEnd(16)}${result.ceiling.padEnd(30)}${result.ok ? 'yes' : 'NO'}`,
+      `${result.name.padEnd(name)}${result.figure.padEnd(figure)}${result.ceiling.padEnd(ceiling)}${result.ok ? 'yes' : 'NO'}`,
     );
   }
   if (results.some((result) => !result.ok)) process.exitCode = 1;

@@ -6,6 +6,8 @@ import type { Express } from 'express';
 import { createApp } from '../src/app';
 import { prepareRuntime, type Runtime } from '../src/bootstrap';
 import { loadConfig } from '../src/config/env';
+import { rawConnection } from '../src/db/client';
+import { findingSearchDrift } from '../src/db/finding-search';
 import { DEMO_PASSWORD } from '../src/demo/demo-scenario';
 import { createLogger } from '../src/lib/logger';
 import { serverLogCapture } from './server-log';
@@ -85,8 +87,25 @@ export async function startTestApp(
         );
       return sessionCookieOf(response.headers['set-cookie']);
     },
-    close: () => runtime.close(),
+    async close() {
+      const drift = projectionDrift(runtime);
+      await runtime.close();
+      if (drift) throw new Error(drift);
+    },
   };
+}
+
+/**
+ * Whether the fleet search's projection still agrees with the records it mirrors, checked as
+ * every integration test closes its app: null when it does, else what differs.
+ */
+function projectionDrift(runtime: Runtime): string | null {
+  const sqlite = rawConnection(runtime.ctx.db);
+  if (!sqlite.open) return null;
+  const drift = findingSearchDrift(sqlite);
+  return drift.extra + drift.missing + drift.miscounted === 0
+    ? null
+    : `the findings search's projection disagrees with the records: ${JSON.stringify(drift)}`;
 }
 
 /** The "name=value" part of the session cookie in a Set-Cookie header. */

@@ -2,6 +2,7 @@ import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
 import { paths } from '../config/paths';
 import { chainEarlierAuditRows } from './audit-chain';
 import { rawConnection, type Db } from './client';
+import { rebuildFindingSearch } from './finding-search';
 import { dropTriggers, ensureTriggers } from './triggers';
 
 /** The database cannot be used as it is: the message says what is wrong and what to do. */
@@ -51,12 +52,15 @@ export function runMigrations(db: Db, migrationsFolder: string = paths.migration
     const before = appliedMigrations(sqlite);
     migrate(db, { migrationsFolder });
     // Checked again only when a migration ran: at 2,000,000 findings a check costs seconds.
-    const broken = appliedMigrations(sqlite) === before ? [] : brokenReferences(sqlite);
+    const migrated = appliedMigrations(sqlite) !== before;
+    const broken = migrated ? brokenReferences(sqlite) : [];
     if (broken.length > 0)
       throw new Error(
         `a migration left ${broken.length} rows whose references point nowhere (first in ${broken[0]!.table})`,
       );
     chainEarlierAuditRows(sqlite);
+    // The search's projection is kept by triggers, which a migration runs without.
+    if (migrated) rebuildFindingSearch(sqlite);
   } finally {
     sqlite.pragma('foreign_keys = ON');
     ensureTriggers(sqlite);

@@ -720,3 +720,104 @@ export const reports = sqliteTable(
     uniqueIndex('reports_code_idx').on(table.verificationCode),
   ],
 );
+
+/**
+ * The fleet findings search's projection (decision 012): one row per recorded finding of an
+ * inspection that holds records (submitted or later, not void), with every column the search
+ * filters or sorts by. Kept by SQLite triggers in the transaction of the rows it mirrors
+ * (db/finding-search.ts) and rebuilt whole after a migration; nothing else writes it. It is read,
+ * never signed: the records are the source rows.
+ */
+export const findingSearch = sqliteTable(
+  'finding_search',
+  {
+    findingId: text().primaryKey(),
+    inspectionId: text().notNull(),
+    inspectionDate: text().notNull(),
+    /** 1 once the inspection was released (an owner sees it), else 0. */
+    released: integer().notNull(),
+    engineId: text().notNull(),
+    engineSerial: text().notNull(),
+    organisationId: text().notNull(),
+    modelId: text().notNull(),
+    number: integer().notNull(),
+    rowKey: text().notNull(),
+    position: integer().notNull(),
+    zone: text().notNull(),
+    damage: text().notNull(),
+    lengthMm: real(),
+    areaMm2: real(),
+    depthMm: real(),
+    /** The stored verdict as a rank: serviceable 0, repeat inspection 1, review 2, beyond limits 3. */
+    severity: integer(),
+    /** The kind of the current disposition (staff see it), or null. */
+    decision: text(),
+    /** The kind of the disposition the latest release names (an owner sees it), or null. */
+    releasedDecision: text(),
+  },
+  (table) => {
+    // Each index ends in the search's tie order (newest inspection, engine serial, finding
+    // number), so that a page is a range of the index, not a sort of every match.
+    const newest = [sql`inspection_date DESC`, table.engineSerial, table.number] as const;
+    return [
+      // The triggers forget an inspection's rows by it.
+      index('finding_search_inspection_idx').on(table.inspectionId),
+      index('finding_search_date_idx').on(...newest),
+      index('finding_search_engine_idx').on(table.engineId, ...newest),
+      index('finding_search_owner_idx').on(table.organisationId, table.released, ...newest),
+      index('finding_search_model_idx').on(table.modelId, ...newest),
+      index('finding_search_severity_idx').on(table.severity, ...newest),
+      index('finding_search_decision_idx').on(table.decision, ...newest),
+      index('finding_search_damage_idx').on(table.rowKey, table.damage, table.lengthMm),
+      index('finding_search_serial_idx').on(
+        table.engineSerial,
+        sql`inspection_date DESC`,
+        table.number,
+      ),
+      index('finding_search_length_idx').on(table.lengthMm),
+      index('finding_search_area_idx').on(table.areaMm2),
+      index('finding_search_depth_idx').on(table.depthMm),
+    ];
+  },
+);
+
+/**
+ * How many rows of the projection share each combination of the search's equality filters (owner,
+ * model, row, zone, damage, verdict, decisions) and which sizes they have: a search on those alone
+ * is counted by adding a few of these instead of counting every match. Kept by triggers on
+ * `finding_search` (db/finding-search.ts); a combination no row has any more is removed.
+ */
+export const findingSearchCounts = sqliteTable(
+  'finding_search_counts',
+  {
+    released: integer().notNull(),
+    organisationId: text().notNull(),
+    modelId: text().notNull(),
+    rowKey: text().notNull(),
+    zone: text().notNull(),
+    damage: text().notNull(),
+    severity: integer(),
+    decision: text(),
+    releasedDecision: text(),
+    hasLength: integer().notNull(),
+    hasArea: integer().notNull(),
+    hasDepth: integer().notNull(),
+    n: integer().notNull(),
+  },
+  (table) => [
+    index('finding_search_counts_key_idx').on(
+      table.organisationId,
+      table.modelId,
+      table.rowKey,
+      table.damage,
+      table.zone,
+      table.severity,
+      table.decision,
+      table.releasedDecision,
+      table.released,
+      table.hasLength,
+      table.hasArea,
+      table.hasDepth,
+    ),
+  ],
+);

@@ -1,4 +1,5 @@
 import type Database from 'better-sqlite3';
+import { findingSearchTriggers } from './finding-search';
 
 /**
  * The rules SQLite itself enforces, whatever code runs. They are dropped before the migrations run
@@ -119,6 +120,7 @@ export const triggers: Record<string, string> = {
       OLD.state = 'current' AND NEW.state IN ('superseded', 'withdrawn') AND
       ${dispositionContent.map((column) => `NEW.${column} IS OLD.${column}`).join(' AND ')}
     ) BEGIN SELECT RAISE(ABORT, 'a signed disposition cannot change; supersede it with a new one'); END`,
+  ...findingSearchTriggers,
 };
 
 /**

@@ -4,24 +4,27 @@ import {
   count,
   desc,
   eq,
-  gt,
   gte,
   inArray,
+  isNotNull,
+  isNull,
   lte,
-  notInArray,
   sql,
   type SQL,
 } from 'drizzle-orm';
 import type {
   FindingSearchItem,
   FindingSearchSelection,
+  FindingSearchSortKey,
 } from '@emberline/contracts/fleet-findings';
+import type { AnySQLiteColumn } from 'drizzle-orm/sqlite-core';
 import type { DbOrTx } from '../../db/client';
 import {
-  dispositions,
   engineModelRows,
   engineModels,
   engines,
+  findingSearch,
+  findingSearchCounts,
   findings,
   inspections,
   organisations,
@@ -33,113 +36,161 @@ export interface SearchScope {
   releasedOnly: boolean;
 }
 
-/**
- * The decision in force on a finding. Staff: the current disposition. An owner: the disposition
- * the inspection's latest release names (through its outcome signature), so that a decision
- * re-signed after the release stays with the staff until the next one.
- */
-function decisionOf(scope: SearchScope): SQL<string | null> {
-  if (!scope.releasedOnly)
-    return sql`(SELECT ${dispositions.kind} FROM ${dispositions}
-      WHERE ${dispositions.findingId} = ${findings.id} AND ${dispositions.state} = 'current'
-      LIMIT 1)`;
-  return sql`(SELECT d.kind FROM dispositions d
-      WHERE d.finding_id = ${findings.id} AND d.id IN (
-        SELECT json_extract(item.value, '$.dispositionId')
-        FROM signatures outcome, json_each(outcome.content, '$.dispositions') item
-        WHERE outcome.kind = 'outcome' AND outcome.sha256 = (
-          SELECT json_extract(released.content, '$.outcomeSignatureSha256')
-          FROM signatures released
-          WHERE released.kind = 'release' AND released.subject_id = ${findings.inspectionId}
-          ORDER BY released.seq DESC LIMIT 1))
-      LIMIT 1)`;
-}
+/** The decision in force: staff see the current disposition, an owner the one last released. */
+const decisionOf = (scope: SearchScope) =>
+  scope.releasedOnly ? findingSearch.releasedDecision : findingSearch.decision;
 
-// Beyond limits ranks highest, so that a descending sort puts the worst first.
-const severity = sql`CASE ${findings.category} WHEN 'serviceable' THEN 0
-  WHEN 'repeat-inspection' THEN 1 WHEN 'review' THEN 2 WHEN 'beyond-limits' THEN 3 END`;
+// Verdicts as the projection ranks them: beyond limits highest, so that descending puts it first.
+const severity = { serviceable: 0, 'repeat-inspection': 1, review: 2, 'beyond-limits': 3 } as const;
 
 const sortColumns = {
-  inspectionDate: inspections.date,
-  engineSerial: engines.serialNumber,
-  position: findings.position,
-  lengthMm: findings.lengthMm,
-  areaMm2: findings.areaMm2,
-  depthMm: findings.depthMm,
-  category: severity,
+  inspectionDate: findingSearch.inspectionDate,
+  engineSerial: findingSearch.engineSerial,
+  position: findingSearch.position,
+  lengthMm: findingSearch.lengthMm,
+  areaMm2: findingSearch.areaMm2,
+  depthMm: findingSearch.depthMm,
+  category: findingSearch.severity,
 } as const;
+
+type Page = { offset: number; limit: number };
 
 /**
  * Recorded findings of the inspections that hold records (not drafts, not void; an owner's:
- * released at least once), filtered, sorted and paged in SQL. Findings without the sorted value
- * (a burn has no depth) come last whatever the order.
+ * released at least once), filtered, sorted and paged in SQL on the search's projection
+ * (db/finding-search.ts). Findings without the sorted value come last whatever the order: they
+ * are paged after those with it, so that each part is a range of an index.
  */
 export function searchFindings(
   db: DbOrTx,
   scope: SearchScope,
   query: FindingSearchSelection,
-  page: { offset: number; limit: number },
+  page: Page,
 ): { items: FindingSearchItem[]; total: number } {
-  const { page: pageIds, count } = searchStatements(db, scope, query, page);
-  const ids = pageIds.all().map((row) => row.id);
+  const statements = searchStatements(db, scope, query);
+  const { total, sorted } = statements.count.get() ?? { total: 0, sorted: 0 };
+  const ids =
+    page.offset < sorted
+      ? statements
+          .sorted(page)
+          .all()
+          .map((row) => row.findingId)
+      : [];
+  const rest = page.limit - ids.length;
+  if (rest > 0 && sorted < total)
+    ids.push(
+      ...statements
+        .unsorted({ offset: Math.max(0, page.offset - sorted), limit: rest })
+        .all()
+        .map((row) => row.findingId),
+    );
   const byId = new Map(findingDetails(db, scope, ids).map((item) => [item.id, item]));
-  return { items: ids.map((id) => byId.get(id)!), total: count.get()?.n ?? 0 };
+  return { items: ids.map((id) => byId.get(id)!), total };
 }
 
-/** The page's statement and the count's, as `searchFindings` runs them (and a benchmark reads). */
-export function searchStatements(
-  db: DbOrTx,
+/** The columns of the equality filters, which the projection and its counts both have. */
+type GroupedColumns = Record<
+  | 'released'
+  | 'organisationId'
+  | 'modelId'
+  | 'rowKey'
+  | 'zone'
+  | 'damage'
+  | 'severity'
+  | 'decision'
+  | 'releasedDecision',
+  AnySQLiteColumn
+>;
+
+/** The scope and the equality filters, on the projection or on its counts. */
+function groupedFilters(
+  columns: GroupedColumns,
   scope: SearchScope,
   query: FindingSearchSelection,
-  page: { offset: number; limit: number },
 ) {
-  const decision = decisionOf(scope);
-  const where = and(
-    eq(findings.status, 'recorded'),
-    notInArray(inspections.state, ['draft', 'void']),
-    scope.releasedOnly ? gt(inspections.releaseRevision, 0) : undefined,
-    scope.organisationId ? eq(engines.organisationId, scope.organisationId) : undefined,
-    query.organisationId ? eq(engines.organisationId, query.organisationId) : undefined,
-    query.modelId ? eq(engines.modelId, query.modelId) : undefined,
-    query.engineId ? eq(inspections.engineId, query.engineId) : undefined,
-    query.row ? eq(findings.rowKey, query.row) : undefined,
-    query.zone ? eq(findings.zone, query.zone) : undefined,
-    query.damage ? eq(findings.damage, query.damage) : undefined,
-    query.category ? eq(findings.category, query.category) : undefined,
-    query.from ? gte(inspections.date, query.from) : undefined,
-    query.to ? lte(inspections.date, query.to) : undefined,
+  const decision = scope.releasedOnly ? columns.releasedDecision : columns.decision;
+  return and(
+    scope.releasedOnly ? eq(columns.released, 1) : undefined,
+    scope.organisationId ? eq(columns.organisationId, scope.organisationId) : undefined,
+    query.organisationId ? eq(columns.organisationId, query.organisationId) : undefined,
+    query.modelId ? eq(columns.modelId, query.modelId) : undefined,
+    query.row ? eq(columns.rowKey, query.row) : undefined,
+    query.zone ? eq(columns.zone, query.zone) : undefined,
+    query.damage ? eq(columns.damage, query.damage) : undefined,
+    query.category ? eq(columns.severity, severity[query.category]) : undefined,
     query.decision === 'none'
-      ? sql`${decision} IS NULL`
+      ? isNull(decision)
       : query.decision
-        ? sql`${decision} = ${query.decision}`
+        ? eq(decision, query.decision)
         : undefined,
   );
-  const sorted = sortColumns[query.sort];
+}
+
+/**
+ * The sorts whose value a finding may lack (a burn has no depth; a finding never judged has no
+ * verdict), and which of a combination's findings have it.
+ */
+const countedWith: Partial<Record<FindingSearchSortKey, SQL>> = {
+  lengthMm: sql`${findingSearchCounts.hasLength} = 1`,
+  areaMm2: sql`${findingSearchCounts.hasArea} = 1`,
+  depthMm: sql`${findingSearchCounts.hasDepth} = 1`,
+  category: isNotNull(findingSearchCounts.severity),
+};
+
+/**
+ * The search's statements, as `searchFindings` runs them (and a benchmark reads): the count of
+ * matches and of those with the sorted value, the page of those with it, and the page of those
+ * without (in the tie order). A search by the equality filters alone is counted on the
+ * projection's counts, a few rows whatever the number of matches; one by engine or days counts
+ * the range of an index.
+ */
+export function searchStatements(db: DbOrTx, scope: SearchScope, query: FindingSearchSelection) {
+  const where = and(
+    groupedFilters(findingSearch, scope, query),
+    query.engineId ? eq(findingSearch.engineId, query.engineId) : undefined,
+    query.from ? gte(findingSearch.inspectionDate, query.from) : undefined,
+    query.to ? lte(findingSearch.inspectionDate, query.to) : undefined,
+  );
+  const sortedBy = sortColumns[query.sort];
+  const hasSorted = countedWith[query.sort];
+  const lacking = hasSorted !== undefined;
   const direction = query.order === 'asc' ? asc : desc;
-  // The page is chosen on narrow rows (ids and what they sort by); the details of those few are
-  // read after, so that nothing is computed for a row that is not shown.
-  const pageIds = db
-    .select({ id: findings.id })
-    .from(findings)
-    .innerJoin(inspections, eq(inspections.id, findings.inspectionId))
-    .innerJoin(engines, eq(engines.id, inspections.engineId))
-    .where(where)
-    .orderBy(
-      sql`${sorted} IS NULL`,
-      direction(sorted),
-      desc(inspections.date),
-      asc(engines.serialNumber),
-      asc(findings.number),
-    )
-    .limit(page.limit)
-    .offset(page.offset);
-  const total = db
-    .select({ n: count() })
-    .from(findings)
-    .innerJoin(inspections, eq(inspections.id, findings.inspectionId))
-    .innerJoin(engines, eq(engines.id, inspections.engineId))
-    .where(where);
-  return { page: pageIds, count: total };
+  const ties = [
+    desc(findingSearch.inspectionDate),
+    asc(findingSearch.engineSerial),
+    asc(findingSearch.number),
+  ];
+  // The page is chosen on the projection's narrow rows; the details of those few are read after.
+  const ids = (part: SQL | undefined, order: SQL[], page: Page) =>
+    db
+      .select({ findingId: findingSearch.findingId })
+      .from(findingSearch)
+      .where(and(where, part))
+      .orderBy(...order)
+      .limit(page.limit)
+      .offset(page.offset);
+  const n = findingSearchCounts.n;
+  const counts =
+    query.engineId || query.from || query.to
+      ? db
+          .select({ total: count(), sorted: lacking ? count(sortedBy) : count() })
+          .from(findingSearch)
+          .where(where)
+      : db
+          .select({
+            total: sql<number>`coalesce(sum(${n}), 0)`,
+            sorted: hasSorted
+              ? sql<number>`coalesce(sum(CASE WHEN ${hasSorted} THEN ${n} END), 0)`
+              : sql<number>`coalesce(sum(${n}), 0)`,
+          })
+          .from(findingSearchCounts)
+          .where(groupedFilters(findingSearchCounts, scope, query));
+  return {
+    count: counts,
+    sorted: (page: Page) =>
+      ids(lacking ? isNotNull(sortedBy) : undefined, [direction(sortedBy), ...ties], page),
+    unsorted: (page: Page) => ids(isNull(sortedBy), ties, page),
+  };
 }
 
 /** The inspection of each finding, in the order given (for an export of search matches). */
@@ -157,10 +208,12 @@ export function findingInspections(db: DbOrTx, ids: readonly string[]): string[]
   return ids.map((id) => byId.get(id)!);
 }
 
-/** What a page shows of each of its findings, with the decision as the caller may see it. */
 function findingDetails(db: DbOrTx, scope: SearchScope, ids: readonly string[]) {
-  if (ids.length === 0) return [];
-  const decision = decisionOf(scope);
+  return ids.length === 0 ? [] : (detailsStatement(db, scope, ids).all() as FindingSearchItem[]);
+}
+
+/** What a page shows of each of its findings, with the decision as the caller may see it. */
+export function detailsStatement(db: DbOrTx, scope: SearchScope, ids: readonly string[]) {
   return db
     .select({
       id: findings.id,
@@ -186,11 +239,12 @@ function findingDetails(db: DbOrTx, scope: SearchScope, ids: readonly string[]) 
       uncertaintyMm: findings.uncertaintyMm,
       uncertaintyMm2: findings.uncertaintyMm2,
       category: findings.category,
-      decision,
+      decision: decisionOf(scope),
       imageId: findings.imageId,
       seriesId: findings.seriesId,
     })
     .from(findings)
+    .innerJoin(findingSearch, eq(findingSearch.findingId, findings.id))
     .innerJoin(inspections, eq(inspections.id, findings.inspectionId))
     .innerJoin(engines, eq(engines.id, inspections.engineId))
     .innerJoin(engineModels, eq(engineModels.id, engines.modelId))
@@ -199,6 +253,5 @@ function findingDetails(db: DbOrTx, scope: SearchScope, ids: readonly string[]) 
       engineModelRows,
       and(eq(engineModelRows.modelId, engines.modelId), eq(engineModelRows.key, findings.rowKey)),
     )
-    .where(inArray(findings.id, [...ids]))
-    .all() as FindingSearchItem[];
+    .where(inArray(findings.id, [...ids]));
 }
